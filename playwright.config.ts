@@ -1,0 +1,28 @@
+import { defineConfig } from '@playwright/test';
+
+// Browser tests drive Debian's Chromium (/usr/bin/chromium); Playwright's own browser
+// download cannot run on our machines. CHROMIUM_PATH overrides the location.
+const executablePath = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
+
+export default defineConfig({
+	testDir: 'tests/e2e',
+	testMatch: '**/*.e2e.ts',
+	timeout: 60_000,
+	fullyParallel: false,
+	workers: 1,
+	reporter: [['list']],
+	use: {
+		baseURL: 'http://127.0.0.1:4173',
+		viewport: { width: 1280, height: 800 },
+		launchOptions: {
+			executablePath,
+			args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run']
+		}
+	},
+	webServer: {
+		command: 'npx vite preview --host 127.0.0.1 --port 4173 --strictPort',
+		url: 'http://127.0.0.1:4173',
+		reuseExistingServer: false,
+		timeout: 60_000
+	}
+});

@@ -1,0 +1,17 @@
+// Bundles the `causeway` command (src/cli/main.ts) into dist-cli/causeway.mjs with esbuild,
+// so `npx causeway` starts fast and needs no TypeScript loader at run time.
+import { build } from 'esbuild';
+import { existsSync } from 'node:fs';
+
+if (!existsSync('src/cli/main.ts')) process.exit(0);
+await build({
+	entryPoints: ['src/cli/main.ts'],
+	outfile: 'dist-cli/causeway.mjs',
+	bundle: true,
+	platform: 'node',
+	format: 'esm',
+	target: 'node20',
+	sourcemap: false,
+	logLevel: 'warning',
+	banner: { js: "import { createRequire as __cwCreateRequire } from 'node:module'; const require = __cwCreateRequire(import.meta.url);" }
+});
