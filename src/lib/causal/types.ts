@@ -1,0 +1,92 @@
+/**
+ * Result types of the causal engine, in terms of variable ids (strings), as the CLI prints
+ * them and the app shows them. The index-based algorithms live beside this file; the façade
+ * in analysis.ts converts.
+ */
+
+export type Effect = 'total' | 'direct';
+
+/** Why a variable may not be in an adjustment set. */
+export type ForbiddenWhy =
+	| 'exposure'
+	| 'outcome'
+	| 'mediator'
+	| 'descendant-of-mediator'
+	| 'descendant-of-outcome'
+	| 'descendant-of-exposure'
+	| 'unmeasured';
+
+export type AdjustmentProblem =
+	| { kind: 'open-path'; path: string[] }
+	| { kind: 'forbidden'; variable: string; why: ForbiddenWhy };
+
+export interface AdjustmentCheck {
+	adjusted: string[];
+	valid: boolean;
+	problems: AdjustmentProblem[];
+}
+
+export interface AdjustmentSets {
+	exposures: string[];
+	outcomes: string[];
+	effect: Effect;
+	identifiable: boolean;
+	/** Each set sorted by id; sets ordered by size, then lexicographically. */
+	sets: string[][];
+	truncated: boolean;
+	/** Efficiency-optimal set O (Henckel et al. 2022) when it exists and is all measured. */
+	optimal: string[] | null;
+	/** A minimum-size set (minimum vertex cut), null when not identifiable. */
+	minimum: string[] | null;
+}
+
+export interface DSeparationResult {
+	separated: boolean;
+	/** One open path from a variable of `from` to one of `to`, when not separated. */
+	path: string[] | null;
+}
+
+export type Role =
+	| 'exposure'
+	| 'outcome'
+	| 'confounder'
+	| 'mediator'
+	| 'collider'
+	| 'descendant-of-exposure'
+	| 'descendant-of-outcome'
+	| 'instrument-like'
+	| 'precision'
+	| 'unrelated';
+
+export interface VariableRoles {
+	id: string;
+	roles: Role[];
+}
+
+/** Why a path is blocked (first blocking node) or what keeps it open. */
+export type PathNodeReason =
+	| { node: string; reason: 'adjusted-non-collider' }
+	| { node: string; reason: 'collider-not-adjusted' }
+	| { node: string; reason: 'collider-adjusted' }
+	| { node: string; reason: 'collider-descendant-adjusted'; via: string };
+
+export interface PathInfo {
+	nodes: string[];
+	/** true for a directed path from exposure to outcome. */
+	causal: boolean;
+	open: boolean;
+	/** When blocked: every node that blocks it. When open: each collider opened by adjustment. */
+	reasons: PathNodeReason[];
+}
+
+export interface PathListing {
+	paths: PathInfo[];
+	truncated: boolean;
+}
+
+export interface Claim {
+	a: string;
+	b: string;
+	/** A minimal conditioning set of measured variables, or null when no measured set separates. */
+	given: string[] | null;
+}
