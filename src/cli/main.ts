@@ -1,0 +1,379 @@
+/**
+ * The `causeway` command: a thin layer over src/lib/graph and src/lib/causal, so pipelines get
+ * exactly the answers the app shows. Contract (DESIGN.md): `--json` prints one JSON object;
+ * exit 0 = done, 1 = negative verdict (`check`), 2 = bad usage or bad input, with one line on
+ * stderr and no stack trace.
+ */
+import { readFile, writeFile } from 'node:fs/promises';
+import { parseArgs, type ParseArgsConfig } from 'node:util';
+import type { Diagram } from '../lib/graph/diagram';
+import { InputError } from '../lib/graph/errors';
+import { readDiagramText } from '../lib/graph/read-file';
+import { writeDiagramJson } from '../lib/graph/native-json';
+import { writeDot } from '../lib/graph/dot';
+import {
+	adjustmentSets,
+	checkAdjustment,
+	dSeparation,
+	exposureOutcomePaths,
+	impliedClaims,
+	variableRoles
+} from '../lib/causal/analysis';
+import type { Effect } from '../lib/causal/types';
+import { UsageError, type CliIo } from './io';
+import { braces, pathText, problemText, reasonText, ROLE_TEXT } from './format';
+
+export type { CliIo } from './io';
+
+const VERSION = '0.1.0';
+
+type Options = ParseArgsConfig['options'];
+type Values = Record<string, string | boolean | string[] | undefined>;
+
+interface Command {
+	summary: string;
+	usage: string;
+	details: string;
+	options: Options;
+	run(ctx: Context): Promise<number>;
+}
+
+interface Context {
+	io: CliIo;
+	values: Values;
+	positionals: string[];
+	json: boolean;
+	print(text: string): void;
+	printJson(value: unknown): void;
+	diagram(): Promise<Diagram>;
+	question(): { exposures?: string[]; outcomes?: string[] };
+	list(name: string): string[] | undefined;
+	count(name: string): number | undefined;
+}
+
+const QUESTION: Options = {
+	exposure: { type: 'string', multiple: true },
+	outcome: { type: 'string', multiple: true }
+};
+const COMMON: Options = { json: { type: 'boolean' }, help: { type: 'boolean', short: 'h' } };
+
+const QUESTION_HELP = `  --exposure a,b   exposure variable(s), replacing those in the file
+  --outcome c      outcome variable(s), replacing those in the file`;
+
+function arrowLookup(d: Diagram): (a: string, b: string) => boolean {
+	const arrows = new Set(d.arrows.map((a) => `${a.from}\u0000${a.to}`));
+	return (a, b) => arrows.has(`${a}\u0000${b}`);
+}
+
+const commands: Record<string, Command> = {
+	sets: {
+		summary: 'list every minimal sufficient adjustment set',
+		usage: 'causeway sets DIAGRAM [--effect total|direct] [--max N] [--exposure …] [--outcome …] [--json]',
+		details: `Lists the minimal sufficient adjustment sets for the effect of the exposure(s) on the
+outcome(s), by the adjustment criterion (Shpitser, VanderWeele & Robins 2010) in its
+constructive form (van der Zander, Liśkiewicz & Textor 2019), using measured variables only.
+Also prints a minimum-size set and the efficiency-optimal set O (Henckel, Perković &
+Maathuis 2022) when it is made of measured variables. --effect direct lists the sets for the
+direct effect by Pearl's single-door criterion (one exposure, one outcome).
+  --effect total|direct   which effect (default total)
+  --max N                 stop after N sets (the output says it was truncated)
+${QUESTION_HELP}`,
+		options: { ...QUESTION, effect: { type: 'string' }, max: { type: 'string' } },
+		async run(ctx) {
+			const d = await ctx.diagram();
+			const effect = ctx.values.effect ?? 'total';
+			if (effect !== 'total' && effect !== 'direct') throw new UsageError(`--effect must be "total" or "direct", not "${String(effect)}"`);
+			const r = adjustmentSets(d, { ...ctx.question(), effect: effect as Effect, max: ctx.count('max') });
+			if (ctx.json) {
+				ctx.printJson({
+					exposures: r.exposures,
+					outcomes: r.outcomes,
+					effect: r.effect,
+					identifiable: r.identifiable,
+					sets: r.sets,
+					truncated: r.truncated,
+					optimal: r.optimal,
+					minimum: r.minimum
+				});
+				return 0;
+			}
+			const what = `${r.effect} effect of ${r.exposures.join(', ')} on ${r.outcomes.join(', ')}`;
+			if (!r.identifiable) {
+				ctx.print(`The ${what} cannot be identified by adjustment: no set of measured variables is sufficient.`);
+				return 0;
+			}
+			ctx.print(`Minimal sufficient adjustment sets for the ${what}:`);
+			for (const s of r.sets) ctx.print(`  ${braces(s)}`);
+			if (r.truncated) ctx.print(`  … stopped after ${r.sets.length} sets (--max); more exist`);
+			if (r.minimum) ctx.print(`Smallest set: ${braces(r.minimum)}`);
+			if (r.effect === 'total') ctx.print(r.optimal ? `Efficiency-optimal set: ${braces(r.optimal)}` : 'Efficiency-optimal set: none made of measured variables');
+			return 0;
+		}
+	},
+	check: {
+		summary: 'judge a planned adjustment set (exit 1 when it is not sufficient)',
+		usage: 'causeway check DIAGRAM [--adjust a,b] [--exposure …] [--outcome …] [--json]',
+		details: `Says whether the planned set (the file's "adjusted" list, or --adjust) is a sufficient
+adjustment set for the total effect, and gives every reason when it is not: each forbidden
+variable (mediator, descendant of a mediator or of the outcome, unmeasured…) and each
+non-causal path left open. Exit status 1 when the set is not sufficient.
+  --adjust a,b     the planned set, replacing the file's (use --adjust "" for none)
+${QUESTION_HELP}`,
+		options: { ...QUESTION, adjust: { type: 'string', multiple: true } },
+		async run(ctx) {
+			const d = await ctx.diagram();
+			const r = checkAdjustment(d, { ...ctx.question(), adjusted: ctx.list('adjust') });
+			if (ctx.json) {
+				ctx.printJson({ adjusted: r.adjusted, valid: r.valid, problems: r.problems });
+			} else {
+				ctx.print(
+					r.valid
+						? `Adjusting for ${braces(r.adjusted)} is sufficient to estimate the total effect.`
+						: `Adjusting for ${braces(r.adjusted)} is NOT sufficient to estimate the total effect:`
+				);
+				const arrows = arrowLookup(d);
+				for (const p of r.problems) ctx.print(`  - ${problemText(p, arrows)}`);
+			}
+			return r.valid ? 0 : 1;
+		}
+	},
+	dsep: {
+		summary: 'test d-separation of two sets given a third',
+		usage: 'causeway dsep DIAGRAM --from a,b --to c [--given e,f] [--json]',
+		details: `Says whether the --from and --to variables are d-separated given the --given variables
+(Pearl 1988), and when they are not, shows one open path.
+  --from a,b     first set
+  --to c         second set
+  --given e,f    conditioning set (default none)`,
+		options: { from: { type: 'string', multiple: true }, to: { type: 'string', multiple: true }, given: { type: 'string', multiple: true } },
+		async run(ctx) {
+			const from = ctx.list('from');
+			const to = ctx.list('to');
+			if (!from || from.length === 0) throw new UsageError('dsep needs --from');
+			if (!to || to.length === 0) throw new UsageError('dsep needs --to');
+			const d = await ctx.diagram();
+			const given = ctx.list('given') ?? [];
+			const r = dSeparation(d, from, to, given);
+			if (ctx.json) ctx.printJson({ separated: r.separated, path: r.path });
+			else if (r.separated) ctx.print(`${braces(from)} and ${braces(to)} are d-separated given ${given.length ? braces(given) : 'nothing'}.`);
+			else ctx.print(`${braces(from)} and ${braces(to)} are d-connected given ${given.length ? braces(given) : 'nothing'}; open path: ${pathText(r.path ?? [], arrowLookup(d))}`);
+			return 0;
+		}
+	},
+	paths: {
+		summary: 'list exposure–outcome paths with their status',
+		usage: 'causeway paths DIAGRAM [--adjust a,b] [--max N] [--exposure …] [--outcome …] [--json]',
+		details: `Lists every path between exposure and outcome (capped by --max, default 1000): causal or
+not, open or blocked under the planned set, and which variables block it or hold it open.
+  --adjust a,b   the planned set, replacing the file's
+  --max N        list at most N paths
+${QUESTION_HELP}`,
+		options: { ...QUESTION, adjust: { type: 'string', multiple: true }, max: { type: 'string' } },
+		async run(ctx) {
+			const d = await ctx.diagram();
+			const r = exposureOutcomePaths(d, { ...ctx.question(), adjusted: ctx.list('adjust'), max: ctx.count('max') });
+			if (ctx.json) {
+				ctx.printJson(r);
+				return 0;
+			}
+			const arrows = arrowLookup(d);
+			for (const p of r.paths) {
+				const status = `${p.causal ? 'causal' : 'non-causal'}, ${p.open ? 'open' : 'blocked'}`;
+				const why = p.reasons.map(reasonText).join('; ');
+				ctx.print(`${pathText(p.nodes, arrows)}   [${status}]${why ? ` ${why}` : ''}`);
+			}
+			if (r.paths.length === 0) ctx.print('No path joins the exposure and the outcome.');
+			if (r.truncated) ctx.print(`… stopped after ${r.paths.length} paths (--max); more exist`);
+			return 0;
+		}
+	},
+	claims: {
+		summary: 'list the conditional independencies the diagram implies',
+		usage: 'causeway claims DIAGRAM [--max N] [--json]',
+		details: `For each pair of measured variables with no arrow between them, prints a minimal set of
+measured variables given which the diagram says they are independent (d-separated), or says
+that no measured set makes them independent.
+  --max N   list at most N claims`,
+		options: { max: { type: 'string' } },
+		async run(ctx) {
+			const d = await ctx.diagram();
+			const claims = impliedClaims(d, { max: ctx.count('max') });
+			if (ctx.json) {
+				ctx.printJson({ claims });
+				return 0;
+			}
+			for (const c of claims) {
+				ctx.print(
+					c.given === null
+						? `${c.a} and ${c.b}: not adjacent, but no set of measured variables makes them independent`
+						: `${c.a} ⟂ ${c.b}${c.given.length ? ` | ${c.given.join(', ')}` : ''}`
+				);
+			}
+			if (claims.length === 0) ctx.print('The diagram implies no independence between measured variables.');
+			return 0;
+		}
+	},
+	roles: {
+		summary: 'give each variable its role for the question',
+		usage: 'causeway roles DIAGRAM [--exposure …] [--outcome …] [--json]',
+		details: `Prints the role of each variable for the effect of the exposure(s) on the outcome(s):
+confounder, mediator, collider, descendant of exposure or outcome, instrument-like,
+precision variable or unrelated (several may apply).
+${QUESTION_HELP}`,
+		options: { ...QUESTION },
+		async run(ctx) {
+			const d = await ctx.diagram();
+			const roles = variableRoles(d, ctx.question());
+			if (ctx.json) {
+				ctx.printJson({ roles });
+				return 0;
+			}
+			const width = Math.max(...roles.map((r) => r.id.length), 1);
+			for (const r of roles) ctx.print(`${r.id.padEnd(width)}  ${r.roles.map((x) => ROLE_TEXT[x]).join(', ')}`);
+			return 0;
+		}
+	},
+	convert: {
+		summary: 'convert a diagram between native JSON and DOT',
+		usage: 'causeway convert IN -o OUT',
+		details: `Reads a native JSON (.json) or DOT (.dot, .gv) diagram and writes it in the format named by
+OUT's extension (.json, .dot or .gv). "-o -" writes native JSON to standard output.
+  -o, --output OUT   the file to write`,
+		options: { output: { type: 'string', short: 'o' }, to: { type: 'string' } },
+		async run(ctx) {
+			const out = ctx.values.output;
+			if (typeof out !== 'string' || out === '') throw new UsageError('convert needs -o OUT');
+			const d = await ctx.diagram();
+			const format = typeof ctx.values.to === 'string' ? ctx.values.to : formatFromName(out);
+			const text = format === 'dot' ? writeDot(d) : writeDiagramJson(d);
+			if (out === '-') ctx.io.stdout(text.endsWith('\n') ? text : `${text}\n`);
+			else await (ctx.io.writeFile ?? writeFile)(out, text);
+			return 0;
+		}
+	}
+};
+
+function formatFromName(name: string): 'json' | 'dot' {
+	if (name === '-') return 'json';
+	const lower = name.toLowerCase();
+	if (lower.endsWith('.dot') || lower.endsWith('.gv')) return 'dot';
+	if (lower.endsWith('.json')) return 'json';
+	throw new UsageError(`cannot tell the format of "${name}" from its extension: use .json, .dot or .gv`);
+}
+
+function generalHelp(): string {
+	const width = Math.max(...Object.keys(commands).map((c) => c.length));
+	return `causeway ${VERSION} — causal diagrams for choosing and justifying adjustment sets
+
+Usage: causeway COMMAND DIAGRAM [options]
+
+DIAGRAM is a native JSON (.json) or DOT (.dot, .gv) file, or - for standard input.
+
+Commands:
+${Object.entries(commands)
+	.map(([name, c]) => `  ${name.padEnd(width)}  ${c.summary}`)
+	.join('\n')}
+
+Options for every command: --json (one JSON object on stdout), --help.
+Exit status: 0 done, 1 negative verdict (check), 2 bad usage or bad input.
+Run "causeway COMMAND --help" for a command's options.
+
+A diagram encodes assumptions; results are only as good as those assumptions. Causeway
+supports, and does not replace, review by qualified epidemiologists or statisticians.`;
+}
+
+/** Splits "a,b" and repeated flags into one list of trimmed, non-empty ids. */
+function splitList(value: string | boolean | string[] | undefined): string[] | undefined {
+	if (value === undefined || typeof value === 'boolean') return undefined;
+	const parts = (Array.isArray(value) ? value : [value]).flatMap((v) => v.split(','));
+	return parts.map((p) => p.trim()).filter((p) => p.length > 0);
+}
+
+async function readInput(io: CliIo, path: string): Promise<string> {
+	if (io.readFile) return io.readFile(path);
+	if (path === '-') {
+		const chunks: Buffer[] = [];
+		for await (const chunk of process.stdin) chunks.push(chunk as Buffer);
+		return Buffer.concat(chunks).toString('utf8');
+	}
+	return readFile(path, 'utf8');
+}
+
+function describeFsError(err: unknown, path: string): string | null {
+	const code = (err as { code?: unknown } | null)?.code;
+	if (code === 'ENOENT') return `cannot read "${path}": no such file`;
+	if (code === 'EISDIR') return `cannot read "${path}": it is a folder`;
+	if (code === 'EACCES') return `cannot read "${path}": permission denied`;
+	return null;
+}
+
+export async function main(argv: readonly string[], io: CliIo): Promise<number> {
+	const fail = (message: string) => {
+		io.stderr(`causeway: ${message.replace(/\s*\n\s*/g, ' ')}\n`);
+		return 2;
+	};
+	const [name, ...rest] = argv;
+	if (name === undefined || name === '--help' || name === '-h' || name === 'help') {
+		io.stdout(`${generalHelp()}\n`);
+		return name === undefined ? 2 : 0;
+	}
+	if (name === '--version' || name === '-V') {
+		io.stdout(`${VERSION}\n`);
+		return 0;
+	}
+	const command = Object.hasOwn(commands, name) ? commands[name] : undefined;
+	if (!command) return fail(`unknown command "${name}"; run "causeway --help" for the list`);
+	let parsed: { values: Values; positionals: string[] };
+	try {
+		parsed = parseArgs({ args: [...rest], options: { ...COMMON, ...command.options }, allowPositionals: true, strict: true }) as {
+			values: Values;
+			positionals: string[];
+		};
+	} catch (err) {
+		return fail(`${(err as Error).message.split('\n')[0]} (see "causeway ${name} --help")`);
+	}
+	if (parsed.values.help) {
+		io.stdout(`Usage: ${command.usage}\n\n${command.details}\n`);
+		return 0;
+	}
+	const json = parsed.values.json === true;
+	const ctx: Context = {
+		io,
+		values: parsed.values,
+		positionals: parsed.positionals,
+		json,
+		print: (text) => io.stdout(`${text}\n`),
+		printJson: (value) => io.stdout(`${JSON.stringify(value)}\n`),
+		async diagram() {
+			if (parsed.positionals.length === 0) throw new UsageError(`${name} needs a diagram file (usage: ${command.usage})`);
+			if (parsed.positionals.length > 1) throw new UsageError(`${name} takes one diagram file, got ${parsed.positionals.length}: ${parsed.positionals.join(' ')}`);
+			const path = parsed.positionals[0];
+			let text: string;
+			try {
+				text = await readInput(io, path);
+			} catch (err) {
+				throw new UsageError(describeFsError(err, path) ?? `cannot read "${path}": ${(err as Error).message}`);
+			}
+			return readDiagramText(path === '-' ? 'stdin' : path, text);
+		},
+		question() {
+			return { exposures: splitList(parsed.values.exposure), outcomes: splitList(parsed.values.outcome) };
+		},
+		list: (key) => splitList(parsed.values[key]),
+		count(key) {
+			const raw = parsed.values[key];
+			if (raw === undefined) return undefined;
+			const value = Number(raw);
+			if (typeof raw !== 'string' || !/^\d+$/.test(raw.trim()) || !Number.isSafeInteger(value) || value < 1) {
+				throw new UsageError(`--${key} must be a whole number of at least 1, not "${String(raw)}"`);
+			}
+			return value;
+		}
+	};
+	try {
+		return await command.run(ctx);
+	} catch (err) {
+		if (err instanceof UsageError || err instanceof InputError) return fail(err.message);
+		return fail(`internal error: ${(err as Error)?.message ?? String(err)} (please report this)`);
+	}
+}

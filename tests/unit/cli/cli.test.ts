@@ -1,0 +1,231 @@
+import { describe, expect, it } from 'vitest';
+import { execFileSync, spawnSync } from 'node:child_process';
+import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { main } from '../../../src/cli/main';
+
+const DEMO = 'static/demo/cycling-hypertension.causeway.json';
+
+async function run(args: string[], files: Record<string, string> = {}) {
+	let out = '';
+	let err = '';
+	const written: Record<string, string> = {};
+	const code = await main(args, {
+		stdout: (s) => (out += s),
+		stderr: (s) => (err += s),
+		readFile: async (p) => (p in files ? files[p] : readFileSync(p, 'utf8')),
+		writeFile: async (p, c) => {
+			written[p] = typeof c === 'string' ? c : Buffer.from(c).toString('utf8');
+		}
+	});
+	return { code, out, err, written };
+}
+
+const diagram = (arrows: [string, string][], extra: Record<string, unknown> = {}) => {
+	const ids = [...new Set(arrows.flat())];
+	return JSON.stringify({
+		format: 'causeway.diagram',
+		version: 1,
+		title: 't',
+		variables: ids.map((id) => ({ id, label: id, measured: true })),
+		arrows: arrows.map(([from, to]) => ({ from, to })),
+		exposures: [],
+		outcomes: [],
+		adjusted: [],
+		...extra
+	});
+};
+
+// M-bias (Greenland, Epidemiology 2003): E ← U1 → M ← U2 → D, E → D.
+const MBIAS = diagram(
+	[
+		['u1', 'e'],
+		['u1', 'm'],
+		['u2', 'm'],
+		['u2', 'd'],
+		['e', 'd']
+	],
+	{ exposures: ['e'], outcomes: ['d'] }
+);
+
+describe('causeway sets', () => {
+	it('prints the demo study sets as the JSON contract says', async () => {
+		const r = await run(['sets', DEMO, '--json']);
+		expect(r.code).toBe(0);
+		expect(r.err).toBe('');
+		const j = JSON.parse(r.out);
+		expect(Object.keys(j)).toEqual(['exposures', 'outcomes', 'effect', 'identifiable', 'sets', 'truncated', 'optimal', 'minimum']);
+		expect(j.sets).toEqual([['age', 'diet', 'income']]);
+		expect(j.identifiable).toBe(true);
+		expect(j.effect).toBe('total');
+		expect(r.out.trim().split('\n')).toHaveLength(1);
+	});
+
+	it('orders sets by size, then lexicographically, and honours --max with a truncated flag', async () => {
+		// Two parallel back-door paths, each blockable at two places: 4 minimal sets of size 2.
+		const d = diagram(
+			[
+				['a1', 'a2'],
+				['a2', 'x'],
+				['a1', 'y'],
+				['b1', 'b2'],
+				['b2', 'x'],
+				['b1', 'y'],
+				['x', 'y']
+			],
+			{ exposures: ['x'], outcomes: ['y'] }
+		);
+		const all = JSON.parse((await run(['sets', 'd.json', '--json'], { 'd.json': d })).out);
+		expect(all.sets).toEqual([
+			['a1', 'b1'],
+			['a1', 'b2'],
+			['a2', 'b1'],
+			['a2', 'b2']
+		]);
+		expect(all.truncated).toBe(false);
+		const capped = JSON.parse((await run(['sets', 'd.json', '--json', '--max', '2'], { 'd.json': d })).out);
+		expect(capped.sets).toHaveLength(2);
+		expect(capped.truncated).toBe(true);
+	});
+
+	it('overrides the question from the command line and reports non-identifiable questions', async () => {
+		// Front door (Pearl 1995): x → m → y with x ← u → y and u unmeasured.
+		const fd = JSON.stringify({
+			format: 'causeway.diagram',
+			version: 1,
+			title: 'front door',
+			variables: [
+				{ id: 'x', label: 'x', measured: true },
+				{ id: 'm', label: 'm', measured: true },
+				{ id: 'y', label: 'y', measured: true },
+				{ id: 'u', label: 'u', measured: false }
+			],
+			arrows: [
+				{ from: 'x', to: 'm' },
+				{ from: 'm', to: 'y' },
+				{ from: 'u', to: 'x' },
+				{ from: 'u', to: 'y' }
+			],
+			exposures: [],
+			outcomes: [],
+			adjusted: []
+		});
+		const r = await run(['sets', 'fd.json', '--exposure', 'x', '--outcome', 'y', '--json'], { 'fd.json': fd });
+		expect(JSON.parse(r.out)).toMatchObject({ identifiable: false, sets: [], optimal: null, exposures: ['x'], outcomes: ['y'] });
+		const text = await run(['sets', 'fd.json', '--exposure', 'x', '--outcome', 'y'], { 'fd.json': fd });
+		expect(text.out).toMatch(/cannot be identified by adjustment/);
+	});
+
+	it('lists direct-effect sets', async () => {
+		const r = await run(['sets', DEMO, '--effect', 'direct', '--json']);
+		expect(r.code).toBe(0);
+		expect(JSON.parse(r.out).effect).toBe('direct');
+	});
+});
+
+describe('causeway check', () => {
+	it('exits 0 for a sufficient set and 1 with every reason for an insufficient one', async () => {
+		const ok = await run(['check', 'm.json', '--adjust', '', '--json'], { 'm.json': MBIAS });
+		expect(ok.code).toBe(0);
+		expect(JSON.parse(ok.out)).toEqual({ adjusted: [], valid: true, problems: [] });
+		const bad = await run(['check', 'm.json', '--adjust', 'm', '--json'], { 'm.json': MBIAS });
+		expect(bad.code).toBe(1);
+		expect(JSON.parse(bad.out)).toEqual({ adjusted: ['m'], valid: false, problems: [{ kind: 'open-path', path: ['e', 'u1', 'm', 'u2', 'd'] }] });
+		const text = await run(['check', 'm.json', '--adjust', 'm'], { 'm.json': MBIAS });
+		expect(text.out).toContain('open non-causal path: e ← u1 → m ← u2 → d');
+	});
+
+	it('names a mediator as forbidden (overadjustment, Schisterman et al. 2009)', async () => {
+		const r = await run(['check', DEMO, '--adjust', 'age,income,diet,bmi', '--json']);
+		expect(r.code).toBe(1);
+		expect(JSON.parse(r.out).problems).toContainEqual({ kind: 'forbidden', variable: 'bmi', why: 'mediator' });
+	});
+});
+
+describe('causeway dsep, paths, claims, roles', () => {
+	it('gives an open path as witness', async () => {
+		const r = await run(['dsep', 'm.json', '--from', 'u1', '--to', 'u2', '--given', 'm', '--json'], { 'm.json': MBIAS });
+		expect(JSON.parse(r.out)).toEqual({ separated: false, path: ['u1', 'm', 'u2'] });
+		const s = await run(['dsep', 'm.json', '--from', 'u1', '--to', 'u2', '--json'], { 'm.json': MBIAS });
+		expect(JSON.parse(s.out)).toEqual({ separated: true, path: null });
+	});
+
+	it('lists paths with status and reasons', async () => {
+		const r = await run(['paths', 'm.json', '--adjust', 'm', '--json'], { 'm.json': MBIAS });
+		const j = JSON.parse(r.out);
+		expect(j.paths).toEqual([
+			{ nodes: ['e', 'd'], causal: true, open: true, reasons: [] },
+			{ nodes: ['e', 'u1', 'm', 'u2', 'd'], causal: false, open: true, reasons: [{ node: 'm', reason: 'collider-adjusted' }] }
+		]);
+		expect(j.truncated).toBe(false);
+	});
+
+	it('lists claims and roles', async () => {
+		const c = JSON.parse((await run(['claims', 'm.json', '--json'], { 'm.json': MBIAS })).out);
+		expect(c.claims).toContainEqual({ a: 'u1', b: 'u2', given: [] });
+		const roles = JSON.parse((await run(['roles', 'm.json', '--json'], { 'm.json': MBIAS })).out).roles;
+		expect(roles).toContainEqual({ id: 'm', roles: ['collider'] });
+		expect(roles).toContainEqual({ id: 'u1', roles: ['confounder'] });
+	});
+});
+
+describe('bad usage and bad input: one line on stderr, exit 2, no stack trace', () => {
+	const cases: [string, string[], Record<string, string>][] = [
+		['no command', [], {}],
+		['unknown command', ['frobnicate', DEMO], {}],
+		['unknown option', ['sets', DEMO, '--bogus'], {}],
+		['missing file', ['sets', 'nope.json'], {}],
+		['unknown exposure', ['sets', DEMO, '--exposure', 'nosuch'], {}],
+		['exposure equals outcome', ['sets', DEMO, '--exposure', 'age', '--outcome', 'age'], {}],
+		['bad --max', ['sets', DEMO, '--max', 'many'], {}],
+		['bad --effect', ['sets', DEMO, '--effect', 'partial'], {}],
+		['malformed JSON', ['sets', 'bad.json'], { 'bad.json': '{"format": "causeway.diagram", ' }],
+		['cyclic diagram', ['sets', 'cyc.json'], { 'cyc.json': diagram([['a', 'b'], ['b', 'c'], ['c', 'a']], { exposures: ['a'], outcomes: ['c'] }) }],
+		['dsep without --from', ['dsep', DEMO, '--to', 'age'], {}],
+		['two files', ['roles', DEMO, DEMO], {}],
+		['convert without -o', ['convert', DEMO], {}]
+	];
+	for (const [what, args, files] of cases) {
+		it(what, async () => {
+			const r = await run(args, files);
+			expect(r.code).toBe(2);
+			expect(r.err.trim().split('\n')).toHaveLength(1);
+			expect(r.err).toMatch(/^causeway: /);
+			expect(r.err).not.toMatch(/\n\s+at /);
+		});
+	}
+
+	it('names the cycle', async () => {
+		const r = await run(['sets', 'cyc.json'], { 'cyc.json': diagram([['a', 'b'], ['b', 'c'], ['c', 'a']], { exposures: ['a'], outcomes: ['c'] }) });
+		expect(r.err).toMatch(/cycle/i);
+		expect(r.err).toMatch(/a → b → c → a|b → c → a → b|c → a → b → c/);
+	});
+});
+
+describe('convert and the installed command', () => {
+	it('converts JSON to DOT and back without loss', async () => {
+		const toDot = await run(['convert', DEMO, '-o', 'demo.dot']);
+		expect(toDot.code).toBe(0);
+		const back = await run(['convert', 'demo.dot', '-o', 'demo.json'], { 'demo.dot': toDot.written['demo.dot'] });
+		expect(back.code).toBe(0);
+		const original = JSON.parse(readFileSync(DEMO, 'utf8'));
+		const again = JSON.parse(back.written['demo.json']);
+		expect(again.variables).toEqual(original.variables);
+		expect(again.arrows).toEqual(original.arrows);
+		expect(again.exposures).toEqual(original.exposures);
+	});
+
+	it('runs as `npx causeway` from the bundled command with the documented exit codes', () => {
+		const dir = mkdtempSync(join(tmpdir(), 'causeway-cli-'));
+		const file = join(dir, 'm.json');
+		writeFileSync(file, MBIAS);
+		const out = execFileSync('node', ['bin/causeway.js', 'sets', file, '--json'], { encoding: 'utf8' });
+		expect(JSON.parse(out).sets).toEqual([[]]);
+		const bad = spawnSync('node', ['bin/causeway.js', 'check', file, '--adjust', 'm'], { encoding: 'utf8' });
+		expect(bad.status).toBe(1);
+		const broken = spawnSync('node', ['bin/causeway.js', 'sets', join(dir, 'missing.json')], { encoding: 'utf8' });
+		expect(broken.status).toBe(2);
+		expect(broken.stderr.trim().split('\n')).toHaveLength(1);
+	});
+});
