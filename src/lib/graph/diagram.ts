@@ -44,3 +44,12 @@ export const DIAGRAM_VERSION = 1;
 export function emptyDiagram(title = 'Untitled diagram'): Diagram {
 	return { title, variables: [], arrows: [], exposures: [], outcomes: [], adjusted: [] };
 }
+
+/**
+ * Keys never copied from a file into a diagram object (top level, variables, arrows, `extra`):
+ * assigning them to a plain object could change its prototype ("prototype pollution") in code
+ * that later merges the object with Object.assign or a loop.
+ */
+export function isUnsafeKey(key: string): boolean {
+	return key === '__proto__' || key === 'constructor' || key === 'prototype';
+}

@@ -1,0 +1,320 @@
+/**
+ * The native file format (`causeway.diagram`, version 1): JSON text ⇄ Diagram.
+ *
+ * Reading is three steps, each with its own kind of message:
+ *  1. syntax — JSON.parse; on failure jsonc-parser (the scanner VS Code uses) re-reads the text
+ *     only to find the line and column, because JSON.parse's messages give no position in
+ *     every JavaScript engine;
+ *  2. structure — ajv checks diagram.schema.json (JSON Schema 2020-12) and the first failure
+ *     becomes a message naming the path (`variables[3].id`) and its line;
+ *  3. model — defaults are filled in (label = id, measured = true, empty role lists) and
+ *     keys this version does not know go to `extra`, so that writing the diagram again keeps
+ *     them.
+ * Diagram-level rules (unique ids, arrows between known variables, no cycles) are not checked
+ * here but by validate.ts, so that an editor can open a file with such problems and show them.
+ *
+ * Cost: O(size of the text) for reading and writing.
+ */
+import Ajv2020 from 'ajv/dist/2020';
+import type { ErrorObject, ValidateFunction } from 'ajv';
+import { findNodeAtLocation, parse as parseLenient, parseTree, printParseErrorCode, type JSONPath, type ParseError } from 'jsonc-parser';
+import schema from './diagram.schema.json';
+import { DIAGRAM_FORMAT, DIAGRAM_VERSION, isUnsafeKey, type Arrow, type Diagram, type Extra, type Variable } from './diagram';
+import { describeFound, describePosition, InputError, lineColumn, quote } from './errors';
+
+/** The shape diagram.schema.json accepts; keys beyond these are allowed and kept. */
+interface FileVariable {
+	id: string;
+	label?: string;
+	measured?: boolean;
+	x?: number;
+	y?: number;
+	note?: string;
+	[key: string]: unknown;
+}
+interface FileArrow {
+	from: string;
+	to: string;
+	[key: string]: unknown;
+}
+interface DiagramFile {
+	format: typeof DIAGRAM_FORMAT;
+	version: typeof DIAGRAM_VERSION;
+	title?: string;
+	variables: FileVariable[];
+	arrows: FileArrow[];
+	exposures?: string[];
+	outcomes?: string[];
+	adjusted?: string[];
+	[key: string]: unknown;
+}
+
+/** Keys with a meaning in version 1, in the order they are written. */
+const TOP_KEYS = ['format', 'version', 'title', 'variables', 'arrows', 'exposures', 'outcomes', 'adjusted'] as const;
+const VARIABLE_KEYS = ['id', 'label', 'measured', 'x', 'y', 'note'] as const;
+const ARROW_KEYS = ['from', 'to'] as const;
+const TOP_KEY_SET: ReadonlySet<string> = new Set(TOP_KEYS);
+const VARIABLE_KEY_SET: ReadonlySet<string> = new Set(VARIABLE_KEYS);
+const ARROW_KEY_SET: ReadonlySet<string> = new Set(ARROW_KEYS);
+
+/** The JSON Schema of the native format (also served as /causeway.diagram.schema.json). */
+export const diagramSchema: unknown = schema;
+
+let compiled: ValidateFunction<DiagramFile> | undefined;
+/** ajv compiles the schema to a function once, on first use (a few milliseconds). */
+function schemaValidator(): ValidateFunction<DiagramFile> {
+	compiled ??= new Ajv2020({ allErrors: false, strict: true }).compile<DiagramFile>(schema);
+	return compiled;
+}
+
+/**
+ * Reads a native diagram file. Throws InputError naming the line and column of a syntax error
+ * or the path of a structure error; never returns a half-read diagram.
+ */
+export function parseDiagramJson(text: string): Diagram {
+	const body = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
+	const data = parseJsonSyntax(body);
+	checkFormatAndVersion(data, body);
+	const validate = schemaValidator();
+	if (!validate(data)) {
+		const first = validate.errors?.[0];
+		throw first ? structureError(first, data, body) : new InputError('The diagram file does not match the Causeway diagram format');
+	}
+	return toDiagram(data);
+}
+
+/**
+ * Writes a diagram as pretty-printed JSON with a stable key order: `format` and `version`
+ * first, then the version-1 keys in schema order, then unknown keys (from `extra`) sorted.
+ * Known keys win over an `extra` entry of the same name. Throws InputError for a coordinate
+ * that JSON cannot hold (NaN, ±Infinity), rather than write a file that cannot be read back.
+ */
+export function writeDiagramJson(d: Diagram): string {
+	const out: Record<string, unknown> = {
+		format: DIAGRAM_FORMAT,
+		version: DIAGRAM_VERSION,
+		title: d.title,
+		variables: d.variables.map(writeVariable),
+		arrows: d.arrows.map(writeArrow),
+		exposures: [...d.exposures],
+		outcomes: [...d.outcomes],
+		adjusted: [...d.adjusted]
+	};
+	appendExtra(out, d.extra, TOP_KEY_SET);
+	return `${JSON.stringify(out, null, 2)}\n`;
+}
+
+function writeVariable(v: Variable, index: number): Record<string, unknown> {
+	const out: Record<string, unknown> = { id: v.id, label: v.label, measured: v.measured };
+	for (const axis of ['x', 'y'] as const) {
+		const value = v[axis];
+		if (value === undefined) continue;
+		if (!Number.isFinite(value)) {
+			throw new InputError(`Variable ${quote(v.id)} has ${axis} = ${String(value)}; a position must be a finite number`, `variables[${index}].${axis}`);
+		}
+		out[axis] = value;
+	}
+	if (v.note !== undefined) out.note = v.note;
+	appendExtra(out, v.extra, VARIABLE_KEY_SET);
+	return out;
+}
+
+function writeArrow(a: Arrow): Record<string, unknown> {
+	const out: Record<string, unknown> = { from: a.from, to: a.to };
+	appendExtra(out, a.extra, ARROW_KEY_SET);
+	return out;
+}
+
+function appendExtra(out: Record<string, unknown>, extra: Extra | undefined, known: ReadonlySet<string>): void {
+	if (!extra) return;
+	for (const key of Object.keys(extra).sort()) {
+		if (known.has(key) || isUnsafeKey(key) || extra[key] === undefined) continue;
+		out[key] = extra[key];
+	}
+}
+
+// ---------------------------------------------------------------------------------------------
+// Step 1: syntax
+
+/** JSON.parse, dropping `__proto__`/`constructor`/`prototype` keys at every depth. */
+function parseJsonSyntax(body: string): unknown {
+	if (body.trim() === '') throw new InputError('The file is empty: expected a Causeway diagram (JSON)', '1:1');
+	try {
+		return JSON.parse(body, (key: string, value: unknown) => (isUnsafeKey(key) ? undefined : value));
+	} catch (e) {
+		if (e instanceof RangeError) throw new InputError('The JSON is nested too deeply to read');
+		throw syntaxError(body);
+	}
+}
+
+const SYNTAX_PROBLEMS: Record<string, string> = {
+	InvalidSymbol: 'unexpected character',
+	InvalidNumberFormat: 'malformed number',
+	PropertyNameExpected: 'expected a key in double quotes',
+	ValueExpected: 'expected a value',
+	ColonExpected: 'expected a colon (:)',
+	CommaExpected: 'expected a comma (,)',
+	CloseBraceExpected: 'expected a closing brace (})',
+	CloseBracketExpected: 'expected a closing bracket (])',
+	EndOfFileExpected: 'unexpected text after the end of the JSON value',
+	InvalidCommentToken: 'comments are not allowed in JSON',
+	UnexpectedEndOfComment: 'comments are not allowed in JSON',
+	UnexpectedEndOfString: 'a string is not closed',
+	UnexpectedEndOfNumber: 'malformed number',
+	InvalidUnicode: 'malformed \\u escape',
+	InvalidEscapeCharacter: 'invalid escape sequence in a string',
+	InvalidCharacter: 'a control character (such as a line break) inside a string; write it as \\n'
+};
+
+function syntaxError(body: string): InputError {
+	const errors: ParseError[] = [];
+	parseLenient(body, errors, { disallowComments: true, allowTrailingComma: false, allowEmptyContent: false });
+	const first = errors[0];
+	if (!first) return new InputError('The file is not valid JSON');
+	const pos = lineColumn(body, first.offset);
+	const problem = SYNTAX_PROBLEMS[printParseErrorCode(first.error)] ?? 'syntax error';
+	const found = first.offset >= body.length ? 'the end of the file' : quote(body.slice(first.offset, first.offset + Math.min(Math.max(first.length, 1), 20)));
+	return new InputError(`Invalid JSON at ${describePosition(pos)}: ${problem} (found ${found})`, `${pos.line}:${pos.column}`);
+}
+
+// ---------------------------------------------------------------------------------------------
+// Step 2: structure
+
+function isRecord(value: unknown): value is Record<string, unknown> {
+	return typeof value === 'object' && value !== null && !Array.isArray(value);
+}
+
+function checkFormatAndVersion(data: unknown, body: string): void {
+	if (!isRecord(data)) {
+		throw new InputError(`A Causeway diagram file must hold a JSON object, but this one holds ${describeFound(data)}`);
+	}
+	const at = (key: string) => atLine(body, [key]);
+	if (!('format' in data)) {
+		throw new InputError(`Not a Causeway diagram: the "format" key is missing (expected "format": "${DIAGRAM_FORMAT}")`, 'format');
+	}
+	if (data.format !== DIAGRAM_FORMAT) {
+		throw new InputError(`Not a Causeway diagram: "format" is ${describeFound(data.format)}, expected "${DIAGRAM_FORMAT}"${at('format')}`, 'format');
+	}
+	if (!('version' in data)) {
+		throw new InputError(`The "version" key is missing (this version of Causeway reads version ${DIAGRAM_VERSION})`, 'version');
+	}
+	if (data.version !== DIAGRAM_VERSION) {
+		const found = typeof data.version === 'number' ? `version ${data.version}` : describeFound(data.version);
+		throw new InputError(`Unsupported diagram version: found ${found}, but this version of Causeway reads version ${DIAGRAM_VERSION}${at('version')}`, 'version');
+	}
+}
+
+/** `/variables/3/id` → `variables[3].id` (JSON Pointer segments unescaped, RFC 6901). */
+function pointerToPath(pointer: string): { path: string; segments: JSONPath } {
+	const segments: JSONPath = [];
+	let path = '';
+	if (pointer === '') return { path, segments };
+	for (const raw of pointer.slice(1).split('/')) {
+		const key = raw.replace(/~1/g, '/').replace(/~0/g, '~');
+		if (/^(0|[1-9][0-9]*)$/.test(key)) {
+			segments.push(Number(key));
+			path += `[${key}]`;
+		} else {
+			segments.push(key);
+			path += /^[A-Za-z_$][\w$]*$/.test(key) ? `${path ? '.' : ''}${key}` : `[${quote(key)}]`;
+		}
+	}
+	return { path, segments };
+}
+
+function valueAt(data: unknown, segments: JSONPath): unknown {
+	let here: unknown = data;
+	for (const s of segments) {
+		if (Array.isArray(here) && typeof s === 'number') here = here[s];
+		else if (isRecord(here) && typeof s === 'string') here = here[s];
+		else return undefined;
+	}
+	return here;
+}
+
+/** ` (line 12, column 7)` for the value at `segments`, or '' when it cannot be found. */
+function atLine(body: string, segments: JSONPath): string {
+	const tree = parseTree(body);
+	const node = tree && findNodeAtLocation(tree, segments);
+	return node ? ` (${describePosition(lineColumn(body, node.offset))})` : '';
+}
+
+const TYPE_WORDS: Record<string, string> = {
+	string: 'text (a string)',
+	number: 'a number',
+	boolean: 'true or false',
+	array: 'a list',
+	object: 'an object'
+};
+
+function structureError(error: ErrorObject, data: unknown, body: string): InputError {
+	const { path, segments } = pointerToPath(error.instancePath);
+	const value = valueAt(data, segments);
+	const subject = path === '' ? 'The diagram' : path;
+	const line = atLine(body, segments);
+	const params: Record<string, unknown> = error.params;
+	let problem: string;
+	switch (error.keyword) {
+		case 'required':
+			problem = `is missing the key ${quote(String(params.missingProperty))}`;
+			break;
+		case 'type':
+			problem =
+				typeof value === 'number' && !Number.isFinite(value)
+					? `must be a finite number, found ${describeFound(value)}`
+					: `must be ${TYPE_WORDS[String(params.type)] ?? String(params.type)}, found ${describeFound(value)}`;
+			break;
+		case 'minLength':
+			problem = 'must not be empty';
+			break;
+		case 'const':
+			problem = `must be ${JSON.stringify(params.allowedValue)}, found ${describeFound(value)}`;
+			break;
+		default:
+			problem = error.message ?? 'is not valid';
+	}
+	return new InputError(`${subject} ${problem}${line}`, path || undefined);
+}
+
+// ---------------------------------------------------------------------------------------------
+// Step 3: model
+
+/** Copies the keys that `known` does not list into a fresh object; undefined when none. */
+function extraOf(source: Record<string, unknown>, known: ReadonlySet<string>): Extra | undefined {
+	let extra: Extra | undefined;
+	for (const key of Object.keys(source)) {
+		if (known.has(key) || isUnsafeKey(key)) continue;
+		extra ??= {};
+		extra[key] = source[key];
+	}
+	return extra;
+}
+
+function toDiagram(file: DiagramFile): Diagram {
+	const variables = file.variables.map((fv): Variable => {
+		const v: Variable = { id: fv.id, label: fv.label ?? fv.id, measured: fv.measured ?? true };
+		if (fv.x !== undefined) v.x = fv.x;
+		if (fv.y !== undefined) v.y = fv.y;
+		if (fv.note !== undefined) v.note = fv.note;
+		const extra = extraOf(fv, VARIABLE_KEY_SET);
+		if (extra) v.extra = extra;
+		return v;
+	});
+	const arrows = file.arrows.map((fa): Arrow => {
+		const a: Arrow = { from: fa.from, to: fa.to };
+		const extra = extraOf(fa, ARROW_KEY_SET);
+		if (extra) a.extra = extra;
+		return a;
+	});
+	const d: Diagram = {
+		title: file.title ?? '',
+		variables,
+		arrows,
+		exposures: [...(file.exposures ?? [])],
+		outcomes: [...(file.outcomes ?? [])],
+		adjusted: [...(file.adjusted ?? [])]
+	};
+	const extra = extraOf(file, TOP_KEY_SET);
+	if (extra) d.extra = extra;
+	return d;
+}
