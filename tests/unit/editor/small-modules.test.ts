@@ -1,0 +1,99 @@
+import { describe, expect, it } from 'vitest';
+import { readFileSync } from 'node:fs';
+import { idFollowsLabel, slugify, uniqueId } from '../../../src/lib/editor/ids';
+import { firstInReadingOrder, nearestInDirection } from '../../../src/lib/editor/navigation';
+import { freeSpot, isFree } from '../../../src/lib/editor/placement';
+import { AUTOSAVE_KEY, createAutosaver, firstVisit, restoreDiagram, saveDiagram, type StorageLike } from '../../../src/lib/editor/autosave';
+import { parseDiagramJson } from '../../../src/lib/graph/native-json';
+import { pruneSelection } from '../../../src/lib/editor/selection';
+
+const demo = parseDiagramJson(readFileSync('static/demo/cycling-hypertension.causeway.json', 'utf8'));
+
+class MemoryStorage implements StorageLike {
+	map = new Map<string, string>();
+	getItem(k: string) {
+		return this.map.get(k) ?? null;
+	}
+	setItem(k: string, v: string) {
+		this.map.set(k, v);
+	}
+	removeItem(k: string) {
+		this.map.delete(k);
+	}
+}
+
+describe('ids', () => {
+	it('derives readable ids from labels in any script', () => {
+		expect(slugify('Household income')).toBe('household_income');
+		expect(slugify('Body-mass index (BMI)')).toBe('body_mass_index_bmi');
+		expect(slugify('Âge')).toBe('âge');
+		expect(slugify('??')).toBe('variable');
+		expect(uniqueId('age', new Set(['age', 'age_2']))).toBe('age_3');
+		expect(idFollowsLabel('age_3', 'Age')).toBe(true);
+		expect(idFollowsLabel('bp', 'Blood pressure')).toBe(false);
+	});
+});
+
+describe('navigation', () => {
+	const items = [
+		{ id: 'centre', x: 0, y: 0 },
+		{ id: 'right-near-off', x: 100, y: 90 },
+		{ id: 'right-far-ahead', x: 160, y: 0 },
+		{ id: 'up', x: 10, y: -100 }
+	];
+	it('prefers the variable straight ahead over a nearer one off to the side', () => {
+		expect(nearestInDirection(items, 'centre', 'right')).toBe('right-far-ahead');
+		expect(nearestInDirection(items, 'centre', 'up')).toBe('up');
+		expect(nearestInDirection(items, 'centre', 'left')).toBeNull();
+		expect(firstInReadingOrder(items)).toBe('up');
+	});
+});
+
+describe('placement', () => {
+	it('never places a new variable on top of the demo diagram’s variables', () => {
+		for (const v of demo.variables) {
+			const p = freeSpot({ x: v.x ?? 0, y: v.y ?? 0 }, demo.variables);
+			expect(isFree(p, demo.variables)).toBe(true);
+		}
+	});
+});
+
+describe('autosave', () => {
+	it('round-trips the diagram through storage in the native format', () => {
+		const s = new MemoryStorage();
+		expect(restoreDiagram(s)).toEqual({ kind: 'none' });
+		expect(saveDiagram(s, demo)).toEqual({ ok: true });
+		expect(JSON.parse(s.getItem(AUTOSAVE_KEY)!).format).toBe('causeway.diagram');
+		const r = restoreDiagram(s);
+		expect(r.kind === 'saved' && r.diagram).toEqual(demo);
+	});
+
+	it('ignores an unreadable stored text without throwing', () => {
+		const s = new MemoryStorage();
+		s.setItem(AUTOSAVE_KEY, '{"format": "causeway.diagram", "version": 1, "variables": [');
+		expect(restoreDiagram(s).kind).toBe('unreadable');
+	});
+
+	it('saves only the latest diagram after a burst of edits, and on flush', () => {
+		const s = new MemoryStorage();
+		const saver = createAutosaver(s, 10_000);
+		saver.schedule({ ...demo, title: 'one' });
+		saver.schedule({ ...demo, title: 'two' });
+		expect(s.getItem(AUTOSAVE_KEY)).toBeNull();
+		saver.flush();
+		expect(JSON.parse(s.getItem(AUTOSAVE_KEY)!).title).toBe('two');
+	});
+
+	it('knows the first visit', () => {
+		const s = new MemoryStorage();
+		expect(firstVisit(s)).toBe(true);
+		expect(firstVisit(s)).toBe(false);
+	});
+});
+
+describe('selection', () => {
+	it('drops what no longer exists', () => {
+		const s = pruneSelection({ variables: ['age', 'gone'], arrows: [{ from: 'age', to: 'cycling' }, { from: 'x', to: 'y' }] }, demo);
+		expect(s).toEqual({ variables: ['age'], arrows: [{ from: 'age', to: 'cycling' }] });
+	});
+});
