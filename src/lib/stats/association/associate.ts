@@ -1,0 +1,96 @@
+/**
+ * Checking one arrow against data: the association between two columns, with the test
+ * chosen by the columns' kinds. Complete cases only.
+ *
+ * | kinds                         | main test                                  | also reported            |
+ * |-------------------------------|--------------------------------------------|--------------------------|
+ * | binary × binary               | chi-square; Fisher's exact when any        | G-test; odds ratio (Woolf)|
+ * |                               | expected count < 5                         |                          |
+ * | discrete × discrete (larger)  | chi-square (note when sparse)              | G-test                   |
+ * | continuous × continuous       | Pearson r                                  | Spearman rho             |
+ * | binary × continuous           | point-biserial r                           | Kruskal–Wallis           |
+ * | categorical × continuous      | one-way ANOVA F                            | Kruskal–Wallis           |
+ * | ordinal × ordinal/continuous/ | Spearman rho                               | —                        |
+ * |   binary                      |                                            |                          |
+ * | ordinal × categorical         | Kruskal–Wallis                             | chi-square               |
+ *
+ * Cost: O(n) for tables and Pearson, O(n log n) for rank tests.
+ */
+import { columnLength, completeRows } from '../table/columns';
+import type { CodedColumn, Column } from '../table/types';
+import type { TestResult } from '../types';
+import { chiSquareTest, dropEmptyMargins, gTest, smallExpectedShare } from './chi-square';
+import { crossTabulate } from './contingency';
+import { pairedValues, pearsonTest, pointBiserialTest, spearmanTest } from './correlation';
+import { fisherExactTest } from './fisher';
+import { groupedValues, kruskalWallis, oneWayAnova } from './group-tests';
+import { oddsRatioWoolf } from './odds-ratio';
+
+export interface AssociationResult {
+	/** Names of the two columns, in the order given. */
+	columns: [string, string];
+	/** The test to read first. */
+	main: TestResult;
+	/** Other tests of the same pair, for reference. */
+	others: TestResult[];
+}
+
+export function associate(a: Column, b: Column): AssociationResult {
+	const columns: [string, string] = [a.name, b.name];
+	const [main, ...others] = chooseTests(a, b);
+	const total = columnLength(a);
+	const used = completeRows([a, b]).length;
+	if (used < total) main.notes.push(`${total - used} of ${total} rows left out for a missing value (complete cases).`);
+	return { columns, main, others };
+}
+
+function chooseTests(a: Column, b: Column): TestResult[] {
+	if (a.kind !== 'continuous' && b.kind !== 'continuous') {
+		if (a.kind === 'ordinal' && b.kind === 'ordinal') return [spearmanTest(...xy(a, b))];
+		if (a.kind === 'ordinal' && b.kind === 'categorical') return [groupTest(b, a, 'kruskal'), chiSquareTest(crossTabulate(a, b))];
+		if (b.kind === 'ordinal' && a.kind === 'categorical') return [groupTest(a, b, 'kruskal'), chiSquareTest(crossTabulate(a, b))];
+		if (a.kind === 'ordinal' || b.kind === 'ordinal') return [spearmanTest(...xy(a, b))];
+		return discreteTests(a, b);
+	}
+	if (a.kind === 'continuous' && b.kind === 'continuous') {
+		const [x, y] = xy(a, b);
+		return [pearsonTest(x, y), spearmanTest(x, y)];
+	}
+	const [group, numeric] = a.kind === 'continuous' ? [b as CodedColumn, a] : [a as CodedColumn, b];
+	if (group.kind === 'ordinal') return [spearmanTest(...xy(a, b))];
+	if (group.kind === 'binary') {
+		const { x, y } = pairedValues(group, numeric);
+		return [pointBiserialTest(x, y), groupTest(group, numeric, 'kruskal')];
+	}
+	return [groupTest(group, numeric, 'anova'), groupTest(group, numeric, 'kruskal')];
+}
+
+function xy(a: Column, b: Column): [Float64Array, Float64Array] {
+	const { x, y } = pairedValues(a, b);
+	return [x, y];
+}
+
+function groupTest(group: CodedColumn, response: Column, which: 'anova' | 'kruskal'): TestResult {
+	const { values, groups, levels } = groupedValues(group, response);
+	return which === 'anova' ? oneWayAnova(values, groups, levels.length) : kruskalWallis(values, groups, levels.length);
+}
+
+function discreteTests(a: CodedColumn, b: CodedColumn): TestResult[] {
+	const table = dropEmptyMargins(crossTabulate(a, b));
+	const chi = chiSquareTest(table);
+	const g = gTest(table);
+	if (table.rows === 2 && table.cols === 2) {
+		const or = oddsRatioWoolf(table);
+		const { minimum } = smallExpectedShare(table);
+		if (minimum < 5) {
+			const fisher = fisherExactTest(table);
+			fisher.notes.unshift(`Fisher's exact test chosen: the smallest expected count is ${minimum.toFixed(2)} (< 5).`);
+			return [fisher, chi, g];
+		}
+		chi.effects.unshift(or);
+		return [chi, g];
+	}
+	if (smallExpectedShare(table).minimum < 5)
+		chi.notes.push("Some expected counts are below 5; Fisher's exact test is computed for 2 × 2 tables only, so the chi-square test is shown.");
+	return [chi, g];
+}

@@ -1,0 +1,207 @@
+/**
+ * Accumulates one column's cells, row by row, into a typed array and decides its kind at
+ * the end. Amortised O(1) per cell (typed arrays grow by doubling); memory is one
+ * Float64Array (numbers) or one Int32Array plus the level labels (categories) — never the
+ * cell strings.
+ *
+ * Typing rules (without a declared kind):
+ * - all non-missing cells are numbers → continuous, or binary when there are exactly two
+ *   distinct numbers;
+ * - otherwise, text → binary (two levels) or categorical (up to `levelCap` levels); past
+ *   the cap the column is skipped with a message;
+ * - a column that is mostly numbers (at least as many number cells as text cells) but has
+ *   some text is an error that names the first text cell's row and the column.
+ * A declared kind overrides the rules (and is checked: a declared continuous column may
+ * not hold text, a declared binary one must have two levels).
+ */
+import { StatsError } from '../errors';
+import { sortLevels } from './columns';
+import { parseNumber, trimCell, type MissingTest } from './cells';
+import type { Column, ColumnKind } from './types';
+
+export interface ColumnSpec {
+	name: string;
+	/** 1-based position in the file. */
+	position: number;
+	declared: ColumnKind | undefined;
+	/** Level order for a declared ordinal column (first = lowest). */
+	levelOrder: readonly string[] | undefined;
+	levelCap: number;
+	decimalComma: boolean;
+	isMissing: MissingTest;
+}
+
+export type BuiltColumn = { column: Column; notes: string[] } | { skipped: string };
+
+type Mode = 'numeric' | 'coded' | 'overflow';
+
+export class ColumnBuilder {
+	private mode: Mode;
+	private numbers: Float64Array;
+	private codes: Int32Array = new Int32Array(0);
+	private levelIndex = new Map<string, number>();
+	private levels: string[] = [];
+	private length = 0;
+	private missing = 0;
+	private numberCells = 0;
+	private textCells = 0;
+	private firstText: { row: number; value: string } | null = null;
+	// The first two distinct numbers, to recognise a binary numeric column without a set.
+	private distinct: number[] = [];
+	private moreThanTwo = false;
+
+	constructor(
+		private readonly spec: ColumnSpec,
+		initialCapacity: number
+	) {
+		const coded = spec.declared === 'binary' || spec.declared === 'categorical' || spec.declared === 'ordinal';
+		this.mode = coded ? 'coded' : 'numeric';
+		this.numbers = coded ? new Float64Array(0) : new Float64Array(initialCapacity);
+		if (coded) this.codes = new Int32Array(initialCapacity);
+	}
+
+	/** Add the cell of file row `row` (1-based, header = row 1). */
+	push(raw: string, row: number): void {
+		const s = trimCell(raw);
+		if (this.spec.isMissing(s)) {
+			this.missing++;
+			this.append(NaN, -1);
+			return;
+		}
+		const x = parseNumber(s, this.spec.decimalComma);
+		const isNumber = !Number.isNaN(x);
+		if (isNumber) this.numberCells++;
+		else {
+			this.textCells++;
+			if (this.firstText === null) this.firstText = { row, value: s };
+		}
+		if (this.mode === 'numeric') {
+			if (isNumber) {
+				this.noteDistinct(x);
+				this.append(x, 0);
+				return;
+			}
+			if (this.spec.declared === 'continuous')
+				throw new StatsError(`Row ${row}, column '${this.spec.name}': '${s}' is not a number (the column is declared continuous).`, {
+					row,
+					column: this.spec.name
+				});
+			this.switchToCoded();
+		}
+		if (this.mode === 'coded') {
+			this.append(NaN, this.codeOf(isNumber ? String(x) : s));
+			if (this.levels.length > this.spec.levelCap) this.overflow();
+		} else this.length++;
+	}
+
+	finish(): BuiltColumn {
+		const { name } = this.spec;
+		if (this.numberCells + this.textCells === 0) return { skipped: `Column '${name}' has only missing values; it is left out.` };
+		if (this.spec.declared === undefined && this.textCells > 0 && this.numberCells >= this.textCells && this.firstText) {
+			const { row, value } = this.firstText;
+			throw new StatsError(
+				`Row ${row}, column '${name}': '${value}' is not a number in a numeric column; mark it as missing or declare the column categorical.`,
+				{ row, column: name }
+			);
+		}
+		if (this.mode === 'overflow')
+			return {
+				skipped: `Column '${name}' has more than ${this.spec.levelCap} distinct text values, too many for a categorical column; it is left out (raise the level limit or declare its type to use it).`
+			};
+		if (this.mode === 'numeric') return this.finishNumeric();
+		return this.finishCoded();
+	}
+
+	private finishNumeric(): BuiltColumn {
+		const { name } = this.spec;
+		const values = this.numbers.slice(0, this.length);
+		if (this.spec.declared !== 'continuous' && this.distinct.length === 2 && !this.moreThanTwo) {
+			const [lo, hi] = this.distinct[0] < this.distinct[1] ? this.distinct : [this.distinct[1], this.distinct[0]];
+			const codes = new Int32Array(this.length);
+			for (let i = 0; i < codes.length; i++) codes[i] = Number.isNaN(values[i]) ? -1 : values[i] === lo ? 0 : 1;
+			return {
+				column: { name, kind: 'binary', codes, levels: [String(lo), String(hi)], missing: this.missing },
+				notes: [`'${name}': binary (values ${lo} and ${hi}; reference ${lo}).`]
+			};
+		}
+		const notes = this.distinct.length === 1 ? [`'${name}' has a single value (${this.distinct[0]}).`] : [];
+		return { column: { name, kind: 'continuous', values, missing: this.missing }, notes };
+	}
+
+	private finishCoded(): BuiltColumn {
+		const { name, declared, levelOrder } = this.spec;
+		let order: string[];
+		if (declared === 'ordinal' && levelOrder) {
+			const unknown = this.levels.filter((l) => !levelOrder.includes(l));
+			if (unknown.length > 0)
+				throw new StatsError(`Column '${name}': value '${unknown[0]}' is not in the declared level order.`, { column: name });
+			order = levelOrder.filter((l) => this.levelIndex.has(l));
+		} else order = sortLevels([...this.levels]);
+		const kind = declared === 'ordinal' || declared === 'categorical' || declared === 'binary' ? declared : order.length === 2 ? 'binary' : 'categorical';
+		if (kind === 'binary' && order.length !== 2)
+			throw new StatsError(`Column '${name}' is declared binary but has ${order.length} distinct values.`, { column: name });
+		const remap = new Int32Array(this.levels.length);
+		order.forEach((label, code) => (remap[this.levelIndex.get(label) as number] = code));
+		const codes = this.codes.slice(0, this.length);
+		for (let i = 0; i < codes.length; i++) if (codes[i] >= 0) codes[i] = remap[codes[i]];
+		const notes: string[] = [];
+		if (kind !== 'binary') notes.push(`'${name}': ${kind}, ${order.length} levels; reference level '${order[0]}'.`);
+		else notes.push(`'${name}': binary ('${order[0]}' / '${order[1]}'; reference '${order[0]}').`);
+		if (declared === 'ordinal' && !levelOrder) notes.push(`'${name}': no level order given; levels ordered ${order.every((l) => Number.isFinite(Number(l))) ? 'numerically' : 'alphabetically'}.`);
+		return { column: { name, kind, codes, levels: order, missing: this.missing }, notes };
+	}
+
+	private noteDistinct(x: number): void {
+		if (this.moreThanTwo) return;
+		if (this.distinct.includes(x)) return;
+		if (this.distinct.length < 2) this.distinct.push(x);
+		else this.moreThanTwo = true;
+	}
+
+	private codeOf(label: string): number {
+		let code = this.levelIndex.get(label);
+		if (code === undefined) {
+			code = this.levels.length;
+			this.levels.push(label);
+			this.levelIndex.set(label, code);
+		}
+		return code;
+	}
+
+	/** First text cell in a so-far numeric column: re-code the numbers seen as labels. */
+	private switchToCoded(): void {
+		this.mode = 'coded';
+		this.codes = new Int32Array(this.numbers.length);
+		for (let i = 0; i < this.length; i++) {
+			const x = this.numbers[i];
+			this.codes[i] = Number.isNaN(x) ? -1 : this.codeOf(String(x));
+		}
+		this.numbers = new Float64Array(0);
+		if (this.levels.length > this.spec.levelCap) this.overflow();
+	}
+
+	/** Past the level cap: keep counting (for the messages), hold no data. */
+	private overflow(): void {
+		this.mode = 'overflow';
+		this.codes = new Int32Array(0);
+		this.levelIndex.clear();
+		this.levels = [];
+	}
+
+	private append(x: number, code: number): void {
+		if (this.mode === 'numeric') {
+			if (this.length === this.numbers.length) this.numbers = grow(this.numbers) as Float64Array;
+			this.numbers[this.length] = x;
+		} else if (this.mode === 'coded') {
+			if (this.length === this.codes.length) this.codes = grow(this.codes) as Int32Array;
+			this.codes[this.length] = code;
+		}
+		this.length++;
+	}
+}
+
+function grow(a: Float64Array | Int32Array): Float64Array | Int32Array {
+	const bigger = a instanceof Float64Array ? new Float64Array(Math.max(16, a.length * 2)) : new Int32Array(Math.max(16, a.length * 2));
+	bigger.set(a);
+	return bigger;
+}
