@@ -17,13 +17,12 @@ export type RoleList = 'exposures' | 'outcomes' | 'adjusted';
 
 export type Command =
 	| { kind: 'add-variable'; variable: Variable }
-	| { kind: 'remove-variables'; ids: readonly string[] }
+	| { kind: 'remove-elements'; ids: readonly string[]; arrows: readonly { from: string; to: string }[] }
 	| { kind: 'rename-variable'; id: string; label: string }
 	| { kind: 'move-variables'; moves: readonly { id: string; x: number; y: number }[] }
 	| { kind: 'set-measured'; id: string; measured: boolean }
 	| { kind: 'set-note'; id: string; note: string }
 	| { kind: 'add-arrow'; from: string; to: string }
-	| { kind: 'remove-arrows'; arrows: readonly { from: string; to: string }[] }
 	| { kind: 'reverse-arrow'; from: string; to: string }
 	| { kind: 'set-role'; list: RoleList; id: string; member: boolean }
 	| { kind: 'set-adjusted'; ids: readonly string[] }
@@ -99,22 +98,35 @@ function applyAddVariable(d: Diagram, variable: Variable): CommandResult {
 	return { ok: true, diagram: { ...d, variables: [...d.variables, variable] }, summary: `Add variable ${variable.label}` };
 }
 
-function applyRemoveVariables(d: Diagram, ids: readonly string[]): CommandResult {
+/**
+ * Deletes variables (with every arrow touching them and their place in the question) and
+ * arrows, as one step. Ids and arrows that do not exist are ignored; nothing to delete is a refusal.
+ */
+function applyRemove(d: Diagram, ids: readonly string[], arrows: readonly { from: string; to: string }[]): CommandResult {
 	const gone = new Set(ids.filter((id) => hasVariable(d, id)));
-	if (gone.size === 0) return refuse('Nothing to delete: no such variable.');
+	const key = (a: { from: string; to: string }) => JSON.stringify([a.from, a.to]);
+	const goneArrows = new Set(arrows.filter((a) => hasArrow(d, a.from, a.to) && !gone.has(a.from) && !gone.has(a.to)).map(key));
+	if (gone.size === 0 && goneArrows.size === 0) return refuse('Nothing to delete.');
 	const keep = (id: string) => !gone.has(id);
 	const names = [...gone].map((id) => labelOf(d, id));
+	const parts: string[] = [];
+	if (gone.size === 1) parts.push(`variable ${names[0]}`);
+	else if (gone.size > 1) parts.push(`${gone.size} variables`);
+	if (goneArrows.size === 1) {
+		const [from, to] = JSON.parse([...goneArrows][0]) as [string, string];
+		parts.push(`arrow ${labelOf(d, from)} → ${labelOf(d, to)}`);
+	} else if (goneArrows.size > 1) parts.push(`${goneArrows.size} arrows`);
 	return {
 		ok: true,
 		diagram: {
 			...d,
-			variables: d.variables.filter((v) => keep(v.id)),
-			arrows: d.arrows.filter((a) => keep(a.from) && keep(a.to)),
+			variables: gone.size ? d.variables.filter((v) => keep(v.id)) : d.variables,
+			arrows: d.arrows.filter((a) => keep(a.from) && keep(a.to) && !goneArrows.has(key(a))),
 			exposures: d.exposures.filter(keep),
 			outcomes: d.outcomes.filter(keep),
 			adjusted: d.adjusted.filter(keep)
 		},
-		summary: names.length === 1 ? `Delete variable ${names[0]}` : `Delete ${names.length} variables`
+		summary: `Delete ${parts.join(' and ')}`
 	};
 }
 
@@ -160,19 +172,6 @@ function applyAddArrow(d: Diagram, from: string, to: string): CommandResult {
 	const cycle = cycleClosedBy(d, from, to);
 	if (cycle) return refuse(`Arrow ${name} refused: it would close the cycle ${describeCycle(d, cycle)}.`, cycle);
 	return { ok: true, diagram: { ...d, arrows: [...d.arrows, { from, to }] }, summary: `Draw arrow ${name}` };
-}
-
-function applyRemoveArrows(d: Diagram, arrows: readonly { from: string; to: string }[]): CommandResult {
-	const key = (a: { from: string; to: string }) => JSON.stringify([a.from, a.to]);
-	const gone = new Set(arrows.filter((a) => hasArrow(d, a.from, a.to)).map(key));
-	if (gone.size === 0) return refuse('Nothing to delete: no such arrow.');
-	const first = arrows.find((a) => gone.has(key(a)));
-	return {
-		ok: true,
-		diagram: { ...d, arrows: d.arrows.filter((a) => !gone.has(key(a))) },
-		summary:
-			gone.size === 1 && first ? `Delete arrow ${labelOf(d, first.from)} → ${labelOf(d, first.to)}` : `Delete ${gone.size} arrows`
-	};
 }
 
 function applyReverse(d: Diagram, from: string, to: string): CommandResult {
@@ -239,8 +238,8 @@ export function applyCommand(d: Diagram, cmd: Command): CommandResult {
 	switch (cmd.kind) {
 		case 'add-variable':
 			return applyAddVariable(d, cmd.variable);
-		case 'remove-variables':
-			return applyRemoveVariables(d, cmd.ids);
+		case 'remove-elements':
+			return applyRemove(d, cmd.ids, cmd.arrows);
 		case 'rename-variable':
 			return applyRename(d, cmd.id, cmd.label);
 		case 'move-variables':
@@ -263,8 +262,6 @@ export function applyCommand(d: Diagram, cmd: Command): CommandResult {
 		}
 		case 'add-arrow':
 			return applyAddArrow(d, cmd.from, cmd.to);
-		case 'remove-arrows':
-			return applyRemoveArrows(d, cmd.arrows);
 		case 'reverse-arrow':
 			return applyReverse(d, cmd.from, cmd.to);
 		case 'set-role':

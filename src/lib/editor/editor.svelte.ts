@@ -5,7 +5,7 @@
  */
 import type { Diagram } from '../graph/diagram';
 import { applyCommand, type Command, type CommandResult } from './commands';
-import { canRedo, canUndo, createHistory, record, redo, redoLabel, undo, undoLabel, type History } from './history';
+import { amend, canRedo, canUndo, createHistory, record, redo, redoLabel, undo, undoLabel, type History } from './history';
 import { EMPTY_SELECTION, pruneSelection, type Selection } from './selection';
 
 export type MessageTone = 'info' | 'refused' | 'error';
@@ -24,6 +24,8 @@ export class Editor {
 	selection = $state.raw<Selection>(EMPTY_SELECTION);
 	message = $state.raw<EditorMessage | null>(null);
 	#serial = 0;
+	#mergeKey: string | undefined;
+	#mergeAt = 0;
 
 	readonly diagram: Diagram = $derived(this.history.present);
 	readonly canUndo: boolean = $derived(canUndo(this.history));
@@ -35,11 +37,18 @@ export class Editor {
 		if (initial) this.history = createHistory(initial);
 	}
 
-	/** Applies a command as one undoable step; on refusal the diagram stays as it was. */
-	dispatch(cmd: Command): CommandResult {
+	/**
+	 * Applies a command as one undoable step; on refusal the diagram stays as it was.
+	 * Commands given the same `mergeKey` within a second of each other form a single step.
+	 */
+	dispatch(cmd: Command, mergeKey?: string): CommandResult {
 		const result = applyCommand(this.history.present, cmd);
 		if (result.ok) {
-			this.history = record(this.history, result.diagram, result.summary);
+			const now = Date.now();
+			const merge = mergeKey !== undefined && mergeKey === this.#mergeKey && now - this.#mergeAt < 1000 && this.history.past.length > 0;
+			this.history = merge ? amend(this.history, result.diagram, result.summary) : record(this.history, result.diagram, result.summary);
+			this.#mergeKey = mergeKey;
+			this.#mergeAt = now;
 			this.#afterChange();
 			this.say(result.summary, 'info');
 		} else {
@@ -55,6 +64,7 @@ export class Editor {
 	}
 
 	undo(): void {
+		this.#mergeKey = undefined;
 		if (!canUndo(this.history)) {
 			this.say('Nothing to undo.', 'info');
 			return;

@@ -36,6 +36,16 @@ export function record(h: History, next: Diagram, label: string, limit = HISTORY
 	return { past: past.length > limit ? past.slice(past.length - limit) : past, present: next, future: [] };
 }
 
+/**
+ * Replaces the present without a new step, so that a burst of small edits of one kind (a
+ * variable nudged with the keyboard ten times) is undone at once. Clears the redo list.
+ */
+export function amend(h: History, next: Diagram, label: string): History {
+	if (next === h.present) return h;
+	if (h.past.length === 0) return record(h, next, label);
+	return { past: h.past, present: next, future: [] };
+}
+
 export function canUndo(h: History): boolean {
 	return h.past.length > 0;
 }

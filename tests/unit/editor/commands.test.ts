@@ -72,7 +72,7 @@ describe('arrows', () => {
 
 describe('variables', () => {
 	it('deleting a variable removes its arrows and its roles', () => {
-		const r = applyCommand(demo, { kind: 'remove-variables', ids: ['cycling'] });
+		const r = applyCommand(demo, { kind: 'remove-elements', ids: ['cycling'], arrows: [] });
 		expect(r.ok).toBe(true);
 		if (!r.ok) return;
 		expect(r.diagram.arrows.some((a) => a.from === 'cycling' || a.to === 'cycling')).toBe(false);

@@ -8,7 +8,7 @@ import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { readFileSync } from 'node:fs';
 import { applyCommand, type Command, type RoleList } from '../../../src/lib/editor/commands';
-import { canRedo, canUndo, createHistory, record, redo, undo, type History } from '../../../src/lib/editor/history';
+import { amend, canRedo, canUndo, createHistory, record, redo, undo, type History } from '../../../src/lib/editor/history';
 import { emptyDiagram, type Diagram } from '../../../src/lib/graph/diagram';
 import { parseDiagramJson } from '../../../src/lib/graph/native-json';
 import { validateDiagram } from '../../../src/lib/graph/validate';
@@ -24,7 +24,8 @@ type Intent =
 	| { op: 'arrow' | 'unarrow' | 'reverse'; i: number; j: number }
 	| { op: 'role'; i: number; list: RoleList; member: boolean }
 	| { op: 'plan'; picks: number[] }
-	| { op: 'undo' | 'redo' };
+	| { op: 'undo' | 'redo' }
+	| { op: 'nudge'; i: number; dx: number };
 
 const name = fc.constantFrom('Age', 'Income', 'Diet', 'Smoking', 'Stress', 'Sleep', 'BMI', 'Salt', 'Variable', 'Age 2');
 const idx = fc.nat(30);
@@ -35,7 +36,8 @@ const intent: fc.Arbitrary<Intent> = fc.oneof(
 	fc.record({ op: fc.constantFrom('arrow' as const, 'arrow' as const, 'unarrow' as const, 'reverse' as const), i: idx, j: idx }),
 	fc.record({ op: fc.constant('role' as const), i: idx, list: fc.constantFrom<RoleList>('exposures', 'outcomes', 'adjusted'), member: fc.boolean() }),
 	fc.record({ op: fc.constant('plan' as const), picks: fc.array(idx, { maxLength: 4 }) }),
-	fc.record({ op: fc.constantFrom('undo' as const, 'redo' as const) })
+	fc.record({ op: fc.constantFrom('undo' as const, 'redo' as const) }),
+	fc.record({ op: fc.constant('nudge' as const), i: idx, dx: fc.integer({ min: -20, max: 20 }) })
 );
 
 function toCommand(d: Diagram, it: Intent, serial: number): Command | null {
@@ -46,7 +48,7 @@ function toCommand(d: Diagram, it: Intent, serial: number): Command | null {
 		case 'add':
 			return { kind: 'add-variable', variable: { id: `v${serial}`, label: it.name, measured: true, x: it.x, y: it.y } };
 		case 'remove':
-			return n ? { kind: 'remove-variables', ids: [at(it.i)] } : null;
+			return n ? { kind: 'remove-elements', ids: [at(it.i)], arrows: [] } : null;
 		case 'measured':
 			return n ? { kind: 'set-measured', id: at(it.i), measured: !d.variables[it.i % n].measured } : null;
 		case 'rename':
@@ -56,11 +58,15 @@ function toCommand(d: Diagram, it: Intent, serial: number): Command | null {
 		case 'arrow':
 			return n ? { kind: 'add-arrow', from: at(it.i), to: at(it.j) } : null;
 		case 'unarrow':
-			return d.arrows.length ? { kind: 'remove-arrows', arrows: [arrowAt(it.i)] } : null;
+			return d.arrows.length ? { kind: 'remove-elements', ids: [], arrows: [arrowAt(it.i)] } : null;
 		case 'reverse':
 			return d.arrows.length ? { kind: 'reverse-arrow', ...arrowAt(it.i) } : null;
 		case 'role':
 			return n ? { kind: 'set-role', list: it.list, id: at(it.i), member: it.member } : null;
+		case 'nudge': {
+			const v = d.variables[it.i % Math.max(n, 1)];
+			return v ? { kind: 'move-variables', moves: [{ id: v.id, x: (v.x ?? 0) + it.dx, y: v.y ?? 0 }] } : null;
+		}
 		case 'plan':
 			return n ? { kind: 'set-adjusted', ids: it.picks.map(at) } : null;
 		default:
@@ -83,7 +89,8 @@ function run(start: Diagram, intents: Intent[]) {
 			if (!cmd) return;
 			const before = h.present;
 			const r = applyCommand(before, cmd);
-			if (r.ok) h = record(h, r.diagram, r.summary);
+			// Nudges amend the last step (as held arrow keys do in the app); all else records one.
+			if (r.ok) h = it.op === 'nudge' ? amend(h, r.diagram, r.summary) : record(h, r.diagram, r.summary);
 			else expect(h.present).toBe(before); // a refusal changes nothing
 		}
 		checkDiagram(h.present);

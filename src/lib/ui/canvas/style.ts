@@ -1,0 +1,118 @@
+/**
+ * The canvas stylesheet: the visual language of DESIGN.md in Cytoscape terms.
+ * Okabe & Ito (2008) colour-blind-safe palette; every state also has a non-colour cue
+ * (dashed outline, square box, line style, text badge) so colour is never the only signal.
+ */
+import type { StylesheetJson } from 'cytoscape';
+
+export const COLOURS = {
+	exposure: '#E69F00',
+	outcome: '#CC79A7',
+	causal: '#0072B2',
+	biasing: '#D55E00',
+	blocked: '#767676',
+	ink: '#1a1a1a',
+	unmeasuredInk: '#575757',
+	selection: '#56B4E9',
+	paper: '#ffffff'
+} as const;
+
+export const FONT_FAMILY = 'system-ui, "DejaVu Sans", "Liberation Sans", sans-serif';
+export const LABEL_FONT_PX = 14;
+export const BADGE_FONT_PX = 14;
+export const LINE_HEIGHT = 1.25;
+
+export const canvasStyle: StylesheetJson = [
+	{
+		selector: 'node',
+		style: {
+			shape: 'round-rectangle',
+			width: 'data(w)',
+			height: 'data(h)',
+			'background-color': COLOURS.paper,
+			'border-width': 1.5,
+			'border-color': COLOURS.ink,
+			label: 'data(text)',
+			'text-wrap': 'wrap',
+			'text-valign': 'center',
+			'text-halign': 'center',
+			'font-family': FONT_FAMILY,
+			'font-size': LABEL_FONT_PX,
+			'line-height': LINE_HEIGHT,
+			color: COLOURS.ink,
+			'text-events': 'no'
+		}
+	},
+	{ selector: 'node.exposure', style: { 'background-color': COLOURS.exposure } },
+	{ selector: 'node.outcome', style: { 'background-color': COLOURS.outcome } },
+	{
+		selector: 'node.unmeasured',
+		style: { 'border-style': 'dashed', 'border-width': 2, 'border-color': COLOURS.unmeasuredInk, color: COLOURS.unmeasuredInk }
+	},
+	{ selector: 'node.unmeasured.exposure, node.unmeasured.outcome', style: { color: '#2e2e2e' } },
+	{
+		// The square box around an adjusted ("conditioned") variable.
+		selector: 'node.planned',
+		style: {
+			shape: 'rectangle',
+			'border-width': 2.5,
+			'outline-width': 2.5,
+			'outline-color': COLOURS.ink,
+			'outline-offset': 4,
+			'outline-style': 'solid'
+		}
+	},
+	{
+		selector: 'edge',
+		style: {
+			width: 2,
+			'curve-style': 'bezier',
+			'line-color': '#3b3b3b',
+			'target-arrow-color': '#3b3b3b',
+			'target-arrow-shape': 'triangle',
+			'arrow-scale': 1.3
+		}
+	},
+	{
+		selector: 'node:selected',
+		style: { 'underlay-color': COLOURS.selection, 'underlay-opacity': 0.55, 'underlay-padding': 9, 'underlay-shape': 'round-rectangle' }
+	},
+	{
+		selector: 'edge:selected',
+		style: { 'underlay-color': COLOURS.selection, 'underlay-opacity': 0.6, 'underlay-padding': 7, width: 3 }
+	},
+	// Highlights from the analysis column.
+	{ selector: '.faded', style: { opacity: 0.28 } },
+	{
+		selector: 'edge.hl-causal',
+		style: { 'line-color': COLOURS.causal, 'target-arrow-color': COLOURS.causal, width: 5, 'line-style': 'solid', opacity: 1 }
+	},
+	{
+		selector: 'edge.hl-open',
+		style: { 'line-color': COLOURS.biasing, 'target-arrow-color': COLOURS.biasing, width: 5, 'line-style': 'dashed', 'line-dash-pattern': [10, 5], opacity: 1 }
+	},
+	{
+		selector: 'edge.hl-blocked',
+		style: { 'line-color': COLOURS.blocked, 'target-arrow-color': COLOURS.blocked, width: 2, 'line-style': 'dotted', opacity: 1 }
+	},
+	{
+		selector: 'node.hl-node',
+		style: { opacity: 1, 'underlay-color': COLOURS.biasing, 'underlay-opacity': 0.35, 'underlay-padding': 10, 'underlay-shape': 'round-rectangle' }
+	},
+	{ selector: 'node.hl-on-path', style: { opacity: 1 } },
+	{
+		// A refused arrow's cycle, shown briefly.
+		selector: 'edge.hl-cycle',
+		style: { 'line-color': COLOURS.biasing, 'target-arrow-color': COLOURS.biasing, width: 5, 'line-style': 'dashed', opacity: 1 }
+	},
+	// Keyboard arrow drawing: the candidate target.
+	{
+		selector: 'node.kbd-target',
+		style: { 'underlay-color': COLOURS.causal, 'underlay-opacity': 0.4, 'underlay-padding': 10 }
+	},
+	// Edge-drawing gesture (cytoscape-edgehandles classes).
+	{ selector: '.eh-ghost-edge, edge.eh-preview', style: { 'line-color': COLOURS.causal, 'target-arrow-color': COLOURS.causal, width: 3, 'line-style': 'dashed' } },
+	{ selector: 'edge.eh-preview.refused', style: { 'line-color': COLOURS.biasing, 'target-arrow-color': COLOURS.biasing, 'target-arrow-shape': 'tee' } },
+	{ selector: 'node.eh-target', style: { 'underlay-color': COLOURS.causal, 'underlay-opacity': 0.35, 'underlay-padding': 10 } },
+	{ selector: '.eh-ghost-edge.eh-preview-active', style: { opacity: 0 } }
+];
