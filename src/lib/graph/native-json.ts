@@ -163,7 +163,7 @@ const SYNTAX_PROBLEMS: Record<string, string> = {
 	UnexpectedEndOfNumber: 'malformed number',
 	InvalidUnicode: 'malformed \\u escape',
 	InvalidEscapeCharacter: 'invalid escape sequence in a string',
-	InvalidCharacter: 'a control character (such as a line break) inside a string; write it as \\n'
+	InvalidCharacter: 'a control character inside a string; write it as an escape such as \\t or \\u0001'
 };
 
 function syntaxError(body: string): InputError {
@@ -171,8 +171,15 @@ function syntaxError(body: string): InputError {
 	parseLenient(body, errors, { disallowComments: true, allowTrailingComma: false, allowEmptyContent: false });
 	const first = errors[0];
 	if (!first) return new InputError('The file is not valid JSON');
+	const code = printParseErrorCode(first.error);
+	const stringEnd = first.offset + first.length;
+	if (code === 'UnexpectedEndOfString' && /[\r\n]/.test(body.charAt(stringEnd))) {
+		// The scanner stops a string at a raw line break; point at the line break itself.
+		const pos = lineColumn(body, stringEnd);
+		return new InputError(`Invalid JSON at ${describePosition(pos)}: a line break inside a string; write it as \\n`, `${pos.line}:${pos.column}`);
+	}
 	const pos = lineColumn(body, first.offset);
-	const problem = SYNTAX_PROBLEMS[printParseErrorCode(first.error)] ?? 'syntax error';
+	const problem = SYNTAX_PROBLEMS[code] ?? 'syntax error';
 	const found = first.offset >= body.length ? 'the end of the file' : quote(body.slice(first.offset, first.offset + Math.min(Math.max(first.length, 1), 20)));
 	return new InputError(`Invalid JSON at ${describePosition(pos)}: ${problem} (found ${found})`, `${pos.line}:${pos.column}`);
 }
