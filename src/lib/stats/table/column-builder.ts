@@ -114,7 +114,7 @@ export class ColumnBuilder {
 
 	private finishNumeric(): BuiltColumn {
 		const { name } = this.spec;
-		const values = this.numbers.slice(0, this.length);
+		const values = fitted(this.numbers, this.length);
 		if (this.spec.declared !== 'continuous' && this.distinct.length === 2 && !this.moreThanTwo) {
 			const [lo, hi] = this.distinct[0] < this.distinct[1] ? this.distinct : [this.distinct[1], this.distinct[0]];
 			const codes = new Int32Array(this.length);
@@ -142,7 +142,7 @@ export class ColumnBuilder {
 			throw new StatsError(`Column '${name}' is declared binary but has ${order.length} distinct values.`, { column: name });
 		const remap = new Int32Array(this.levels.length);
 		order.forEach((label, code) => (remap[this.levelIndex.get(label) as number] = code));
-		const codes = this.codes.slice(0, this.length);
+		const codes = fitted(this.codes, this.length);
 		for (let i = 0; i < codes.length; i++) if (codes[i] >= 0) codes[i] = remap[codes[i]];
 		const notes: string[] = [];
 		if (kind !== 'binary') notes.push(`'${name}': ${kind}, ${order.length} levels; reference level '${order[0]}'.`);
@@ -190,18 +190,28 @@ export class ColumnBuilder {
 
 	private append(x: number, code: number): void {
 		if (this.mode === 'numeric') {
-			if (this.length === this.numbers.length) this.numbers = grow(this.numbers) as Float64Array;
+			if (this.length === this.numbers.length) {
+				const bigger = new Float64Array(Math.max(16, this.numbers.length * 2));
+				bigger.set(this.numbers);
+				this.numbers = bigger;
+			}
 			this.numbers[this.length] = x;
 		} else if (this.mode === 'coded') {
-			if (this.length === this.codes.length) this.codes = grow(this.codes) as Int32Array;
+			if (this.length === this.codes.length) {
+				const bigger = new Int32Array(Math.max(16, this.codes.length * 2));
+				bigger.set(this.codes);
+				this.codes = bigger;
+			}
 			this.codes[this.length] = code;
 		}
 		this.length++;
 	}
 }
 
-function grow(a: Float64Array | Int32Array): Float64Array | Int32Array {
-	const bigger = a instanceof Float64Array ? new Float64Array(Math.max(16, a.length * 2)) : new Int32Array(Math.max(16, a.length * 2));
-	bigger.set(a);
-	return bigger;
+/**
+ * The first `length` entries: a view when the unused tail is under 1/8 of the buffer (no
+ * copy, little waste), else a tight copy.
+ */
+function fitted<T extends Float64Array | Int32Array>(a: T, length: number): T {
+	return (a.length - length <= a.length / 8 ? a.subarray(0, length) : a.slice(0, length)) as T;
 }

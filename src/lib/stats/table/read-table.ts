@@ -54,7 +54,7 @@ const SAMPLE_ROWS = 50;
 /** Read a whole delimited text. O(characters). Never throws: errors come back as `{ ok: false }`. */
 export function parseTable(text: string, options: ParseOptions = {}): ParseResult {
 	try {
-		const reader = new TableReader(options);
+		const reader = new TableReader(options, text.length);
 		reader.push(text);
 		return { ok: true, table: reader.finish() };
 	} catch (e) {
@@ -72,8 +72,8 @@ export type TableSource = Blob | ReadableStream<Uint8Array> | AsyncIterable<stri
  */
 export async function parseTableStream(source: TableSource, options: StreamParseOptions = {}): Promise<ParseResult> {
 	try {
-		const reader = new TableReader(options);
 		const total = typeof Blob !== 'undefined' && source instanceof Blob ? source.size : (options.totalBytes ?? null);
+		const reader = new TableReader(options, total);
 		const decoder = new TextDecoder('utf-8');
 		let bytes = 0;
 		let characters = 0;
@@ -153,10 +153,19 @@ class TableReader {
 	private fileRow = 0;
 	private dataRows = 0;
 	private sawAnyText = false;
+	private sampleChars = 0;
+	private sampleRecords = 0;
 
-	constructor(private readonly options: ParseOptions) {
+	/** Expected input size in characters (bytes, for UTF-8 mostly ASCII), when known. */
+	private readonly expectedChars: number | null;
+
+	constructor(
+		private readonly options: ParseOptions,
+		expectedChars: number | null = null
+	) {
 		this.isMissing = missingTest(options.missingTokens);
 		this.levelCap = options.levelCap ?? DEFAULT_LEVEL_CAP;
+		this.expectedChars = expectedChars;
 	}
 
 	get rowCount(): number {
@@ -217,7 +226,19 @@ class TableReader {
 		const sampleRows = (Papa.parse<string[]>(sample, { delimiter: this.delimiter, newline: this.newline, preview: SAMPLE_ROWS + 1, skipEmptyLines: true }).data ?? []).filter((r) => r.length > 0);
 		this.decimalComma = this.options.decimalComma ?? detectDecimalComma(sampleRows.slice(1), this.delimiter);
 		this.header = this.options.header ?? detectHeader(sampleRows, this.decimalComma, this.isMissing);
+		this.sampleChars = sample.length;
+		this.sampleRecords = sample.split(this.newline).length - 1;
 		this.parse(text, final);
+	}
+
+	/**
+	 * Initial column capacity: the expected row count (input size / mean sampled record
+	 * length, plus 5 %) when the input size is known, so the arrays rarely grow; else 1024.
+	 */
+	private initialCapacity(): number {
+		if (this.expectedChars === null || this.sampleRecords === 0) return 1024;
+		const perRecord = this.sampleChars / this.sampleRecords;
+		return Math.min(2 ** 28, Math.max(16, Math.ceil((1.05 * this.expectedChars) / perRecord)));
 	}
 
 	private parse(text: string, final: boolean): void {
@@ -282,7 +303,7 @@ class TableReader {
 						decimalComma: this.decimalComma,
 						isMissing: this.isMissing
 					},
-					1024
+					this.initialCapacity()
 				)
 		);
 	}
