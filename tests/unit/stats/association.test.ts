@@ -175,6 +175,9 @@ describe('correlations and group comparisons (mtcars, R)', () => {
 	});
 
 	it('says why when a variable does not vary', () => {
-		expect(() => associate(continuousColumn('x', [1, 1, 1, 1, 1]), continuousColumn('y', [1, 2, 3, 4, 5]))).toThrow(/does not vary/);
+		expect(() => associate(continuousColumn('x', [1, 1, 1, 1, 1]), continuousColumn('y', [1, 2, 3, 4, 5]))).toThrow(
+			"'x' has the single value 1 in the complete cases; no association can be tested."
+		);
+		expect(() => associate(codedColumn('a', ['x', 'x', 'y']), codedColumn('b', ['p', 'q', null]))).toThrow("'a' has a single observed level ('x')");
 	});
 });

@@ -16,7 +16,8 @@
  *
  * Cost: O(n) for tables and Pearson, O(n log n) for rank tests.
  */
-import { columnLength, completeRows } from '../table/columns';
+import { StatsError } from '../errors';
+import { columnLength, completeRows, observedLevels } from '../table/columns';
 import type { CodedColumn, Column } from '../table/types';
 import type { TestResult } from '../types';
 import { chiSquareTest, dropEmptyMargins, gTest, smallExpectedShare } from './chi-square';
@@ -37,11 +38,28 @@ export interface AssociationResult {
 
 export function associate(a: Column, b: Column): AssociationResult {
 	const columns: [string, string] = [a.name, b.name];
+	const rows = completeRows([a, b]);
+	if (rows.length === 0) throw new StatsError(`'${a.name}' and '${b.name}' are never both observed in the same row.`);
+	for (const c of [a, b]) requireVariation(c, rows);
 	const [main, ...others] = chooseTests(a, b);
 	const total = columnLength(a);
-	const used = completeRows([a, b]).length;
+	const used = rows.length;
 	if (used < total) main.notes.push(`${total - used} of ${total} rows left out for a missing value (complete cases).`);
 	return { columns, main, others };
+}
+
+/** A column that does not vary in the complete cases cannot be associated with anything: say which. */
+function requireVariation(c: Column, rows: Int32Array): void {
+	if (c.kind === 'continuous') {
+		const first = c.values[rows[0]];
+		for (let k = 1; k < rows.length; k++) if (c.values[rows[k]] !== first) return;
+		throw new StatsError(`'${c.name}' has the single value ${first} in the complete cases; no association can be tested.`, { column: c.name });
+	}
+	const levels = observedLevels(c, rows).levels;
+	if (levels.length < 2)
+		throw new StatsError(`'${c.name}' has a single observed level ('${levels[0]}') in the complete cases; no association can be tested.`, {
+			column: c.name
+		});
 }
 
 function chooseTests(a: Column, b: Column): TestResult[] {
