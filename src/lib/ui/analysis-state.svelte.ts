@@ -58,13 +58,19 @@ export class AnalysisState {
 	}
 
 	request(d: Diagram): void {
+		const previous = this.#pending;
 		this.#pending = d;
-		if (this.#runner.usesWorker(d)) {
-			this.status = 'working';
-			this.progress = { stage: 'Starting', fraction: 0 };
-			this.where = 'worker';
+		const worker = this.#runner.usesWorker(d);
+		if (this.#runner.request(d)) {
+			if (worker) {
+				this.status = 'working';
+				this.progress = { stage: 'Starting', fraction: 0 };
+				this.where = 'worker';
+			}
+		} else {
+			// Same analysis as before: the results stand for the new diagram too.
+			if (this.analysed === previous) this.analysed = d;
 		}
-		this.#runner.request(d);
 	}
 
 	cancel(): void {

@@ -62,9 +62,13 @@ const FORBIDDEN: Record<ForbiddenWhy, string> = {
 	unmeasured: 'is unmeasured, so it cannot be adjusted for'
 };
 
+/** The arrows of a diagram as a set of "from\0to" keys, for pathText. O(m). */
+export function arrowSet(d: Diagram): ReadonlySet<string> {
+	return new Set(d.arrows.map((a) => `${a.from}\u0000${a.to}`));
+}
+
 /** "A → B ← C": the path with each arrow's real direction. */
-export function pathText(nodes: readonly string[], d: Diagram, labelOf: LabelOf): string {
-	const arrows = new Set(d.arrows.map((a) => `${a.from}\u0000${a.to}`));
+export function pathText(nodes: readonly string[], d: Diagram, labelOf: LabelOf, arrows: ReadonlySet<string> = arrowSet(d)): string {
 	let text = labelOf(nodes[0] ?? '');
 	for (let i = 1; i < nodes.length; i++) {
 		const forward = arrows.has(`${nodes[i - 1]}\u0000${nodes[i]}`);
@@ -108,14 +112,18 @@ function reasonText(r: PathNodeReason, labelOf: LabelOf): string {
 	}
 }
 
-/** The status of a path: kind, open or blocked, and where. */
+/** Whether a path is causal (directed from exposure to outcome) or not (a biasing path). */
+export function pathKindLabel(p: PathInfo): 'causal' | 'biasing' {
+	return p.causal ? 'causal' : 'biasing';
+}
+
+/** Open or blocked, and where: "open", "open through M (collider, adjusted for)", "blocked at A (adjusted for)". */
 export function pathStatus(p: PathInfo, labelOf: LabelOf): string {
-	const kind = p.causal ? 'causal' : 'biasing';
 	if (p.open) {
 		const opened = p.reasons.map((r) => reasonText(r, labelOf));
-		return opened.length > 0 ? `${kind}, open through ${listNames(opened)}` : `${kind}, open`;
+		return opened.length > 0 ? `open through ${listNames(opened)}` : 'open';
 	}
-	return `${kind}, blocked at ${listNames(p.reasons.map((r) => reasonText(r, labelOf)))}`;
+	return `blocked at ${listNames(p.reasons.map((r) => reasonText(r, labelOf)))}`;
 }
 
 /** The visual kind of a path: causal (solid blue), open biasing (dashed vermillion) or blocked. */

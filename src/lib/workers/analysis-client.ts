@@ -5,7 +5,7 @@
  * diagram is terminated and replaced, since a running computation cannot be interrupted.
  */
 import type { Diagram } from '../graph/diagram';
-import { DEFAULT_LIMITS, runAnalysis, type AnalysisLimits, type AnalysisProgress, type AppAnalysis } from './analysis-steps';
+import { analysisKey, claimsKey, DEFAULT_LIMITS, runAnalysis, type AnalysisLimits, type AnalysisProgress, type AppAnalysis } from './analysis-steps';
 import type { AnalyseRequest, WorkerReply } from './protocol';
 
 export interface RunnerEvents {
@@ -43,6 +43,11 @@ export class AnalysisRunner {
 	#lastDiagram: Diagram | null = null;
 	/** Smallest variable count whose main-thread run proved slow. */
 	#slowFrom = Infinity;
+	/** Key of the diagram last analysed or being analysed; a repeat request is skipped. */
+	#lastKey: string | null = null;
+	/** Claims of the last complete result, by structure. */
+	#claimsCache: { key: string; claims: AppAnalysis['claims']; truncated: boolean } | null = null;
+	#pendingClaimsKey = '';
 
 	constructor(events: RunnerEvents, opts: RunnerOptions = {}) {
 		this.#events = events;
@@ -57,32 +62,44 @@ export class AnalysisRunner {
 		return n > this.#mainLimit || d.arrows.length > 2 * this.#mainLimit || n >= this.#slowFrom;
 	}
 
-	request(d: Diagram): void {
+	/**
+	 * Analyses `d` unless it differs from the last request only in what the analysis ignores
+	 * (positions, labels, notes, title). Returns false when skipped.
+	 */
+	request(d: Diagram, force = false): boolean {
+		const key = analysisKey(d);
+		if (!force && key === this.#lastKey) return false;
+		this.#lastKey = key;
 		this.#lastDiagram = d;
 		const id = ++this.#latest;
+		const cKey = claimsKey(d);
+		this.#pendingClaimsKey = cKey;
+		const known = this.#claimsCache?.key === cKey ? { claims: this.#claimsCache.claims, truncated: this.#claimsCache.truncated } : undefined;
 		if (!this.usesWorker(d)) {
 			if (this.#busy) this.#stopWorker();
 			const started = performance.now();
 			try {
-				const a = runAnalysis(d, this.#limits);
+				const a = runAnalysis(d, this.#limits, undefined, known);
+				this.#claimsCache = { key: cKey, claims: a.claims, truncated: a.claimsTruncated };
 				const ms = performance.now() - started;
 				if (ms > SLOW_MAIN_MS) this.#slowFrom = Math.min(this.#slowFrom, d.variables.length);
 				this.#events.result(a, { where: 'main', ms });
 			} catch (e) {
 				this.#events.failed(e instanceof Error ? e.message : String(e));
 			}
-			return;
+			return true;
 		}
 		if (this.#busy) this.#stopWorker();
 		const worker = this.#ensureWorker();
 		this.#busy = true;
-		const message: AnalyseRequest = { id, diagram: d, limits: this.#limits };
+		const message: AnalyseRequest = { id, diagram: d, limits: this.#limits, knownClaims: known };
 		worker.postMessage(message);
+		return true;
 	}
 
 	/** Runs the last diagram again (after a cancel). */
 	retry(): void {
-		if (this.#lastDiagram) this.request(this.#lastDiagram);
+		if (this.#lastDiagram) this.request(this.#lastDiagram, true);
 	}
 
 	/** Stops a running analysis; the last results stay on screen. */
@@ -90,6 +107,7 @@ export class AnalysisRunner {
 		if (!this.#busy) return;
 		this.#stopWorker();
 		this.#latest++;
+		this.#lastKey = null;
 		this.#events.cancelled();
 	}
 
@@ -129,6 +147,7 @@ export class AnalysisRunner {
 				break;
 			case 'done':
 				this.#busy = false;
+				this.#claimsCache = { key: this.#pendingClaimsKey, claims: reply.analysis.claims, truncated: reply.analysis.claimsTruncated };
 				this.#events.result(reply.analysis, { where: 'worker', ms: reply.ms });
 				break;
 			case 'failed':

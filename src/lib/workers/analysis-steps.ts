@@ -95,16 +95,33 @@ export function listClaims(
 
 /**
  * Runs both steps, reporting progress and the partial result after the first one.
- * `report` may throw to abandon the run (used for cancellation on the main thread).
+ * With `knownClaims` (from an earlier run on a diagram with the same claimsKey) the second
+ * step is skipped: the claims depend only on the variables, arrows and what is measured.
  */
 export function runAnalysis(
 	d: Diagram,
 	limits: AnalysisLimits = DEFAULT_LIMITS,
-	report?: (p: AnalysisProgress, partial: AppAnalysis | null) => void
+	report?: (p: AnalysisProgress, partial: AppAnalysis | null) => void,
+	knownClaims?: { claims: Claim[]; truncated: boolean }
 ): AppAnalysis {
 	report?.({ stage: 'Adjustment sets, verdict, roles and paths', fraction: 0 }, null);
 	const question = analyseQuestion(d, limits);
+	if (knownClaims) return { ...question, claims: knownClaims.claims, claimsTruncated: knownClaims.truncated, complete: true };
 	report?.({ stage: 'Listing the claims', fraction: 0 }, question);
 	const { claims, truncated } = listClaims(d, limits.maxClaims, (fraction) => report?.({ stage: 'Listing the claims', fraction }, null));
 	return { ...question, claims, claimsTruncated: truncated, complete: true };
+}
+
+/**
+ * What the whole analysis depends on: ids, measured flags, arrows and the question. Labels,
+ * notes, positions and the title do not matter, so moving or renaming a variable needs no
+ * new analysis. O(n + m).
+ */
+export function analysisKey(d: Diagram): string {
+	return JSON.stringify([claimsKey(d), d.exposures, d.outcomes, d.adjusted]);
+}
+
+/** What the claims depend on: ids, measured flags and arrows (not the question). O(n + m). */
+export function claimsKey(d: Diagram): string {
+	return JSON.stringify([d.variables.map((v) => (v.measured ? v.id : `!${v.id}`)), d.arrows.map((a) => [a.from, a.to])]);
 }

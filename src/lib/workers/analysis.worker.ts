@@ -9,7 +9,7 @@ import type { AnalyseRequest, WorkerReply } from './protocol';
 const post = (reply: WorkerReply) => (self as unknown as Worker).postMessage(reply);
 
 self.onmessage = (event: MessageEvent<AnalyseRequest>) => {
-	const { id, diagram, limits } = event.data;
+	const { id, diagram, limits, knownClaims } = event.data;
 	const started = performance.now();
 	let lastPost = 0;
 	try {
@@ -20,7 +20,7 @@ self.onmessage = (event: MessageEvent<AnalyseRequest>) => {
 				lastPost = now;
 				post({ id, kind: 'progress', progress, partial });
 			}
-		});
+		}, knownClaims);
 		post({ id, kind: 'done', analysis, ms: performance.now() - started });
 	} catch (e) {
 		post({ id, kind: 'failed', message: e instanceof Error ? e.message : String(e) });

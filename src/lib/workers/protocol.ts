@@ -1,11 +1,14 @@
 /** Messages between the app and the analysis worker. Plain data (structured clone). */
 import type { Diagram } from '../graph/diagram';
+import type { Claim } from '../causal/types';
 import type { AnalysisLimits, AnalysisProgress, AppAnalysis } from './analysis-steps';
 
 export interface AnalyseRequest {
 	id: number;
 	diagram: Diagram;
 	limits: AnalysisLimits;
+	/** Claims already listed for this structure (see claimsKey), so the worker skips them. */
+	knownClaims?: { claims: Claim[]; truncated: boolean };
 }
 
 export type WorkerReply =

@@ -1,0 +1,108 @@
+/**
+ * Building diagrams with the mouse. M-bias (Greenland, Epidemiology 2003): exposure and
+ * outcome each have a cause, and both causes affect a pre-exposure variable M. The empty set
+ * is sufficient; adjusting for M alone opens the path X ← A → M ← B → Y. Told in the demo
+ * scenario: A = health consciousness, B = family history, M = sports-club membership.
+ */
+import { test, expect } from '@playwright/test';
+import { addVariableByMouse, adjustment, canvas, counts, drawArrowByMouse, message, openEmpty, undoAll, variableMenu, verdict, watchPage } from './helpers';
+
+test('M-bias built by mouse: sets, verdict, reasons, then undo everything', async ({ page, baseURL }) => {
+	const problems = watchPage(page, baseURL!);
+	await openEmpty(page);
+
+	await addVariableByMouse(page, 'Health consciousness', { x: 160, y: 140 });
+	await addVariableByMouse(page, 'Family history', { x: 640, y: 140 });
+	await addVariableByMouse(page, 'Sports-club membership', { x: 400, y: 290 });
+	await addVariableByMouse(page, 'Cycling', { x: 160, y: 460 });
+	await addVariableByMouse(page, 'Hypertension', { x: 640, y: 460 });
+	expect((await counts(page)).variables).toBe(5);
+
+	await drawArrowByMouse(page, 'health_consciousness', 'cycling');
+	await drawArrowByMouse(page, 'health_consciousness', 'sports_club_membership');
+	await drawArrowByMouse(page, 'family_history', 'sports_club_membership');
+	await drawArrowByMouse(page, 'family_history', 'hypertension');
+	await drawArrowByMouse(page, 'cycling', 'hypertension');
+	expect((await counts(page)).arrows).toBe(5);
+
+	await variableMenu(page, 'cycling', 'Exposure');
+	await variableMenu(page, 'hypertension', 'Outcome');
+
+	const adj = adjustment(page);
+	// The empty set is the only minimal sufficient set (Greenland 2003).
+	await expect(adj.getByRole('list', { name: /Minimal sufficient adjustment sets for the total effect/ }).getByRole('listitem')).toHaveCount(1);
+	await expect(adj.getByRole('button', { name: 'Plan { } (no adjustment)' })).toBeVisible();
+	await expect(verdict(page)).toContainText('No adjustment is needed');
+	await expect(page.locator('[data-section="paths"]')).toContainText('Cycling ← Health consciousness → Sports-club membership ← Family history → Hypertension');
+
+	// Badges on the canvas, as text.
+	const text = async (id: string) => page.evaluate((v) => window.__causewayCanvas.nodeClasses(v), id);
+	expect(await text('cycling')).toContain('exposure');
+
+	// Adjusting for the collider alone opens the biasing path.
+	await variableMenu(page, 'sports_club_membership', 'In the planned set');
+	await expect(verdict(page)).toContainText('Adjusting for Sports-club membership is not sufficient: a biasing path stays open.');
+	const reason = adj.getByRole('button', { name: /A biasing path stays open: Cycling ← Health consciousness → Sports-club membership ← Family history → Hypertension/ });
+	await reason.click();
+	await expect(reason).toHaveAttribute('aria-pressed', 'true');
+	const lit = await page.evaluate(() => window.__causewayCanvas.arrowClasses('health_consciousness', 'sports_club_membership'));
+	expect(lit).toContain('hl-open');
+	expect(await page.evaluate(() => window.__causewayCanvas.arrowClasses('cycling', 'hypertension'))).toContain('faded');
+
+	// Adding either parent of the collider closes it again.
+	await variableMenu(page, 'health_consciousness', 'In the planned set');
+	await expect(verdict(page)).toContainText('is sufficient');
+
+	// Clicking a minimal set makes it the planned set.
+	await adj.getByRole('button', { name: 'Plan { } (no adjustment)' }).click();
+	await expect(verdict(page)).toContainText('No adjustment is needed');
+
+	// Paths: hovering one lights it on the canvas.
+	const path = page.locator('[data-section="paths"] button.path', { hasText: 'Cycling → Hypertension' }).first();
+	await path.hover();
+	expect(await page.evaluate(() => window.__causewayCanvas.arrowClasses('cycling', 'hypertension'))).toContain('hl-causal');
+
+	// Reverse and delete an arrow from its menu.
+	const mid = (await page.evaluate(() => window.__causewayCanvas.arrowMidpoint('family_history', 'hypertension')))!;
+	await page.mouse.click(mid.x, mid.y, { button: 'right' });
+	await page.getByRole('menuitem', { name: 'Reverse arrow' }).click();
+	expect(await page.evaluate(() => window.__causewayCanvas.arrowMidpoint('hypertension', 'family_history'))).not.toBeNull();
+	const mid2 = (await page.evaluate(() => window.__causewayCanvas.arrowMidpoint('hypertension', 'family_history')))!;
+	await page.mouse.click(mid2.x, mid2.y);
+	await expect(canvas(page)).toBeFocused();
+	await page.keyboard.press('Delete');
+	await expect(message(page)).toContainText('Delete arrow Hypertension → Family history');
+	expect((await counts(page)).arrows).toBe(4);
+
+	// Drag a variable: one undoable move.
+	const before = await page.evaluate(() => window.__causewayCanvas.nodeBox('cycling'));
+	await page.mouse.move(before!.x + 10, before!.y + 10);
+	await page.mouse.down();
+	await page.mouse.move(before!.x + 60, before!.y + 80, { steps: 6 });
+	await page.mouse.up();
+	await expect(message(page)).toContainText('Move Cycling');
+
+	await undoAll(page);
+	expect(await counts(page)).toEqual({ variables: 0, arrows: 0 });
+	// Redo everything back.
+	const redo = page.getByRole('button', { name: 'Redo' });
+	while (await redo.isEnabled()) await page.keyboard.press('Control+Shift+z');
+	expect(await counts(page)).toEqual({ variables: 5, arrows: 4 });
+	expect(problems).toEqual([]);
+});
+
+test('an arrow that would close a cycle is refused on the spot, naming the cycle', async ({ page }) => {
+	await openEmpty(page);
+	await addVariableByMouse(page, 'Diet', { x: 150, y: 200 });
+	await addVariableByMouse(page, 'Weight', { x: 450, y: 200 });
+	await addVariableByMouse(page, 'Blood pressure', { x: 300, y: 420 });
+	await drawArrowByMouse(page, 'diet', 'weight');
+	await drawArrowByMouse(page, 'weight', 'blood_pressure');
+	await drawArrowByMouse(page, 'blood_pressure', 'diet');
+	await expect(message(page)).toContainText('Arrow Blood pressure → Diet refused: it would close the cycle Blood pressure → Diet → Weight → Blood pressure.');
+	expect((await counts(page)).arrows).toBe(2);
+	expect(await page.evaluate(() => window.__causewayCanvas.arrowClasses('diet', 'weight'))).toContain('hl-cycle');
+	// The refusal is not an edit: undo removes the last real arrow.
+	await page.keyboard.press('Control+z');
+	expect((await counts(page)).arrows).toBe(1);
+});
