@@ -13,5 +13,8 @@ await build({
 	target: 'node20',
 	sourcemap: false,
 	logLevel: 'warning',
+	// Prefer packages' ES-module builds: jsonc-parser's UMD build loads its parts with a
+	// run-time require that a bundle cannot follow.
+	mainFields: ['module', 'main'],
 	banner: { js: "import { createRequire as __cwCreateRequire } from 'node:module'; const require = __cwCreateRequire(import.meta.url);" }
 });

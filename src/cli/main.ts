@@ -313,9 +313,10 @@ export async function main(argv: readonly string[], io: CliIo): Promise<number> 
 		return 2;
 	};
 	const [name, ...rest] = argv;
-	if (name === undefined || name === '--help' || name === '-h' || name === 'help') {
+	if (name === undefined) return fail('no command given; run "causeway --help" for the list');
+	if (name === '--help' || name === '-h' || name === 'help') {
 		io.stdout(`${generalHelp()}\n`);
-		return name === undefined ? 2 : 0;
+		return 0;
 	}
 	if (name === '--version' || name === '-V') {
 		io.stdout(`${VERSION}\n`);

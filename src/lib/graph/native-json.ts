@@ -5,8 +5,10 @@
  *  1. syntax — JSON.parse; on failure jsonc-parser (the scanner VS Code uses) re-reads the text
  *     only to find the line and column, because JSON.parse's messages give no position in
  *     every JavaScript engine;
- *  2. structure — ajv checks diagram.schema.json (JSON Schema 2020-12) and the first failure
- *     becomes a message naming the path (`variables[3].id`) and its line;
+ *  2. structure — diagram.schema.json (JSON Schema 2020-12) is checked by a validator that ajv
+ *     generated ahead of time (scripts/build-schema-validator.mjs: the app's Content-Security-
+ *     Policy forbids ajv's run-time `new Function`), and the first failure becomes a message
+ *     naming the path (`variables[3].id`) and its line;
  *  3. model — defaults are filled in (label = id, measured = true, empty role lists) and
  *     keys this version does not know go to `extra`, so that writing the diagram again keeps
  *     them.
@@ -15,10 +17,10 @@
  *
  * Cost: O(size of the text) for reading and writing.
  */
-import Ajv2020 from 'ajv/dist/2020';
-import type { ErrorObject, ValidateFunction } from 'ajv';
+import type { ErrorObject } from 'ajv';
 import { findNodeAtLocation, parse as parseLenient, parseTree, printParseErrorCode, type JSONPath, type ParseError } from 'jsonc-parser';
 import schema from './diagram.schema.json';
+import { validate as validateSchema } from './diagram-schema-validate.js';
 import { DIAGRAM_FORMAT, DIAGRAM_VERSION, isUnsafeKey, type Arrow, type Diagram, type Extra, type Variable } from './diagram';
 import { describeFound, describePosition, InputError, lineColumn, quote } from './errors';
 
@@ -60,11 +62,9 @@ const ARROW_KEY_SET: ReadonlySet<string> = new Set(ARROW_KEYS);
 /** The JSON Schema of the native format (also served as /causeway.diagram.schema.json). */
 export const diagramSchema: unknown = schema;
 
-let compiled: ValidateFunction<DiagramFile> | undefined;
-/** ajv compiles the schema to a function once, on first use (a few milliseconds). */
-function schemaValidator(): ValidateFunction<DiagramFile> {
-	compiled ??= new Ajv2020({ allErrors: false, strict: true }).compile<DiagramFile>(schema);
-	return compiled;
+/** The generated validator as a type guard; it leaves its failures on `.errors`. */
+function matchesSchema(data: unknown): data is DiagramFile {
+	return validateSchema(data);
 }
 
 /**
@@ -75,9 +75,8 @@ export function parseDiagramJson(text: string): Diagram {
 	const body = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
 	const data = parseJsonSyntax(body);
 	checkFormatAndVersion(data, body);
-	const validate = schemaValidator();
-	if (!validate(data)) {
-		const first = validate.errors?.[0];
+	if (!matchesSchema(data)) {
+		const first = validateSchema.errors?.[0];
 		throw first ? structureError(first, data, body) : new InputError('The diagram file does not match the Causeway diagram format');
 	}
 	return toDiagram(data);

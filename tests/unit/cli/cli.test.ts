@@ -166,7 +166,10 @@ describe('causeway dsep, paths, claims, roles', () => {
 		expect(c.claims).toContainEqual({ a: 'u1', b: 'u2', given: [] });
 		const roles = JSON.parse((await run(['roles', 'm.json', '--json'], { 'm.json': MBIAS })).out).roles;
 		expect(roles).toContainEqual({ id: 'm', roles: ['collider'] });
-		expect(roles).toContainEqual({ id: 'u1', roles: ['confounder'] });
+		// u1 causes the outcome only through the exposure; u2 causes the outcome only (M-bias,
+		// Greenland, Pearl & Robins 1999): neither is a common cause, so neither is a confounder.
+		expect(roles).toContainEqual({ id: 'u1', roles: ['instrument-like'] });
+		expect(roles).toContainEqual({ id: 'u2', roles: ['precision'] });
 	});
 });
 
