@@ -5,7 +5,7 @@
  * stderr and no stack trace.
  */
 import { readFile, writeFile } from 'node:fs/promises';
-import { parseArgs, type ParseArgsConfig } from 'node:util';
+import { parseArgs } from 'node:util';
 import type { Diagram } from '../lib/graph/diagram';
 import { InputError } from '../lib/graph/errors';
 import { readDiagramText } from '../lib/graph/read-file';
@@ -21,44 +21,12 @@ import {
 } from '../lib/causal/analysis';
 import type { Effect } from '../lib/causal/types';
 import { UsageError, type CliIo } from './io';
+import { COMMON, QUESTION, QUESTION_HELP, type Command, type Context, type Values } from './command';
 import { braces, pathText, problemText, reasonText, ROLE_TEXT } from './format';
 
 export type { CliIo } from './io';
 
 const VERSION = '0.1.0';
-
-type Options = ParseArgsConfig['options'];
-type Values = Record<string, string | boolean | string[] | undefined>;
-
-interface Command {
-	summary: string;
-	usage: string;
-	details: string;
-	options: Options;
-	run(ctx: Context): Promise<number>;
-}
-
-interface Context {
-	io: CliIo;
-	values: Values;
-	positionals: string[];
-	json: boolean;
-	print(text: string): void;
-	printJson(value: unknown): void;
-	diagram(): Promise<Diagram>;
-	question(): { exposures?: string[]; outcomes?: string[] };
-	list(name: string): string[] | undefined;
-	count(name: string): number | undefined;
-}
-
-const QUESTION: Options = {
-	exposure: { type: 'string', multiple: true },
-	outcome: { type: 'string', multiple: true }
-};
-const COMMON: Options = { json: { type: 'boolean' }, help: { type: 'boolean', short: 'h' } };
-
-const QUESTION_HELP = `  --exposure a,b   exposure variable(s), replacing those in the file
-  --outcome c      outcome variable(s), replacing those in the file`;
 
 function arrowLookup(d: Diagram): (a: string, b: string) => boolean {
 	const arrows = new Set(d.arrows.map((a) => `${a.from}\u0000${a.to}`));
