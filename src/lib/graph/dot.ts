@@ -28,6 +28,8 @@ import { parse, type AttributeASTNode, type GraphASTNode, type ClusterStatementA
 import { isUnsafeKey, type Arrow, type Diagram, type Extra, type Variable } from './diagram';
 import { describePosition, InputError, lineColumn, quote } from './errors';
 import { validateDiagram } from './validate';
+import { assertDiagramTextSize, assertDiagramWithinLimits } from './size-limits';
+import { describeCount, MAX_ARROWS, MAX_VARIABLES } from '../limits';
 
 // ---------------------------------------------------------------------------------------------
 // Text codecs
@@ -213,6 +215,7 @@ interface Scope {
  * undirected graph or edge, or of a Causeway attribute with a bad value (role, measured, pos).
  */
 export function parseDot(text: string): Diagram {
+	assertDiagramTextSize(text);
 	const source = text.charCodeAt(0) === 0xfeff ? ' ' + text.slice(1) : text;
 	if (source.trim() === '') throw new InputError('The file is empty: expected a DOT digraph', '1:1');
 	const { text: guarded, restore } = protectLineBreaksInStrings(source);
@@ -247,10 +250,12 @@ export function parseDot(text: string): Diagram {
 	const nodes = new Map<string, NodeInfo>();
 	const edges: EdgeInfo[] = [];
 	const strictIndex = graph.strict ? new Map<string, EdgeInfo>() : null;
+	let expanded = 0; // arrows the edge statements ask for, before a strict graph merges repeats
 
 	const ensureNode = (id: string, scope: Scope): NodeInfo => {
 		let node = nodes.get(id);
 		if (!node) {
+			if (nodes.size >= MAX_VARIABLES) throw tooManyVariables();
 			node = { id, attrs: new Map(scope.nodeDefaults) };
 			nodes.set(id, node);
 		}
@@ -288,6 +293,11 @@ export function parseDot(text: string): Diagram {
 			}
 			case 'Edge': {
 				const groups = stmt.targets.map(refsOf);
+				// Groups multiply ({a b} -> {c d} is four arrows): count before expanding, so a
+				// small hostile file cannot ask for billions of arrows (strict graphs merge repeats,
+				// hence the allowance beyond MAX_ARROWS).
+				for (let g = 0; g + 1 < groups.length; g++) expanded += groups[g].length * groups[g + 1].length;
+				if (expanded > 4 * MAX_ARROWS) throw tooManyArrows();
 				for (const group of groups) for (const ref of group) ensureNode(literal(ref.id), scope);
 				const explicit: [string, Attr][] = [];
 				for (const a of stmt.children) if (a.type === 'Attribute') explicit.push(attrOf(a));
@@ -324,6 +334,7 @@ export function parseDot(text: string): Diagram {
 
 	function addEdge(edge: EdgeInfo): void {
 		if (!strictIndex) {
+			if (edges.length >= MAX_ARROWS) throw tooManyArrows();
 			edges.push(edge);
 			return;
 		}
@@ -332,16 +343,22 @@ export function parseDot(text: string): Diagram {
 		const existing = strictIndex.get(key);
 		if (existing) for (const [k, v] of edge.attrs) existing.attrs.set(k, v);
 		else {
+			if (edges.length >= MAX_ARROWS) throw tooManyArrows();
 			strictIndex.set(key, edge);
 			edges.push(edge);
 		}
 	}
 
 	const graphName = graph.id ? literal(graph.id) : '';
-	return toDiagram(graphName, graphAttrs, [...nodes.values()], edges, at);
+	const diagram = toDiagram(graphName, graphAttrs, [...nodes.values()], edges, at);
+	assertDiagramWithinLimits(diagram);
+	return diagram;
 }
 
 type At = (offset: number) => { phrase: string; where: string };
+
+const tooManyVariables = () => new InputError(`The DOT file names more than ${describeCount(MAX_VARIABLES)} nodes; Causeway handles at most ${describeCount(MAX_VARIABLES)} variables`, 'variables');
+const tooManyArrows = () => new InputError(`The DOT file makes more than ${describeCount(MAX_ARROWS)} edges; Causeway handles at most ${describeCount(MAX_ARROWS)} arrows`, 'arrows');
 
 function dotSyntaxError(e: unknown, at: At): InputError {
 	const cause = e instanceof Error ? e.cause : undefined;

@@ -23,6 +23,7 @@ import schema from './diagram.schema.json';
 import { validate as validateSchema } from './diagram-schema-validate.js';
 import { DIAGRAM_FORMAT, DIAGRAM_VERSION, isUnsafeKey, type Arrow, type Diagram, type Extra, type Variable } from './diagram';
 import { describeFound, describePosition, InputError, lineColumn, quote } from './errors';
+import { assertDiagramTextSize, assertDiagramWithinLimits } from './size-limits';
 
 /** The shape diagram.schema.json accepts; keys beyond these are allowed and kept. */
 interface FileVariable {
@@ -72,6 +73,7 @@ function matchesSchema(data: unknown): data is DiagramFile {
  * or the path of a structure error; never returns a half-read diagram.
  */
 export function parseDiagramJson(text: string): Diagram {
+	assertDiagramTextSize(text);
 	const body = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
 	const data = parseJsonSyntax(body);
 	checkFormatAndVersion(data, body);
@@ -79,7 +81,9 @@ export function parseDiagramJson(text: string): Diagram {
 		const first = validateSchema.errors?.[0];
 		throw first ? structureError(first, data, body) : new InputError('The diagram file does not match the Causeway diagram format');
 	}
-	return toDiagram(data);
+	const diagram = toDiagram(data);
+	assertDiagramWithinLimits(diagram);
+	return diagram;
 }
 
 /**

@@ -33,6 +33,9 @@ export interface ValidateOptions {
 	needQuestion?: boolean;
 }
 
+/** Said with every cycle and self-loop, so that a file with one explains why nothing is computed. */
+const NEEDS_DAG = 'the analysis needs an acyclic diagram (a DAG)';
+
 const ROLE_LISTS = [
 	{ key: 'exposures', name: 'Exposure' },
 	{ key: 'outcomes', name: 'Outcome' },
@@ -81,7 +84,7 @@ export function validateDiagram(d: Diagram, opts: ValidateOptions = {}): Diagram
 			return;
 		}
 		if (a.from === a.to) {
-			issues.push({ code: 'self-loop', message: `${name} points from ${quote(a.from)} to itself`, ids: [a.from] });
+			issues.push({ code: 'self-loop', message: `${name} points from ${quote(a.from)} to itself; ${NEEDS_DAG}, so remove this arrow`, ids: [a.from] });
 			return;
 		}
 		let targets = seen.get(a.from);
@@ -102,7 +105,7 @@ export function validateDiagram(d: Diagram, opts: ValidateOptions = {}): Diagram
 	if (cycle) {
 		issues.push({
 			code: 'cycle',
-			message: `The diagram has a cycle: ${cycle.map(showId).join(' → ')}`,
+			message: `The diagram has a cycle: ${cycle.map(showId).join(' → ')}; ${NEEDS_DAG}, so remove or reverse one of these arrows`,
 			ids: cycle.slice(0, -1)
 		});
 	}

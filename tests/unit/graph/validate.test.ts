@@ -44,7 +44,7 @@ describe('validateDiagram: one message per problem', () => {
 			diagram(['bmi'], ['x>y']),
 			[{ code: 'unknown-arrow-end', message: 'Arrow 1 (x → y) starts at "x" and points to "y", neither of which is a variable', ids: ['x', 'y'] }]
 		],
-		['self-loop', diagram(['a', 'b'], ['a>b', 'b>b']), [{ code: 'self-loop', message: 'Arrow 2 (b → b) points from "b" to itself', ids: ['b'] }]],
+		['self-loop', diagram(['a', 'b'], ['a>b', 'b>b']), [{ code: 'self-loop', message: 'Arrow 2 (b → b) points from "b" to itself; the analysis needs an acyclic diagram (a DAG), so remove this arrow', ids: ['b'] }]],
 		[
 			'duplicate-arrow',
 			diagram(['a', 'b', 'c'], ['a>b', 'b>c', 'a>b']),
@@ -53,7 +53,7 @@ describe('validateDiagram: one message per problem', () => {
 		[
 			'cycle',
 			diagram(['a', 'b', 'c', 'd'], ['d>a', 'b>c', 'c>a', 'a>b']),
-			[{ code: 'cycle', message: 'The diagram has a cycle: a → b → c → a', ids: ['a', 'b', 'c'] }]
+			[{ code: 'cycle', message: 'The diagram has a cycle: a → b → c → a; the analysis needs an acyclic diagram (a DAG), so remove or reverse one of these arrows', ids: ['a', 'b', 'c'] }]
 		],
 		[
 			'unknown-role-id',
@@ -94,7 +94,7 @@ describe('validateDiagram: one message per problem', () => {
 
 	it('quotes ids that are not plain words, keeping the message on one line', () => {
 		const [issue] = validateDiagram(diagram(['body mass', 'say "hi"\nthere'], ['body mass>say "hi"\nthere', 'say "hi"\nthere>body mass']));
-		expect(issue.message).toBe('The diagram has a cycle: "body mass" → "say \\"hi\\"\\nthere" → "body mass"');
+		expect(issue.message).toBe('The diagram has a cycle: "body mass" → "say \\"hi\\"\\nthere" → "body mass"; the analysis needs an acyclic diagram (a DAG), so remove or reverse one of these arrows');
 		expect(issue.message).not.toMatch(/\n/);
 	});
 
@@ -115,7 +115,7 @@ describe('validateDiagram: one message per problem', () => {
 			// demo; depth-first search from "age" meets this cycle before the shorter income ⇄ hypertension.
 			{
 				code: 'cycle',
-				message: 'The diagram has a cycle: income → cycling → fitness → bmi → hypertension → income',
+				message: 'The diagram has a cycle: income → cycling → fitness → bmi → hypertension → income; the analysis needs an acyclic diagram (a DAG), so remove or reverse one of these arrows',
 				ids: ['income', 'cycling', 'fitness', 'bmi', 'hypertension']
 			}
 		]);

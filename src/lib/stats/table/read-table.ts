@@ -13,6 +13,7 @@ import { missingTest, trimCell, type MissingTest } from './cells';
 import { ColumnBuilder } from './column-builder';
 import { detectDecimalComma, detectDelimiter, detectHeader, detectNewline, looksBinary, type Delimiter, type Newline } from './detect';
 import type { Column, ColumnKind, ParseResult, SkippedColumn, Table } from './types';
+import { describeBytes, MAX_TABLE_BYTES, MAX_TABLE_COLUMNS } from '../../limits';
 
 export interface ParseOptions {
 	/** Whether the first row holds column names; detected when omitted. */
@@ -155,6 +156,7 @@ class TableReader {
 	private sawAnyText = false;
 	private sampleChars = 0;
 	private sampleRecords = 0;
+	private pushedChars = 0;
 
 	/** Expected input size in characters (bytes, for UTF-8 mostly ASCII), when known. */
 	private readonly expectedChars: number | null;
@@ -166,6 +168,7 @@ class TableReader {
 		this.isMissing = missingTest(options.missingTokens);
 		this.levelCap = options.levelCap ?? DEFAULT_LEVEL_CAP;
 		this.expectedChars = expectedChars;
+		if (expectedChars !== null && expectedChars > MAX_TABLE_BYTES) throw tooLarge(expectedChars);
 	}
 
 	get rowCount(): number {
@@ -175,6 +178,8 @@ class TableReader {
 	push(text: string): void {
 		if (text.length === 0) return;
 		this.sawAnyText = true;
+		this.pushedChars += text.length;
+		if (this.pushedChars > MAX_TABLE_BYTES) throw tooLarge(this.pushedChars);
 		if (!this.started) {
 			this.pending += text;
 			if (this.pending.length >= SAMPLE_CHARS) this.start(false);
@@ -276,6 +281,8 @@ class TableReader {
 	}
 
 	private setColumns(first: string[]): void {
+		if (first.length > MAX_TABLE_COLUMNS)
+			throw new StatsError(`Row ${this.fileRow} has ${first.length} columns; Causeway reads data files of at most ${MAX_TABLE_COLUMNS} columns.`, { row: this.fileRow });
 		if (first.length < 2)
 			throw new StatsError(
 				`Only one column was found (delimiter ${describe(this.delimiter)}); the file must be comma-, semicolon- or tab-separated with at least two columns.`
@@ -314,6 +321,10 @@ class TableReader {
 		notes.push(this.header ? 'First row read as column names.' : 'No header row; columns named V1, V2, …');
 		return notes;
 	}
+}
+
+function tooLarge(size: number): StatsError {
+	return new StatsError(`The data file is too large (${describeBytes(size)} or more); Causeway reads data files of at most ${describeBytes(MAX_TABLE_BYTES)}.`);
 }
 
 function describe(d: Delimiter): string {

@@ -1,0 +1,51 @@
+/**
+ * Causeway's stated limits, in one place: the largest inputs the importers accept and the
+ * longest listings the engine produces. Past a limit the importer refuses the input at once
+ * with a message naming the limit (so the app stays responsive instead of freezing on a file
+ * it cannot draw), and the engine stops a listing and says it was cut short.
+ *
+ * Why these numbers (measured on the two-core test machine, docs/editor.md and docs/reliability.md):
+ * - the canvas was measured responsive up to 300 variables (median key-to-frame under 0.25 s) and
+ *   listing every claim of such a diagram takes 3–4 s in the worker; 2,000 variables and 10,000
+ *   arrows leave room for large protocol diagrams while keeping drawing and analysis in seconds;
+ * - a diagram file of 2,000 variables with notes is well under 1 MB, so 5 MiB of text is room
+ *   enough, and refusing bigger text early keeps a pasted or hostile file from stalling the page;
+ * - labels and titles are drawn on the canvas: 1,000 characters is a paragraph, far longer than
+ *   any readable node label; notes are free text and may be long, but not megabytes;
+ * - a data file is read as a stream into typed arrays (8 bytes per number cell); 512 MiB of CSV
+ *   is about ten million rows of a dozen columns, the most a browser tab holds comfortably, and
+ *   500 columns is far more than any diagram has variables to match them with.
+ *
+ * Pure constants: no imports, usable from the app, workers and the CLI.
+ */
+
+/** Most variables a diagram file may hold. */
+export const MAX_VARIABLES = 2_000;
+/** Most arrows a diagram file may hold. */
+export const MAX_ARROWS = 10_000;
+/** Longest diagram file, in characters of text (UTF-16 code units, about bytes for ASCII). */
+export const MAX_DIAGRAM_CHARS = 5 * 1024 * 1024;
+/** Longest variable id, label and diagram title, in characters. */
+export const MAX_LABEL_CHARS = 1_000;
+/** Longest variable note, in characters. */
+export const MAX_NOTE_CHARS = 100_000;
+
+/** Largest data (CSV) file, in bytes when read as a file, in characters when given as text. */
+export const MAX_TABLE_BYTES = 512 * 1024 * 1024;
+/** Most columns a data file may have. */
+export const MAX_TABLE_COLUMNS = 500;
+
+/** Default number of exposure–outcome paths listed, and the most that can be asked for. */
+export const DEFAULT_LISTED_PATHS = 1_000;
+export const MAX_LISTED_PATHS = 10_000;
+
+/** "5 MiB", "512 MiB", "1,000": sizes as messages state them. */
+export function describeBytes(bytes: number): string {
+	if (bytes >= 1024 * 1024) return `${Number((bytes / (1024 * 1024)).toFixed(1))} MiB`;
+	if (bytes >= 1024) return `${Number((bytes / 1024).toFixed(1))} KiB`;
+	return `${bytes} bytes`;
+}
+
+export function describeCount(n: number): string {
+	return n.toLocaleString('en-GB');
+}
