@@ -6,6 +6,7 @@
 import type { Diagram } from '../graph/diagram';
 import { compileDiagram, type CompiledDag } from '../graph/compiled';
 import { InputError } from '../graph/errors';
+import { DEFAULT_LISTED_PATHS, MAX_LISTED_PATHS } from '../limits';
 import { validateDiagram, type DiagramIssue } from '../graph/validate';
 import type {
 	AdjustmentCheck,
@@ -162,7 +163,9 @@ function reasonById(g: CompiledDag, r: NodeStatus): PathNodeReason {
 export function exposureOutcomePaths(d: Diagram, opts: QuestionOptions & { adjusted?: string[]; max?: number } = {}): PathListing {
 	const { g, X, Y } = prepare(d, opts);
 	const Z = indicesFor(g, opts.adjusted ?? d.adjusted, 'adjusted variable');
-	const listing = listPathsIdx(g, X, Y, Z, opts.max ?? 1000);
+	const max = opts.max ?? DEFAULT_LISTED_PATHS;
+	if (max > MAX_LISTED_PATHS) throw new InputError(`At most ${MAX_LISTED_PATHS} paths can be listed at once (asked for ${max})`);
+	const listing = listPathsIdx(g, X, Y, Z, max);
 	const paths: PathInfo[] = listing.paths.map((p) => ({
 		nodes: named(g, p.nodes),
 		causal: p.causal,
