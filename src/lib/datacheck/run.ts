@@ -1,0 +1,83 @@
+/**
+ * The data checks in one call — the entry point shared by the app's data worker, the
+ * `causeway test` / `causeway estimate` commands and the benchmarks, so all show the same
+ * numbers:
+ *   runDataChecks(diagram, table, options) → DataCheckReport
+ * diagram + parsed table (+ variable → column mapping and column kinds chosen by the user)
+ * → arrow checks, claim checks and crude vs adjusted estimates. Variables without a column
+ * are treated as unmeasured (and the report says so). Throws InputError for a diagram that
+ * cannot be analysed (cycle, unknown arrow ends) or a bad mapping, StatsError for a bad
+ * column kind. Cost: one test per arrow and per claim, two fits per estimate row.
+ */
+import type { Diagram } from '../graph/diagram';
+import { InputError } from '../graph/errors';
+import { validateDiagram } from '../graph/validate';
+import type { Column, Table } from '../stats';
+import { checkArrows } from './arrow-checks';
+import { checkClaims } from './claim-checks';
+import { estimateEffects } from './estimates';
+import { dataDiagram, mapVariables } from './mapping';
+import { retypeTable } from './retype';
+import type { ArrowChecks, ClaimChecks, DataCheckReport, MappingOverrides, TypeOverrides, VariableMapping } from './types';
+
+export interface DataCheckOptions {
+	/** Variable id → column name (null: leave the variable without data); the rest is matched by name. */
+	mapping?: MappingOverrides;
+	/** Column name → kind, over the detected kinds. */
+	types?: TypeOverrides;
+	/** Significance level for the verdicts (default 0.05). */
+	alpha?: number;
+	/** The planned set for the estimates (default: the diagram's). */
+	planned?: readonly string[];
+	/** Which parts to compute (default all). */
+	parts?: { arrows?: boolean; claims?: boolean; estimates?: boolean };
+	/** Include the numbers for the pictures beside each arrow check. */
+	pictures?: boolean;
+	maxClaims?: number;
+	maxSets?: number;
+}
+
+const STRUCTURAL = new Set(['duplicate-id', 'unknown-arrow-end', 'self-loop', 'cycle']);
+
+/** The table's columns by name, after the user's kind overrides. */
+export function prepareTable(table: Table, types: TypeOverrides = {}): { table: Table; columnOf: (name: string) => Column } {
+	const t = retypeTable(table, types);
+	const byName = new Map(t.columns.map((c) => [c.name, c]));
+	return {
+		table: t,
+		columnOf: (name) => {
+			const c = byName.get(name);
+			if (!c) throw new InputError(`Column "${name}" is not in the data`);
+			return c;
+		}
+	};
+}
+
+export function runDataChecks(diagram: Diagram, table: Table, options: DataCheckOptions = {}): DataCheckReport {
+	const structural = validateDiagram(diagram).find((i) => STRUCTURAL.has(i.code));
+	if (structural) throw new InputError(structural.message);
+	const { table: t, columnOf } = prepareTable(table, options.types);
+	const mapping: VariableMapping = mapVariables(
+		diagram,
+		t.columns.map((c) => c.name),
+		options.mapping
+	);
+	const seen = dataDiagram(diagram, mapping);
+	const parts = { arrows: true, claims: true, estimates: true, ...options.parts };
+	const alpha = options.alpha ?? 0.05;
+	const arrows: ArrowChecks = parts.arrows ? checkArrows(diagram, columnOf, mapping, { alpha, pictures: options.pictures }) : { alpha, checks: [], skipped: [] };
+	const claims: ClaimChecks = parts.claims
+		? checkClaims(seen, columnOf, mapping, { alpha, max: options.maxClaims })
+		: { alpha, checks: [], noTestableClaim: [], tested: 0, contradicted: 0, truncated: false };
+	const est = parts.estimates ? estimateEffects(seen, columnOf, mapping, { planned: options.planned, maxSets: options.maxSets }) : { estimates: null, message: 'Not computed.' };
+	const skippedColumns = t.skipped.map((s) => s.message);
+	return {
+		mapping,
+		arrows,
+		claims,
+		estimates: est.estimates,
+		estimatesMessage: est.message,
+		rowCount: t.rowCount,
+		notes: [...mapping.notes, ...skippedColumns]
+	};
+}
