@@ -8,7 +8,7 @@ import { readFile, writeFile } from 'node:fs/promises';
 import { parseArgs } from 'node:util';
 import type { Diagram } from '../lib/graph/diagram';
 import { InputError } from '../lib/graph/errors';
-import { readDiagramText } from '../lib/graph/read-file';
+import { readDiagramBytes, readDiagramText } from '../lib/graph/read-file';
 import { writeDiagramJson } from '../lib/graph/native-json';
 import { writeDot } from '../lib/graph/dot';
 import {
@@ -257,14 +257,15 @@ function splitList(value: string | boolean | string[] | undefined): string[] | u
 	return parts.map((p) => p.trim()).filter((p) => p.length > 0);
 }
 
-async function readInput(io: CliIo, path: string): Promise<string> {
+/** Text from the injected reader (tests), else bytes, decoded strictly by readDiagramBytes. */
+async function readInput(io: CliIo, path: string): Promise<string | Uint8Array> {
 	if (io.readFile) return io.readFile(path);
 	if (path === '-') {
 		const chunks: Buffer[] = [];
 		for await (const chunk of process.stdin) chunks.push(chunk as Buffer);
-		return Buffer.concat(chunks).toString('utf8');
+		return Buffer.concat(chunks);
 	}
-	return readFile(path, 'utf8');
+	return readFile(path);
 }
 
 function describeFsError(err: unknown, path: string): string | null {
@@ -317,13 +318,14 @@ export async function main(argv: readonly string[], io: CliIo): Promise<number> 
 			if (parsed.positionals.length === 0) throw new UsageError(`${name} needs a diagram file (usage: ${command.usage})`);
 			if (parsed.positionals.length > 1) throw new UsageError(`${name} takes one diagram file, got ${parsed.positionals.length}: ${parsed.positionals.join(' ')}`);
 			const path = parsed.positionals[0];
-			let text: string;
+			let input: string | Uint8Array;
 			try {
-				text = await readInput(io, path);
+				input = await readInput(io, path);
 			} catch (err) {
 				throw new UsageError(describeFsError(err, path) ?? `cannot read "${path}": ${(err as Error).message}`);
 			}
-			return readDiagramText(path === '-' ? 'stdin' : path, text);
+			const shown = path === '-' ? 'stdin' : path;
+			return typeof input === 'string' ? readDiagramText(shown, input) : readDiagramBytes(shown, input);
 		},
 		question() {
 			return { exposures: splitList(parsed.values.exposure), outcomes: splitList(parsed.values.outcome) };

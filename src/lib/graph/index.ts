@@ -8,5 +8,5 @@ export { validateDiagram, assertValidDiagram, findCycle } from './validate';
 export type { DiagramIssue, DiagramIssueCode, ValidateOptions } from './validate';
 export { toGraphlib, fromGraphlib, nodeKey, idOfNodeKey } from './graphlib-model';
 export type { DiagramGraph, DiagramGraphLabel, DiagramEdgeLabel } from './graphlib-model';
-export { readDiagramText, diagramFileKind } from './read-file';
+export { readDiagramText, readDiagramBytes, diagramFileKind } from './read-file';
 export type { DiagramFileKind } from './read-file';

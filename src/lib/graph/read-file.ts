@@ -6,6 +6,7 @@ import type { Diagram } from './diagram';
 import { parseDot } from './dot';
 import { InputError } from './errors';
 import { parseDiagramJson } from './native-json';
+import { decodeTextFile } from './text-decoding';
 
 export type DiagramFileKind = 'json' | 'dot';
 
@@ -52,4 +53,20 @@ export function readDiagramText(name: string, text: string): Diagram {
 		if (e instanceof InputError) throw new InputError(`${name}: ${e.message}`, e.where ? `${name}:${e.where}` : name);
 		throw e;
 	}
+}
+
+/**
+ * Reads a diagram from a file's name and bytes: decodes them (UTF-8, or UTF-16 after a
+ * byte-order mark; binary and non-UTF-8 files are refused, naming the first bad byte), then
+ * reads the text as readDiagramText does. Messages start with the file name.
+ */
+export function readDiagramBytes(name: string, bytes: Uint8Array): Diagram {
+	let text: string;
+	try {
+		text = decodeTextFile(bytes);
+	} catch (e) {
+		if (e instanceof InputError) throw new InputError(`${name}: ${e.message}`, e.where ? `${name}:${e.where}` : name);
+		throw e;
+	}
+	return readDiagramText(name, text);
 }

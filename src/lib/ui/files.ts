@@ -1,4 +1,7 @@
 /** Browser file plumbing: saving text as a download and reading a chosen or dropped file. */
+import { InputError } from '../graph/errors';
+import { decodeTextFile } from '../graph/text-decoding';
+import { describeBytes, MAX_DIAGRAM_CHARS } from '../limits';
 
 /** Offers `text` as a file download (a blob: URL, so nothing leaves the machine). */
 export function downloadText(name: string, text: string, type: string): void {
@@ -25,10 +28,20 @@ export function fileStem(title: string): string {
 	return stem || 'diagram';
 }
 
-/** Files larger than this are refused before reading: a diagram file is a few hundred kB at most. */
-export const MAX_FILE_BYTES = 5 * 1024 * 1024;
+/** Files larger than this are refused before reading (src/lib/limits.ts). */
+export const MAX_FILE_BYTES = MAX_DIAGRAM_CHARS;
 
+/**
+ * The text of a chosen or dropped diagram file. Binary files and bytes that are not UTF-8
+ * (or UTF-16 after a byte-order mark) are refused with an InputError naming the file and the
+ * first bad byte, rather than read with replacement characters.
+ */
 export async function readFileText(file: File): Promise<string> {
-	if (file.size > MAX_FILE_BYTES) throw new Error(`${file.name}: the file is ${(file.size / 1048576).toFixed(1)} MB; a diagram file is at most 5 MB`);
-	return await file.text();
+	if (file.size > MAX_FILE_BYTES) throw new InputError(`${file.name}: the file is ${describeBytes(file.size)}; a diagram file may have at most ${describeBytes(MAX_FILE_BYTES)}`);
+	try {
+		return decodeTextFile(new Uint8Array(await file.arrayBuffer()));
+	} catch (e) {
+		if (e instanceof InputError) throw new InputError(`${file.name}: ${e.message}`, e.where);
+		throw e;
+	}
 }

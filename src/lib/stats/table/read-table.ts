@@ -75,7 +75,7 @@ export async function parseTableStream(source: TableSource, options: StreamParse
 	try {
 		const total = typeof Blob !== 'undefined' && source instanceof Blob ? source.size : (options.totalBytes ?? null);
 		const reader = new TableReader(options, total);
-		const decoder = new TextDecoder('utf-8');
+		let decoder: TextDecoder | null = null;
 		let bytes = 0;
 		let characters = 0;
 		for await (const chunk of chunksOf(source)) {
@@ -84,6 +84,7 @@ export async function parseTableStream(source: TableSource, options: StreamParse
 				text = chunk;
 				bytes += chunk.length;
 			} else {
+				decoder ??= new TextDecoder(encodingFromBom(chunk));
 				text = decoder.decode(chunk, { stream: true });
 				bytes += chunk.byteLength;
 			}
@@ -91,7 +92,7 @@ export async function parseTableStream(source: TableSource, options: StreamParse
 			reader.push(text);
 			options.onProgress?.({ characters, rows: reader.rowCount, fraction: total ? Math.min(1, bytes / total) : null });
 		}
-		const tail = decoder.decode();
+		const tail = decoder?.decode() ?? '';
 		if (tail) reader.push(tail);
 		const table = reader.finish();
 		options.onProgress?.({ characters, rows: table.rowCount, fraction: 1 });
@@ -157,6 +158,8 @@ class TableReader {
 	private sampleChars = 0;
 	private sampleRecords = 0;
 	private pushedChars = 0;
+	/** Set once a chunk holds U+FFFD, the decoder's mark for bytes that were not UTF-8. */
+	private notUtf8 = false;
 
 	/** Expected input size in characters (bytes, for UTF-8 mostly ASCII), when known. */
 	private readonly expectedChars: number | null;
@@ -221,7 +224,7 @@ class TableReader {
 		let text = this.pending;
 		this.pending = '';
 		if (text.charCodeAt(0) === 0xfeff) text = text.slice(1); // byte-order mark
-		if (looksBinary(text))
+		if (looksBinary(text) && !looksMisdecoded(text))
 			throw new StatsError('The file looks like binary data (for example a spreadsheet workbook), not delimited text; save it as CSV first.');
 		if (text.trim() === '') throw new StatsError('The file is empty.');
 		const sample = text.slice(0, SAMPLE_CHARS);
@@ -249,6 +252,7 @@ class TableReader {
 	private parse(text: string, final: boolean): void {
 		const parser = this.parser as Papa.Parser;
 		const aggregate = this.pending + text;
+		if (!this.notUtf8 && aggregate.includes('\uFFFD')) this.notUtf8 = true;
 		this.pending = '';
 		const result = parser.parse(aggregate, this.baseIndex, !final) as PapaChunk;
 		if (result.errors.length > 0) {
@@ -267,6 +271,11 @@ class TableReader {
 	private record(fields: string[]): void {
 		this.fileRow++;
 		if (fields.length === 1 && fields[0].trim() === '') return; // blank line
+		if (this.notUtf8 && fields.some((f) => f.includes('\uFFFD')))
+			throw new StatsError(
+				`Row ${this.fileRow} holds bytes that are not UTF-8 text (the file may be in Latin-1 or Windows-1252); save it as CSV UTF-8 and open it again.`,
+				{ row: this.fileRow }
+			);
 		if (this.names.length === 0) {
 			this.setColumns(fields);
 			if (this.header) return;
@@ -321,6 +330,19 @@ class TableReader {
 		notes.push(this.header ? 'First row read as column names.' : 'No header row; columns named V1, V2, …');
 		return notes;
 	}
+}
+
+/** Text (not binary) whose only damage is U+FFFD from decoding non-UTF-8 bytes: no NUL, no ZIP signature. */
+function looksMisdecoded(text: string): boolean {
+	const head = text.slice(0, 4096);
+	return head.includes('\uFFFD') && !head.includes('\u0000') && !head.startsWith('PK\u0003\u0004');
+}
+
+/** The encoding a byte-order mark names (UTF-16 files from Windows tools); UTF-8 otherwise. */
+function encodingFromBom(bytes: Uint8Array): 'utf-8' | 'utf-16le' | 'utf-16be' {
+	if (bytes[0] === 0xff && bytes[1] === 0xfe) return 'utf-16le';
+	if (bytes[0] === 0xfe && bytes[1] === 0xff) return 'utf-16be';
+	return 'utf-8';
 }
 
 function tooLarge(size: number): StatsError {
