@@ -23,6 +23,8 @@ import type { Effect } from '../lib/causal/types';
 import { UsageError, type CliIo } from './io';
 import { COMMON, QUESTION, QUESTION_HELP, type Command, type Context, type Values } from './command';
 import { braces, pathText, problemText, reasonText, ROLE_TEXT } from './format';
+import { estimateCommand } from './commands/estimate';
+import { testCommand } from './commands/test';
 
 export type { CliIo } from './io';
 
@@ -218,7 +220,9 @@ OUT's extension (.json, .dot or .gv). "-o -" writes native JSON to standard outp
 			else await (ctx.io.writeFile ?? writeFile)(out, text);
 			return 0;
 		}
-	}
+	},
+	test: testCommand,
+	estimate: estimateCommand
 };
 
 function formatFromName(name: string): 'json' | 'dot' {

@@ -1,0 +1,108 @@
+/**
+ * What `causeway test` and `causeway estimate` share: reading DIAGRAM and DATA (two
+ * positionals), the --map / --type / --summary options, and running the same pipeline as
+ * the app (src/lib/datacheck). Every bad input becomes one UsageError/InputError line.
+ */
+import { createReadStream } from 'node:fs';
+import { readFile, stat } from 'node:fs/promises';
+import type { Diagram } from '../../lib/graph/diagram';
+import { InputError } from '../../lib/graph/errors';
+import { readDiagramText } from '../../lib/graph/read-file';
+import { parseTable, parseTableStream, StatsError, type ColumnKind, type TableSource } from '../../lib/stats';
+import { parseSummaryMatrix, runDataChecks, runSummaryChecks, type DataCheckOptions, type DataCheckReport } from '../../lib/datacheck';
+import { UsageError } from '../io';
+import type { Context, Options } from '../command';
+
+export const DATA_OPTIONS: Options = {
+	map: { type: 'string', multiple: true },
+	type: { type: 'string', multiple: true },
+	summary: { type: 'boolean' }
+};
+
+export const DATA_HELP = `DATA is a CSV or TSV file with a header row (delimiter, decimal comma and missing values
+"", NA, ".", NaN are detected), or with --summary a correlation or covariance matrix with n.
+Columns are matched to variables by id or label, ignoring case and punctuation; variables
+without a column are treated as unmeasured for the checks.
+  --map var=column,…      link variables to columns by hand (var= leaves it without data)
+  --type column=kind,…    column kind: binary, categorical, ordinal or continuous
+  --summary               DATA is a summary matrix (see docs/data.md)`;
+
+const KINDS = new Set<ColumnKind>(['binary', 'categorical', 'ordinal', 'continuous']);
+
+function pairs(ctx: Context, name: string): [string, string][] {
+	return (ctx.list(name) ?? []).map((item) => {
+		const eq = item.indexOf('=');
+		if (eq <= 0) throw new UsageError(`--${name} takes name=value pairs, not "${item}"`);
+		return [item.slice(0, eq).trim(), item.slice(eq + 1).trim()];
+	});
+}
+
+function describeFsError(err: unknown, path: string): string {
+	const code = (err as { code?: unknown } | null)?.code;
+	if (code === 'ENOENT') return `cannot read "${path}": no such file`;
+	if (code === 'EISDIR') return `cannot read "${path}": it is a folder`;
+	if (code === 'EACCES') return `cannot read "${path}": permission denied`;
+	return `cannot read "${path}": ${(err as Error)?.message ?? String(err)}`;
+}
+
+async function readText(ctx: Context, path: string): Promise<string> {
+	try {
+		return ctx.io.readFile ? await ctx.io.readFile(path) : await readFile(path, 'utf8');
+	} catch (err) {
+		throw new UsageError(describeFsError(err, path));
+	}
+}
+
+/** Streams a file into typed columns without holding its text (files can be large). */
+async function streamFile(path: string): Promise<TableSource> {
+	try {
+		const s = await stat(path);
+		if (s.isDirectory()) throw Object.assign(new Error('folder'), { code: 'EISDIR' });
+	} catch (err) {
+		throw new UsageError(describeFsError(err, path));
+	}
+	return createReadStream(path) as unknown as AsyncIterable<Uint8Array>;
+}
+
+export interface DataInput {
+	diagram: Diagram;
+	dataName: string;
+	report: DataCheckReport;
+}
+
+/** Reads both files and runs the checks; `extra` adds the command's own options. */
+export async function runOnData(ctx: Context, usage: string, extra: Partial<DataCheckOptions> = {}): Promise<DataInput> {
+	if (ctx.positionals.length !== 2) throw new UsageError(`expected a diagram file and a data file (usage: ${usage})`);
+	const [diagramPath, dataPath] = ctx.positionals;
+	let diagram = readDiagramText(diagramPath, await readText(ctx, diagramPath));
+	const q = ctx.question();
+	diagram = { ...diagram, exposures: q.exposures ?? diagram.exposures, outcomes: q.outcomes ?? diagram.outcomes };
+	const mapping: Record<string, string | null> = {};
+	for (const [v, c] of pairs(ctx, 'map')) mapping[v] = c === '' ? null : c;
+	const types: Record<string, ColumnKind> = {};
+	for (const [c, k] of pairs(ctx, 'type')) {
+		if (!KINDS.has(k as ColumnKind)) throw new UsageError(`--type ${c}=${k}: the kind must be binary, categorical, ordinal or continuous`);
+		types[c] = k as ColumnKind;
+	}
+	const where = (e: StatsError | { message: string }) => `${dataPath}: ${e.message}`;
+	try {
+		if (ctx.values.summary === true) {
+			const summary = parseSummaryMatrix(await readText(ctx, dataPath));
+			return { diagram, dataName: dataPath, report: runSummaryChecks(diagram, summary, { mapping, ...extra }) };
+		}
+		const parsed = ctx.io.readFile ? parseTable(await readText(ctx, dataPath)) : await parseTableStream(await streamFile(dataPath));
+		if (!parsed.ok) throw new InputError(where(parsed.error));
+		return { diagram, dataName: dataPath, report: runDataChecks(diagram, parsed.table, { mapping, types, ...extra }) };
+	} catch (e) {
+		if (e instanceof StatsError) throw new InputError(where(e));
+		throw e;
+	}
+}
+
+/** The report as JSON: pictures are an app matter and left out. */
+export function reportJson(report: DataCheckReport): DataCheckReport {
+	return { ...report, arrows: { ...report.arrows, checks: report.arrows.checks.map(({ picture: _p, ...rest }) => rest) } };
+}
+
+export const CAUTION =
+	'A diagram encodes assumptions; data can contradict a diagram but never prove it. Review by a qualified epidemiologist or statistician is advised.';
