@@ -367,6 +367,8 @@ function dotSyntaxError(e: unknown, at: At): InputError {
 			? (cause.location.start as { offset?: unknown }).offset
 			: undefined;
 	const message = e instanceof Error ? e.message : String(e);
+	// The grammar is recursive: subgraphs or groups nested thousands deep overflow its stack.
+	if (e instanceof RangeError || cause instanceof RangeError) return new InputError('The DOT file is nested too deeply to read (subgraphs or { } groups inside one another)');
 	if (/exceeds maximum|exceeded/i.test(message)) return new InputError('The DOT file is too large to read');
 	if (typeof offset !== 'number') return new InputError(`Invalid DOT: ${message}`);
 	const p = at(offset);

@@ -61,7 +61,10 @@ function countsPerRecord(sample: string, maxLines: number): Record<Delimiter, nu
 			if (c === ',' || c === ';' || c === '\t') current[c]++;
 		}
 	}
-	// The last record counts only when the sample is the whole file (it may be cut short).
+	// The last record counts only when the sample is the whole file (it may be cut short),
+	// except when it is the only one: a one-line file ("age,bmi" with no line break) is
+	// judged by that line rather than by no evidence at all (which chose tab).
+	if (counts[','].length === 0) push();
 	return counts;
 }
 
