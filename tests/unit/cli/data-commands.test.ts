@@ -1,0 +1,138 @@
+// `causeway test` and `causeway estimate`: the same numbers as the pipeline (and so as the
+// app), human-readable and --json, exit 0 when done and 2 with one stderr line on bad input.
+import { readFileSync } from 'node:fs';
+import { describe, expect, it } from 'vitest';
+import { main } from '../../../src/cli/main';
+import { runDataChecks } from '../../../src/lib/datacheck';
+import { parseDiagramJson } from '../../../src/lib/graph/native-json';
+import { parseTable } from '../../../src/lib/stats';
+
+const DEMO = 'static/demo/cycling-hypertension.causeway.json';
+const DEMO_CSV = 'static/demo/cycling-hypertension.csv';
+const MTCARS = 'tests/fixtures/datacheck/mtcars.causeway.json';
+const MTCARS_CSV = 'tests/fixtures/datacheck/mtcars.csv';
+const MTCARS_COV = 'tests/fixtures/datacheck/mtcars-covariance.csv';
+
+async function run(args: string[], files: Record<string, string> = {}) {
+	let out = '';
+	let err = '';
+	const code = await main(args, {
+		stdout: (s) => (out += s),
+		stderr: (s) => (err += s),
+		readFile: async (p) => {
+			if (p in files) return files[p];
+			return readFileSync(p, 'utf8');
+		}
+	});
+	return { code, out, err };
+}
+
+function pipeline(diagramPath: string, csvPath: string) {
+	const t = parseTable(readFileSync(csvPath, 'utf8'));
+	if (!t.ok) throw new Error(t.error.message);
+	return runDataChecks(parseDiagramJson(readFileSync(diagramPath, 'utf8')), t.table);
+}
+
+describe('causeway test', () => {
+	it('--json gives the pipeline report (arrow and claim checks), exit 0', async () => {
+		const r = await run(['test', MTCARS, MTCARS_CSV, '--json']);
+		expect(r.code).toBe(0);
+		expect(r.err).toBe('');
+		const json = JSON.parse(r.out);
+		const direct = pipeline(MTCARS, MTCARS_CSV);
+		expect(json.arrows.checks.map((c: { main: { pValue: number } }) => c.main.pValue)).toEqual(direct.arrows.checks.map((c) => c.main!.pValue));
+		expect(json.claims.checks.map((c: { pHolm: number }) => c.pHolm)).toEqual(direct.claims.checks.map((c) => c.pHolm));
+		expect(json.estimates).toBeUndefined();
+	});
+
+	it('prints arrow checks and claims with Holm and BH, and the caution', async () => {
+		const r = await run(['test', DEMO, DEMO_CSV]);
+		expect(r.code).toBe(0);
+		expect(r.out).toMatch(/cycling → fitness\s+supported\s+point-biserial r = 0\.567/);
+		expect(r.out).toMatch(/health_consciousness → cycling: not checked \(no data for "health_consciousness"\)/);
+		expect(r.out).toMatch(/Claim checks: 46 tested, 0 contradicted/);
+		expect(r.out).toMatch(/Holm [\d.]+, BH [\d.]+, n = 5000/);
+		expect(r.out).toMatch(/never prove it/);
+	});
+
+	it('--map leaves a variable without data, and the output says it is treated as unmeasured', async () => {
+		const r = await run(['test', MTCARS, MTCARS_CSV, '--map', 'disp=']);
+		expect(r.code).toBe(0);
+		expect(r.out).toMatch(/No column for "disp": treated as unmeasured/);
+	});
+
+	it('--summary reads a covariance matrix', async () => {
+		const r = await run(['test', MTCARS, MTCARS_COV, '--summary', '--json']);
+		expect(r.code).toBe(0);
+		expect(JSON.parse(r.out).rowCount).toBe(32);
+	});
+});
+
+describe('causeway estimate', () => {
+	it('--json equals the pipeline estimates; --adjust replaces the planned set', async () => {
+		const r = await run(['estimate', DEMO, DEMO_CSV, '--json', '--adjust', 'age,income,diet,app_panel']);
+		expect(r.code).toBe(0);
+		const e = JSON.parse(r.out).estimates;
+		const planned = e.rows.find((x: { roles: string[] }) => x.roles.includes('planned'));
+		expect(planned.adjustedFor).toEqual(['age', 'app_panel', 'diet', 'income']);
+		expect(planned.sufficient).toBe(false);
+		const direct = pipeline(DEMO, DEMO_CSV).estimates!;
+		expect(e.rows[0].estimate).toBe(direct.rows[0].estimate);
+	});
+
+	it('prints crude and adjusted odds ratios, the 10 % marker as common practice, and the E-value', async () => {
+		const r = await run(['estimate', DEMO, DEMO_CSV]);
+		expect(r.code).toBe(0);
+		expect(r.out).toMatch(/Effect of cycling on hypertension: odds ratio \(logistic regression\)/);
+		expect(r.out).toMatch(/Crude \(no adjustment\)\s+0\.474 \(0\.411 to 0\.546\), n = 5000/);
+		expect(r.out).toMatch(/common-practice marker/);
+		expect(r.out).toMatch(/E-value of the planned estimate: 1\.88/);
+	});
+
+	it('--exposure and --outcome override the file', async () => {
+		const r = await run(['estimate', MTCARS, MTCARS_CSV, '--exposure', 'hp', '--outcome', 'mpg', '--json']);
+		expect(r.code).toBe(0);
+		expect(JSON.parse(r.out).estimates.exposure).toBe('hp');
+	});
+});
+
+describe('bad input: one line on stderr, exit 2', () => {
+	const cases: [string, string, RegExp][] = [
+		['ragged rows', 'cyl,disp\n4,100\n6,200,9\n', /bad\.csv: Row 3 has 3 fields but the header has 2/],
+		['text in a numeric column', 'cyl,disp\n4,100\n6,200\n8,lots\n4,120\n', /Row 4, column 'disp': 'lots' is not a number/],
+		['no data rows', 'cyl,disp\n', /header row but no data rows/],
+		['binary file', '\u0000\u0001PK\u0003\u0004\u0000\u0000garbage', /binary data/],
+		['duplicate headers', 'cyl,cyl\n4,6\n', /Duplicate column name 'cyl'/]
+	];
+	for (const [what, text, message] of cases)
+		it(what, async () => {
+			for (const cmd of ['test', 'estimate']) {
+				const r = await run([cmd, MTCARS, 'bad.csv'], { 'bad.csv': text });
+				expect(r.code).toBe(2);
+				expect(r.out).toBe('');
+				expect(r.err).toMatch(message);
+				expect(r.err.trim().split('\n')).toHaveLength(1);
+			}
+		});
+
+	it('a missing data file, a wrong --type, a missing argument', async () => {
+		const missing = await run(['test', MTCARS, 'nowhere.csv'], {});
+		expect(missing.code).toBe(2);
+		expect(missing.err).toMatch(/cannot read "nowhere.csv": no such file/);
+		const kind = await run(['test', MTCARS, MTCARS_CSV, '--type', 'cyl=nominal']);
+		expect(kind.err).toMatch(/binary, categorical, ordinal or continuous/);
+		const one = await run(['estimate', MTCARS]);
+		expect(one.code).toBe(2);
+		expect(one.err).toMatch(/expected a diagram file and a data file/);
+	});
+
+	it('the built command streams a file from disk and keeps to one line on bad input', async () => {
+		const { spawnSync } = await import('node:child_process');
+		const ok = spawnSync('node', ['bin/causeway.js', 'estimate', MTCARS, MTCARS_CSV, '--json'], { encoding: 'utf8' });
+		expect(ok.status).toBe(0);
+		expect(JSON.parse(ok.stdout).estimates.rows.length).toBeGreaterThan(1);
+		const bad = spawnSync('node', ['bin/causeway.js', 'test', MTCARS, 'package.json'], { encoding: 'utf8' });
+		expect(bad.status).toBe(2);
+		expect(bad.stderr.trim().split('\n')).toHaveLength(1);
+	});
+});
