@@ -18,6 +18,8 @@ export interface ArrowCheckOptions {
 	alpha?: number;
 	/** Add the numbers for the small pictures (the app wants them, the CLI does not). */
 	pictures?: boolean;
+	/** Called after each arrow with (done, total). */
+	onProgress?: (done: number, total: number) => void;
 }
 
 /**
@@ -45,13 +47,14 @@ export function checkArrows(diagram: Diagram, columnOf: (name: string) => Column
 	const alpha = options.alpha ?? DEFAULT_ALPHA;
 	const checks: ArrowCheck[] = [];
 	const skipped: ArrowChecks['skipped'] = [];
-	for (const a of diagram.arrows) {
+	diagram.arrows.forEach((a, index) => {
+		options.onProgress?.(index, diagram.arrows.length);
 		const cf = mapping.columns[a.from];
 		const ct = mapping.columns[a.to];
 		if (cf === undefined || ct === undefined) {
 			const missing = [a.from, a.to].filter((id) => mapping.columns[id] === undefined);
 			skipped.push({ from: a.from, to: a.to, why: `no data for ${missing.map((id) => `"${id}"`).join(' and ')}` });
-			continue;
+			return;
 		}
 		const tail = columnOf(cf);
 		const head = columnOf(ct);
@@ -73,6 +76,6 @@ export function checkArrows(diagram: Diagram, columnOf: (name: string) => Column
 			if (!(e instanceof StatsError)) throw e;
 			checks.push({ ...base, support: 'untested', main: null, others: [], strength: null, strengthName: null, message: e.message });
 		}
-	}
+	});
 	return { alpha, checks, skipped };
 }

@@ -19,6 +19,8 @@ export interface ClaimCheckOptions {
 	alpha?: number;
 	/** Test at most this many claims (the listing says it was cut). */
 	max?: number;
+	/** Called before each claim's test with (done, total). */
+	onProgress?: (done: number, total: number) => void;
 }
 
 /** Arrows between a and b that keep the diagram acyclic. O(n + m) each. */
@@ -36,11 +38,13 @@ export function claimFamily(
 	test: (a: string, b: string, given: string[]) => Pick<ClaimCheck, 'main' | 'others'>,
 	diagram: Diagram,
 	alpha: number,
-	truncated: boolean
+	truncated: boolean,
+	onProgress?: (done: number, total: number) => void
 ): ClaimChecks {
 	const noTestableClaim: { a: string; b: string }[] = [];
 	const checks: ClaimCheck[] = [];
-	for (const c of claims) {
+	for (const [index, c] of claims.entries()) {
+		onProgress?.(index, claims.length);
 		if (c.given === null) {
 			noTestableClaim.push({ a: c.a, b: c.b });
 			continue;
@@ -95,6 +99,7 @@ export function checkClaims(seen: Diagram, columnOf: (name: string) => Column, m
 		},
 		seen,
 		alpha,
-		truncated
+		truncated,
+		options.onProgress
 	);
 }

@@ -5,7 +5,7 @@
  * correlation or covariance matrix (parseSummaryMatrix).
  */
 export { runDataChecks, prepareTable } from './run';
-export type { DataCheckOptions } from './run';
+export type { DataCheckOptions, DataCheckProgress } from './run';
 export { runSummaryChecks, parseSummaryMatrix } from './summary';
 export type { SummaryCheckOptions } from './summary';
 export { mapVariables, dataDiagram } from './mapping';

@@ -35,6 +35,13 @@ export interface DataCheckOptions {
 	pictures?: boolean;
 	maxClaims?: number;
 	maxSets?: number;
+	/** Progress by stage: arrows, claims, then estimates; `fraction` of that stage done. */
+	onProgress?: (p: DataCheckProgress) => void;
+}
+
+export interface DataCheckProgress {
+	stage: 'arrows' | 'claims' | 'estimates';
+	fraction: number;
 }
 
 const STRUCTURAL = new Set(['duplicate-id', 'unknown-arrow-end', 'self-loop', 'cycle']);
@@ -65,10 +72,11 @@ export function runDataChecks(diagram: Diagram, table: Table, options: DataCheck
 	const seen = dataDiagram(diagram, mapping);
 	const parts = { arrows: true, claims: true, estimates: true, ...options.parts };
 	const alpha = options.alpha ?? 0.05;
-	const arrows: ArrowChecks = parts.arrows ? checkArrows(diagram, columnOf, mapping, { alpha, pictures: options.pictures }) : { alpha, checks: [], skipped: [] };
+	const arrows: ArrowChecks = parts.arrows ? checkArrows(diagram, columnOf, mapping, { alpha, pictures: options.pictures, onProgress: (d, t) => options.onProgress?.({ stage: 'arrows', fraction: d / t }) }) : { alpha, checks: [], skipped: [] };
 	const claims: ClaimChecks = parts.claims
-		? checkClaims(seen, columnOf, mapping, { alpha, max: options.maxClaims })
+		? checkClaims(seen, columnOf, mapping, { alpha, max: options.maxClaims, onProgress: (d, t) => options.onProgress?.({ stage: 'claims', fraction: d / t }) })
 		: { alpha, checks: [], noTestableClaim: [], tested: 0, contradicted: 0, truncated: false };
+	if (parts.estimates) options.onProgress?.({ stage: 'estimates', fraction: 0 });
 	const est = parts.estimates ? estimateEffects(seen, columnOf, mapping, { planned: options.planned, maxSets: options.maxSets }) : { estimates: null, message: 'Not computed.' };
 	const skippedColumns = t.skipped.map((s) => s.message);
 	return {
