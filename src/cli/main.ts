@@ -25,6 +25,7 @@ import { COMMON, QUESTION, QUESTION_HELP, type Command, type Context, type Value
 import { braces, pathText, problemText, reasonText, ROLE_TEXT } from './format';
 import { estimateCommand } from './commands/estimate';
 import { testCommand } from './commands/test';
+import { exportCommand } from './commands/export';
 
 export type { CliIo } from './io';
 
@@ -222,7 +223,8 @@ OUT's extension (.json, .dot or .gv). "-o -" writes native JSON to standard outp
 		}
 	},
 	test: testCommand,
-	estimate: estimateCommand
+	estimate: estimateCommand,
+	export: exportCommand
 };
 
 function formatFromName(name: string): 'json' | 'dot' {
