@@ -31,7 +31,7 @@ export interface QuestionOptions {
 	outcomes?: string[];
 }
 
-interface Prepared {
+export interface Prepared {
 	g: CompiledDag;
 	X: number[];
 	Y: number[];
@@ -68,7 +68,7 @@ function compileChecked(d: Diagram): CompiledDag {
 
 const STRUCTURAL = new Set<DiagramIssue['code']>(['duplicate-id', 'unknown-arrow-end', 'self-loop', 'cycle']);
 
-function indicesFor(g: CompiledDag, ids: readonly string[], role: string): number[] {
+export function indicesFor(g: CompiledDag, ids: readonly string[], role: string): number[] {
 	const seen = new Set<string>();
 	const out: number[] = [];
 	for (const id of ids) {
@@ -81,7 +81,7 @@ function indicesFor(g: CompiledDag, ids: readonly string[], role: string): numbe
 	return out;
 }
 
-function prepare(d: Diagram, opts: QuestionOptions = {}): Prepared {
+export function prepare(d: Diagram, opts: QuestionOptions = {}): Prepared {
 	const g = compileChecked(d);
 	const exposures = opts.exposures ?? d.exposures;
 	const outcomes = opts.outcomes ?? d.outcomes;
@@ -212,3 +212,6 @@ export function analyse(d: Diagram, opts: { maxSets?: number; maxPaths?: number;
 		claims
 	};
 }
+
+// Reviewer tools (review of a stated set, robustness, efficiency, instruments, comparison).
+export { reviewAdjustment, planRobustness, setsRobustToAdditions, efficiencyAdvice, conditionalInstruments, compareDiagrams } from './reviewer';

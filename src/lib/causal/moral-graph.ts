@@ -22,19 +22,22 @@ export interface ContractedMoralGraph {
 
 /**
  * Builds the contracted moral graph of G[An(X ∪ Y)]. `allowed` marks the variables a separator
- * may use; the others (and X, Y) are never removable.
+ * may use; the others (and X, Y) are never removable. `alsoAncestorsOf` widens the ancestral
+ * set to An(X ∪ Y ∪ I), as needed for separators that must contain I (van der Zander et al.
+ * 2019, Lemma 3.4 with I ≠ ∅).
  */
 export function contractedMoralGraph(
 	g: CompiledDag,
 	X: readonly number[],
 	Y: readonly number[],
-	allowed: Mask
+	allowed: Mask,
+	alsoAncestorsOf: readonly number[] = []
 ): ContractedMoralGraph {
 	const n = g.n;
 	const source = n;
 	const sink = n + 1;
 	const size = n + 2;
-	const anc = ancestorsOf(g, [...X, ...Y]);
+	const anc = ancestorsOf(g, [...X, ...Y, ...alsoAncestorsOf]);
 	const image = new Int32Array(n);
 	for (let v = 0; v < n; v++) image[v] = v;
 	for (const x of X) image[x] = source;
