@@ -155,3 +155,33 @@ export function syncElements(
 	});
 	return structural;
 }
+
+/** What the data say about an arrow (src/lib/datacheck ArrowSupport), shown on the canvas. */
+export type ArrowDataMark = 'supported' | 'weak' | 'absent' | 'untested';
+
+const DATA_CLASSES = 'data-supported data-weak data-absent data-untested';
+
+/** The short text tag beside a checked arrow: the non-colour cue of its data verdict. */
+export const DATA_TAG: Record<ArrowDataMark, string> = {
+	supported: 'data ✓',
+	weak: 'data: weak',
+	absent: 'data: none found',
+	untested: 'data: not tested'
+};
+
+/**
+ * Puts the data verdicts on the arrows (class data-<verdict> and a `dataTag` label), and
+ * takes them off arrows no longer checked. Touches only arrows whose verdict changed. O(m).
+ */
+export function applyArrowMarks(cy: Core, marks: ReadonlyMap<string, ArrowDataMark>): void {
+	cy.batch(() => {
+		cy.edges('.data-supported, .data-weak, .data-absent, .data-untested').forEach((e) => {
+			if (!marks.has(e.id())) e.removeClass(DATA_CLASSES).removeData('dataTag');
+		});
+		for (const [key, mark] of marks) {
+			const e = cy.getElementById(key);
+			if (e.empty() || e.hasClass(`data-${mark}`)) continue;
+			e.removeClass(DATA_CLASSES).addClass(`data-${mark}`).data('dataTag', DATA_TAG[mark]);
+		}
+	});
+}

@@ -83,6 +83,24 @@ export const canvasStyle: StylesheetJson = [
 		selector: 'edge:selected',
 		style: { 'underlay-color': COLOURS.selection, 'underlay-opacity': 0.6, 'underlay-padding': 7, width: 3 }
 	},
+	// Data verdicts on arrows (Data section): a text tag always, a dashed line when no
+	// association was found. Before the highlights, which take precedence while shown.
+	{
+		selector: 'edge.data-supported, edge.data-weak, edge.data-absent, edge.data-untested',
+		style: {
+			label: 'data(dataTag)',
+			'font-family': FONT_FAMILY,
+			'font-size': 11,
+			color: COLOURS.ink,
+			'text-background-color': COLOURS.paper,
+			'text-background-opacity': 0.9,
+			'text-background-padding': '2px',
+			'text-events': 'no'
+		}
+	},
+	{ selector: 'edge.data-supported', style: { color: '#005a8c' } },
+	{ selector: 'edge.data-absent', style: { 'line-style': 'dashed', 'line-dash-pattern': [5, 4], color: '#8a3a00' } },
+	{ selector: 'edge.data-untested', style: { color: COLOURS.unmeasuredInk } },
 	// Highlights from the analysis column.
 	{ selector: '.faded', style: { opacity: 0.28 } },
 	{
