@@ -17,3 +17,5 @@ export { pictureData } from './pictures';
 export { formatP, pText, formatNumber, formatCi, formatPercent, testSummary } from './format';
 export type { PictureData, BarsPicture, ScatterPicture, BoxPicture, BoxStats } from './pictures';
 export type * from './types';
+export { describeTable, columnInfo } from './table-info';
+export type { ColumnInfo, TableInfo } from './table-info';

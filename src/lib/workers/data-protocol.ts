@@ -1,0 +1,20 @@
+/** Messages between the app and the data worker. Plain data (structured clone). */
+import type { Diagram } from '../graph/diagram';
+import type { ParseProgress, TableError } from '../stats';
+import type { DataCheckProgress, DataCheckReport, MappingOverrides, TableInfo, TypeOverrides } from '../datacheck';
+
+export type { ColumnInfo, TableInfo } from '../datacheck';
+
+export type DataSource = { kind: 'file'; file: File } | { kind: 'url'; url: string; name: string };
+
+export type DataRequest =
+	| { id: number; kind: 'load'; source: DataSource }
+	| { id: number; kind: 'check'; diagram: Diagram; mapping: MappingOverrides; types: TypeOverrides; planned?: string[] };
+
+export type DataReply =
+	| { id: number; kind: 'load-progress'; progress: ParseProgress }
+	| { id: number; kind: 'loaded'; info: TableInfo; ms: number }
+	| { id: number; kind: 'load-failed'; error: TableError }
+	| { id: number; kind: 'check-progress'; progress: DataCheckProgress }
+	| { id: number; kind: 'report'; report: DataCheckReport; ms: number }
+	| { id: number; kind: 'check-failed'; message: string };
