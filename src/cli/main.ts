@@ -26,6 +26,7 @@ import { braces, pathText, problemText, reasonText, ROLE_TEXT } from './format';
 import { estimateCommand } from './commands/estimate';
 import { testCommand } from './commands/test';
 import { exportCommand } from './commands/export';
+import { review, robust, diff, instruments } from './commands/reviewer';
 
 export type { CliIo } from './io';
 
@@ -224,7 +225,8 @@ OUT's extension (.json, .dot or .gv). "-o -" writes native JSON to standard outp
 	},
 	test: testCommand,
 	estimate: estimateCommand,
-	export: exportCommand
+	export: exportCommand,
+	review, robust, diff, instruments
 };
 
 function formatFromName(name: string): 'json' | 'dot' {

@@ -1,0 +1,26 @@
+/** `causeway instruments`: conditional instruments for the exposure, with their conditioning sets. */
+import { conditionalInstruments } from '../../lib/causal/analysis';
+import { QUESTION, QUESTION_HELP, type Command } from '../command';
+
+export const instruments: Command = {
+	summary: 'list conditional instruments for the exposure with their conditioning sets',
+	usage: 'causeway instruments DIAGRAM [--exposure x] [--outcome y] [--json]',
+	details: `Lists the measured variables that are instruments for the total effect of the (single)
+exposure on the (single) outcome, each with a conditioning set: ancestral instruments found
+with the nearest separator (van der Zander, Textor & Liśkiewicz, IJCAI 2015). An instrument
+is an alternative to adjustment when confounding cannot be blocked; its validity rests on
+the diagram, like everything else here.
+${QUESTION_HELP}`,
+	options: { ...QUESTION },
+	async run(ctx) {
+		const d = await ctx.diagram();
+		const list = conditionalInstruments(d, ctx.question());
+		if (ctx.json) {
+			ctx.printJson({ instruments: list });
+			return 0;
+		}
+		if (list.length === 0) ctx.print('No measured variable is an instrument for this question under the diagram.');
+		for (const i of list) ctx.print(i.given.length === 0 ? `${i.variable} (no conditioning needed)` : `${i.variable} given ${i.given.join(', ')}`);
+		return 0;
+	}
+};

@@ -1,0 +1,47 @@
+/** `causeway robust`: which single change to the diagram would break the planned set. */
+import { planRobustness, setsRobustToAdditions } from '../../lib/causal/analysis';
+import { setWords, weaknessWords } from '../../lib/causal/review-words';
+import { QUESTION, QUESTION_HELP, type Command } from '../command';
+
+const id = (x: string) => x;
+
+export const robust: Command = {
+	summary: 'stress-test the planned set against single changes to the diagram (exit 1 when the set is not sufficient to begin with)',
+	usage: 'causeway robust DIAGRAM [--adjust a,b] [--max N] [--exposure …] [--outcome …] [--json]',
+	details: `Lists every single change to the assumptions that would make the planned set (--adjust,
+else the file's) insufficient: adding one missing arrow (keeping the diagram acyclic),
+reversing one arrow, or one planned variable turning out unmeasured. Deleting an arrow never
+breaks a sufficient set, so none is listed. Changes are ranked by the length of the path they
+would open (shorter first — a rule of thumb: short paths tend to carry more bias), measurement
+changes last. Also lists the sufficient sets that survive every single added arrow, if any.
+Exit status 1 when the planned set is not sufficient to begin with.
+  --adjust a,b   the planned set, replacing the file's (use --adjust "" for none)
+  --max N        print at most N changes (default 25; --json prints all)
+${QUESTION_HELP}`,
+	options: { ...QUESTION, adjust: { type: 'string', multiple: true }, max: { type: 'string' } },
+	async run(ctx) {
+		const d = await ctx.diagram();
+		const max = ctx.count('max');
+		const r = planRobustness(d, { ...ctx.question(), adjusted: ctx.list('adjust'), maxWitnesses: ctx.json ? max : (max ?? 25) });
+		const robustSets = setsRobustToAdditions(d, ctx.question());
+		if (ctx.json) {
+			ctx.printJson({ ...r, weaknesses: max === undefined ? r.weaknesses : r.weaknesses.slice(0, max), robustSets });
+			return r.applicable ? 0 : 1;
+		}
+		if (!r.applicable) {
+			ctx.print(`Adjusting for ${setWords(r.adjusted, id)} is not sufficient to begin with; run "causeway review" first.`);
+			return 1;
+		}
+		const t = r.tried;
+		ctx.print(`Planned set ${setWords(r.adjusted, id)}: tried ${t.additions} added arrows, ${t.reversals} reversals and ${t.unmeasured} unmeasured variables (${t.deletions} deletions cannot break it).`);
+		const structural = r.weaknesses.filter((w) => w.failure !== 'unmeasured').length;
+		ctx.print(structural === 0 ? 'No single added or reversed arrow breaks it.' : `${structural} single arrow change(s) would break it, most direct first:`);
+		const shown = r.weaknesses.slice(0, max ?? 25);
+		for (const w of shown) ctx.print(`  - ${weaknessWords(w, d.arrows, id)}`);
+		if (shown.length < r.weaknesses.length) ctx.print(`  … ${r.weaknesses.length - shown.length} more (--max, or --json for all)`);
+		const how = robustSets.exhaustive ? 'among all sets' : `among ${robustSets.tried} candidate sets (minimal, optimal, largest)`;
+		if (robustSets.sets.length === 0) ctx.print(`No sufficient set survives every single added arrow (${how}).`);
+		else ctx.print(`Sufficient sets that survive every single added arrow (${how}): ${robustSets.sets.map((s) => setWords(s, id)).join(', ')}`);
+		return 0;
+	}
+};
