@@ -64,7 +64,7 @@ export const exportCommand: Command = {
   arrows-csv     from,to,from_label,to_label
   sets-csv       the minimal sufficient sets, smallest, optimal and planned set
   sets-md        the same as a Markdown table
-  report-md      the protocol report in Markdown (figure embedded, or --figure-file NAME)
+  report-md      the protocol report in Markdown (figure embedded as an SVG data URI)
   report-html    the protocol report as one self-contained HTML file (prints to PDF)
   --format F         which export; when left out, taken from OUT's extension
   -o, --output OUT   the file to write
@@ -73,7 +73,8 @@ export const exportCommand: Command = {
   --standalone       tikz: a complete LaTeX document
   --draft FILE       reports: the draft paragraph to print (text file) instead of the generated one
   --results FILE     reports: data checks and estimates (JSON, see docs/export.md)
-  --figure-file NAME report-md: link the figure to NAME instead of embedding it
+  --figure-file NAME report-md: write the figure to NAME beside OUT and link it, instead of
+                     embedding it (for renderers that refuse SVG data URIs, e.g. GitHub)
   --date YYYY-MM-DD  reports: the date printed (default today)
 ${QUESTION_HELP}`,
 	options: {
@@ -146,8 +147,15 @@ ${QUESTION_HELP}`,
 			date,
 			figureFile: typeof ctx.values['figure-file'] === 'string' ? ctx.values['figure-file'] : undefined
 		});
+		const write = ctx.io.writeFile ?? writeFile;
 		if (out === '-') ctx.io.stdout(text);
-		else await (ctx.io.writeFile ?? writeFile)(out, text);
+		else await write(out, text);
+		// The linked figure goes beside the report (or into the working folder for stdout).
+		const figureFile = ctx.values['figure-file'];
+		if (format === 'report-md' && typeof figureFile === 'string') {
+			const folder = out === '-' ? '' : out.replace(/[^/\\]*$/, '');
+			await write(folder + figureFile, exportText('svg', d, { analysis, mono: ctx.values.mono === true, legend: true }));
+		}
 		return 0;
 	}
 };

@@ -89,7 +89,12 @@ export function criticalAbsentArrows(d: Diagram, sets: AdjustmentSets, plannedVa
 			items.push({ from: g.ids[u], to: g.ids[v], breaksPlanned, breaksSets: brokenSets, plannedProblems: [] });
 		}
 	}
-	items.sort((a, b) => Number(b.breaksPlanned) - Number(a.breaksPlanned) || b.breaksSets.length - a.breaksSets.length);
+	// Ties: arrows into the exposure or the outcome first (the classic "no unmeasured common
+	// cause" assumptions), then diagram order (the sort is stable).
+	const intoQuestion = (x: CriticalAbsentArrow) => Number(sets.exposures.includes(x.to) || sets.outcomes.includes(x.to));
+	items.sort(
+		(a, b) => Number(b.breaksPlanned) - Number(a.breaksPlanned) || b.breaksSets.length - a.breaksSets.length || intoQuestion(b) - intoQuestion(a)
+	);
 	return { items, checked: examined, candidates, truncated };
 }
 

@@ -56,6 +56,10 @@ export function escapeLatex(text: string): string {
  * line of its own inside a list item. Line breaks become spaces. O(length).
  */
 export function escapeMarkdown(text: string): string {
-	const inline = text.replace(/[\r\n]+/g, ' ').replace(/[\\`*_[\]<>|~&]/g, (c) => `\\${c}`);
-	return inline.replace(/^(\s*)([#>+=-])/, '$1\\$2').replace(/^(\s*\d+)([.)])/, '$1\\$2');
+	return escapeMarkdownInline(text).replace(/^(\s*)([#>+=-])/, '$1\\$2').replace(/^(\s*\d+)([.)])/, '$1\\$2');
+}
+
+/** escapeMarkdown without the leading block-marker rule: for table cells, which hold inline text only. */
+export function escapeMarkdownInline(text: string): string {
+	return text.replace(/[\r\n]+/g, ' ').replace(/[\\`*_[\]<>|~&]/g, (c) => `\\${c}`);
 }

@@ -5,7 +5,7 @@
  * separate SVG file instead. O(size of the report).
  */
 import { bytesToBase64 } from './base64';
-import { escapeMarkdown } from './escape';
+import { escapeMarkdown, escapeMarkdownInline } from './escape';
 import type { Block, ReportModel } from './report';
 
 export interface MarkdownOptions {
@@ -13,7 +13,7 @@ export interface MarkdownOptions {
 	figureFile?: string;
 }
 
-const cell = (text: string) => escapeMarkdown(text) || ' ';
+const cell = (text: string) => escapeMarkdownInline(text) || ' ';
 
 function blockMd(b: Block, opts: MarkdownOptions): string {
 	switch (b.kind) {

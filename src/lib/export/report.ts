@@ -10,7 +10,7 @@ import type { Diagram } from '../graph/diagram';
 import { validateDiagram } from '../graph/validate';
 import { adjustmentSets, checkAdjustment, variableRoles } from '../causal/analysis';
 import type { AdjustmentCheck, AdjustmentSets, Role, VariableRoles } from '../causal/types';
-import { labelLookup, listNames, problemText, setText, verdictSentence, type LabelOf } from '../ui/wording';
+import { BADGE_MEANING, labelLookup, listNames, pathText, problemText, setText, verdictSentence, type LabelOf } from '../ui/wording';
 import { criticalAbsentArrows, withPlannedReasons, type AbsentArrowReport } from './assumptions';
 import type { ReportDataResults } from './report-data';
 import { writeSvg } from './svg';
@@ -140,9 +140,10 @@ export function draftParagraph(d: Diagram, a: ReportAnalysis, absent: AbsentArro
 		out.push(`The planned adjustment for ${planned.length ? names(planned) : 'no covariate'} is not sufficient under the diagram and should be revised before the analysis.`);
 	}
 	const avoid: string[] = [];
+	// Each variable is named once, under its first reason.
 	const mediators = withRole(d, a.roles, 'mediator');
-	const colliders = withRole(d, a.roles, 'collider').filter((id) => !planned.includes(id) || !check.valid);
-	const descendants = withRole(d, a.roles, 'descendant-of-outcome');
+	const colliders = withRole(d, a.roles, 'collider').filter((id) => !mediators.includes(id) && (!planned.includes(id) || !check.valid));
+	const descendants = withRole(d, a.roles, 'descendant-of-outcome').filter((id) => !mediators.includes(id) && !colliders.includes(id));
 	if (mediators.length) avoid.push(`${names(mediators)} (${mediators.length === 1 ? 'a mediator' : 'mediators'})`);
 	if (colliders.length) avoid.push(`${names(colliders)} (${colliders.length === 1 ? 'a collider' : 'colliders'})`);
 	if (descendants.length) avoid.push(`${names(descendants)} (caused by the outcome)`);
@@ -158,25 +159,54 @@ export function draftParagraph(d: Diagram, a: ReportAnalysis, absent: AbsentArro
 	return out.join(' ');
 }
 
-function arrowSentence(from: string, to: string, label: LabelOf): string {
-	return `${label(from)} → ${label(to)}: ${label(from)} is assumed to affect ${label(to)} directly.`;
+/** The arrows grouped by cause, in diagram order: "Age directly affects Income and Hypertension." O(n + m). */
+function arrowSentences(d: Diagram, label: LabelOf): string[] {
+	const effects = new Map<string, string[]>();
+	for (const a of d.arrows) {
+		const list = effects.get(a.from) ?? [];
+		list.push(a.to);
+		effects.set(a.from, list);
+	}
+	return d.variables.filter((v) => effects.has(v.id)).map((v) => `${v.label} directly affects ${listNames(effects.get(v.id)!.map(label))}.`);
 }
 
 function absentSentence(item: AbsentArrowReport['items'][number], d: Diagram, a: ReportAnalysis, label: LabelOf): string {
 	const consequences: string[] = [];
+	const withArrow = { ...d, arrows: [...d.arrows, { from: item.from, to: item.to }] };
 	if (item.breaksPlanned) {
 		const why = item.plannedProblems[0];
-		consequences.push(`the planned set would no longer be sufficient${why ? ` (${problemText(why, { ...d, arrows: [...d.arrows, { from: item.from, to: item.to }] }, label).replace(/\.$/, '').replace(/^A /, 'a ')})` : ''}`);
+		const reason = !why
+			? ''
+			: why.kind === 'open-path'
+				? ` (a biasing path would open: ${pathText(why.path, withArrow, label)})`
+				: ` (${problemText(why, withArrow, label).replace(/\.$/, '').replace(' is ', ' would be ')})`;
+		consequences.push(`the planned set would no longer be sufficient${reason}`);
 	}
-	const total = a.sets?.sets.length ?? 0;
-	if (item.breaksSets.length) {
+	// Sets other than the planned one (which is already covered above).
+	const plannedKey = [...d.adjusted].sort().join('\u0000');
+	const others = (a.sets?.sets ?? []).filter((s) => s.join('\u0000') !== plannedKey);
+	const broken = item.breaksSets.filter((s) => s.join('\u0000') !== plannedKey);
+	if (broken.length) {
 		consequences.push(
-			item.breaksSets.length === total
-				? `${total === 1 ? 'the minimal set' : `all ${total} minimal sets`} would fail`
-				: `${item.breaksSets.length} of the ${total} minimal sets would fail (${item.breaksSets.map((s) => setText(s, label)).join('; ')})`
+			broken.length === others.length
+				? `${others.length === 1 ? `the other minimal set ${setText(broken[0], label)} would fail too` : `all ${others.length} other minimal sets would fail`}`
+				: `${broken.length} of the ${others.length} other minimal sets would fail (${broken.map((s) => setText(s, label)).join('; ')})`
 		);
-	}
+	} else if (!item.breaksPlanned) consequences.push('a minimal set would fail');
 	return `No arrow from ${label(item.from)} to ${label(item.to)}. If ${label(item.from)} affected ${label(item.to)} directly, ${listNames(consequences)}.`;
+}
+
+/** The figure's legend in words, for the caption (only what the figure shows). */
+function figureKey(d: Diagram, a: ReportAnalysis, mono: boolean): string {
+	const keys: string[] = [];
+	if (d.exposures.length) keys.push(mono ? 'exposure: bold name' : 'exposure: orange fill');
+	if (d.outcomes.length) keys.push(mono ? 'outcome: bold name' : 'outcome: reddish-purple fill');
+	if (d.variables.some((v) => !v.measured)) keys.push('unmeasured: dashed outline, italic name');
+	if (d.adjusted.length) keys.push('adjusted for (planned set): double square box');
+	const used = new Set(a.roles.flatMap((r) => r.roles.map((x) => x as string)));
+	const meanings = BADGE_MEANING.filter(([badge]) => used.has(badge === 'descendant of outcome' ? 'descendant-of-outcome' : badge));
+	const badgeText = meanings.length ? ` Words under a name give its role: ${meanings.map(([b, m]) => `${b}, ${m}`).join('; ')}.` : '';
+	return `Key: ${keys.join('; ')}.${badgeText}`;
 }
 
 /** Builds the report. O(absent-arrow search) + O(size of the output). */
@@ -204,7 +234,7 @@ export function buildReport(input: ReportInput): ReportModel {
 	sections.push({ id: 'question', heading: 'Question', blocks: question });
 
 	// 2. Figure
-	const svg = writeSvg(d, a.roles, { mono: input.mono });
+	const svg = writeSvg(d, a.roles, { mono: input.mono, legend: false });
 	sections.push({
 		id: 'figure',
 		heading: 'Causal diagram',
@@ -212,7 +242,7 @@ export function buildReport(input: ReportInput): ReportModel {
 			{
 				kind: 'figure',
 				svg,
-				caption: `Figure 1. Assumed causal structure (directed acyclic graph): ${d.variables.length} variables, ${d.arrows.length} arrows. Each arrow is an assumed direct effect; a missing arrow assumes none.`
+				caption: `Figure 1. Assumed causal structure (directed acyclic graph): ${d.variables.length} variables, ${d.arrows.length} arrows. Each arrow is an assumed direct effect; a missing arrow assumes none. ${figureKey(d, a, input.mono ?? false)}`
 			}
 		]
 	});
@@ -242,7 +272,7 @@ export function buildReport(input: ReportInput): ReportModel {
 	const assumptions: Block[] = [{ kind: 'subheading', text: 'Arrows drawn' }];
 	assumptions.push(
 		d.arrows.length
-			? { kind: 'list', items: d.arrows.map((x) => arrowSentence(x.from, x.to, label)) }
+			? { kind: 'list', items: arrowSentences(d, label) }
 			: { kind: 'paragraph', text: 'The diagram has no arrows: every pair of variables is assumed to have no direct effect on each other.' }
 	);
 	assumptions.push({ kind: 'subheading', text: 'Absent arrows the adjustment depends on' });

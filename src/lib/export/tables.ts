@@ -9,7 +9,7 @@ import Papa from 'papaparse';
 import type { Diagram } from '../graph/diagram';
 import type { AdjustmentCheck, AdjustmentSets, VariableRoles } from '../causal/types';
 import { labelLookup } from '../ui/wording';
-import { escapeMarkdown } from './escape';
+import { escapeMarkdownInline } from './escape';
 
 function csv(header: string[], rows: (string | number)[][]): string {
 	return Papa.unparse({ fields: header, data: rows }, { newline: '\r\n', escapeFormulae: true }) + '\r\n';
@@ -89,7 +89,7 @@ const KIND_TEXT: Record<SetRow['kind'], string> = {
 /** The sets as a Markdown (GitHub/CommonMark pipe) table, with a line on the question above it. */
 export function setsMarkdown(d: Diagram, input: SetsTableInput): string {
 	const label = labelLookup(d);
-	const names = (ids: readonly string[]) => (ids.length === 0 ? '(none: no adjustment needed)' : ids.map((id) => escapeMarkdown(label(id))).join(', '));
+	const names = (ids: readonly string[]) => (ids.length === 0 ? '(none: no adjustment needed)' : ids.map((id) => escapeMarkdownInline(label(id))).join(', '));
 	const { sets } = input;
 	const lines = [
 		`Adjustment sets for the ${sets.effect} effect of ${names(sets.exposures)} on ${names(sets.outcomes)}.`,
