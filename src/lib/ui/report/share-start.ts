@@ -1,0 +1,32 @@
+/**
+ * Opening a share link (src/lib/export/share-link.ts) in the app: at start-up and when the
+ * fragment changes. The diagram replaces the current one as one undoable step; a damaged link
+ * leaves the current diagram untouched and says what is wrong. The fragment is then removed
+ * from the address bar, so a reload does not open it again over later edits.
+ */
+import type { Diagram } from '../../graph/diagram';
+import { readShareFragment } from '../../export/share-link';
+import type { Editor } from '../../editor/editor.svelte';
+
+export async function openShareLink(editor: Editor, place: (d: Diagram) => Promise<Diagram>): Promise<boolean> {
+	const hash = window.location.hash;
+	let shared: Diagram | null;
+	try {
+		shared = readShareFragment(hash);
+	} catch (e) {
+		clearFragment();
+		editor.say(`The shared diagram was not opened — ${e instanceof Error ? e.message : String(e)}. Your current diagram is unchanged.`, 'error');
+		return false;
+	}
+	if (!shared) return false;
+	clearFragment();
+	const d = await place(shared);
+	editor.dispatch({ kind: 'replace-diagram', diagram: d, label: 'Open a shared diagram' });
+	editor.select({ variables: [], arrows: [] });
+	editor.say(`Opened the shared diagram "${d.title || 'Untitled'}": ${d.variables.length} variables, ${d.arrows.length} arrows. Undo brings back your previous diagram.`, 'info');
+	return true;
+}
+
+function clearFragment(): void {
+	history.replaceState(history.state, '', window.location.pathname + window.location.search);
+}
