@@ -3,7 +3,7 @@
  * added arrow (keeping the diagram acyclic), deleted or reversed arrow, or measured variable
  * turned unmeasured makes Z invalid by the adjustment criterion (Shpitser, VanderWeele &
  * Robins 2010; adjustment.ts). Each answer carries a witness — the shortest open non-causal
- * path in the changed diagram, or the causal path that puts a planned variable on or below
+ * path in the changed diagram, or a directed path that puts a planned variable on or below
  * a causal path — and the answers are ranked by the witness's length (a rule of thumb, not a
  * theorem: the bias a path carries is a product of its arrows' effects, so short paths tend
  * to matter more), then by the kind of change and the ids.
@@ -12,23 +12,33 @@
  * only shrink, and every proper non-causal path of the smaller graph is one of the larger
  * graph with the same colliders. So deletions are counted, not tested one by one.
  *
- * Adding u → v (the O(n²) part) is decided incrementally. With Z valid in G:
- * 1. if u is reachable from X by a proper directed path and v reaches Y avoiding X, the arrow
- *    creates proper causal paths, cn and the proper back-door graph change: the diagram is
- *    rebuilt and re-tested, O(n + m);
- * 2. otherwise cn is unchanged, the changed proper back-door graph is G^pbd + (u → v), and
- *    Dpcp grows only by De(v) when u ∈ Dpcp: Z fails condition (a) iff u ∈ Dpcp and v ∈ An(Z);
- * 3. else d-separation in G^pbd + (u → v) is decided in O(1) from shortest-walk tables of
- *    G^pbd (connection-distances.ts), built once for all v ∉ An(Z) and once per u when v ∈ An(Z)
+ * Adding u → v (the O(n²) part) is decided in O(1) per arrow after O(n + m) preparation, with
+ * Z valid in G, Dpcp = De(cn), H = G^pbd:
+ * 1. u reachable from X by a proper directed path and v reaching Y avoiding X: u → v creates
+ *    proper causal paths; the new cn nodes are the X ⇝ u prefix and the v ⇝ Y suffix. Z fails
+ *    condition (a) iff v ∈ An(Z) or some prefix node is in An(Z) (a topological-order DP).
+ *    Otherwise An(Z) is unchanged and the changed proper back-door graph connects X and Y iff
+ *    H' + (u → v) does, H' = H without x → w for w ∉ An(Z): such a walk enters w from a parent
+ *    and can only run down a directed path, a causal path of the changed graph, so dropping
+ *    those arrows removes exactly the causal walks (and never a shortest non-causal one).
+ * 2. otherwise cn is unchanged, the changed proper back-door graph is H + (u → v), and Dpcp
+ *    grows only by De(v) when u ∈ Dpcp: Z fails condition (a) iff u ∈ Dpcp and v ∈ An(Z);
+ * 3. else d-separation in H + (u → v) is decided from shortest-walk tables of H
+ *    (connection-distances.ts), built once for all v ∉ An(Z) and once per u when v ∈ An(Z)
  *    (the arrow then adds An(u) to An(Z)).
- * Total O(n² + (n + c)(n + m)) for c arrows of kind 1, against O(n² (n + m)) for re-testing
- * every addition; reversals are re-tested, O(m (n + m)). Witness paths of additions decided
- * in O(1) are built for the first `maxWitnesses` ranked answers only (O(n + m) each).
+ * Total O(n² + n (n + m)) for the additions against O(n² (n + m)) for re-testing each one
+ * (bench/review.ts measures both); reversals are re-tested, O(m (n + m)); the descendant
+ * matrix used for acyclicity costs O(n (n + m)) time and n² bytes. Open-path witnesses of
+ * additions are built for the first `maxWitnesses` ranked answers only (O(n + m) each);
+ * witnesses of condition-(a) failures are read off BFS trees (directed-trees.ts): a directed
+ * path from an exposure through a causal node to a planned variable, short but for arrows of
+ * kind 1 not always the shortest.
  */
 import type { CompiledDag } from '../graph/compiled';
 import { dSeparated } from './dsep';
 import { properBackDoorGraph, properCausalStructure, type ProperCausalStructure } from './proper-causal';
-import { ancestorsOf, descendantsOf, hasArrow, maskOf } from './reach';
+import { ancestorsOf, descendantsOf, hasArrow, maskOf, withoutArrows } from './reach';
+import { causalTree, directedTree, pathFrom, pathTo } from './directed-trees';
 import { isAdjustmentSet } from './adjustment';
 import { backwardDistances, forwardDistances, lengthWithArrow, type StateRules } from './connection-distances';
 import { canAddArrow, canReverseArrow, DescendantMatrix, withArrow, withArrowReversed, withUnmeasured } from './graph-edit';
@@ -65,41 +75,19 @@ export interface RobustnessOptions {
 
 const KIND_ORDER = { 'add-arrow': 0, 'reverse-arrow': 1, 'delete-arrow': 2, unmeasure: 3 } as const;
 
-/** A causal node w ∈ cn above z and the path x → … → w → … → z, shortest on each leg. O(n + m). */
-function causalWitness(g: CompiledDag, s: ProperCausalStructure, z: number): number[] {
-	const up = (start: number, stop: (v: number) => boolean, within: (v: number) => boolean): number[] => {
-		const via = new Int32Array(g.n).fill(-1);
-		via[start] = start;
-		const queue = [start];
-		for (let i = 0; i < queue.length; i++) {
-			const w = queue[i];
-			if (stop(w)) {
-				const path = [w];
-				for (let v = w; v !== start; v = via[v]) path.push(via[v]);
-				return path; // from the stop variable down to start
-			}
-			for (let k = g.parentStart[w]; k < g.parentStart[w + 1]; k++) {
-				const p = g.parentList[k];
-				if (via[p] === -1 && within(p)) {
-					via[p] = w;
-					queue.push(p);
-				}
-			}
-		}
-		return [start];
-	};
-	const below = up(z, (v) => s.causalNodes[v] === 1, () => true); // w … z
-	const w = below[0];
-	const above = up(w, (v) => s.inX[v] === 1, (v) => s.inX[v] === 1 || s.causalNodes[v] === 1); // x … w
-	return [...above, ...below.slice(1)];
+/** Shortest directed path from X through a causal node to a member of Z (Z ∩ Dpcp ≠ ∅). O(n + m). */
+function causalWitness(g: CompiledDag, s: ProperCausalStructure, X: readonly number[], Z: readonly number[]): number[] {
+	const tree = causalTree(g, s, X);
+	let best = -1;
+	for (const z of Z) if (tree.dist[z] >= 0 && (best === -1 || tree.dist[z] < tree.dist[best])) best = z;
+	return tree.path(best);
 }
 
 /** Re-tests Z in a changed graph: null when still valid, else the failure and its witness. O(n + m). */
 function retest(g: CompiledDag, X: readonly number[], Y: readonly number[], Z: readonly number[]): Omit<WeaknessIdx, 'change'> | null {
 	const s = properCausalStructure(g, X, Y);
-	const bad = Z.find((z) => s.forbidden[z]);
-	if (bad !== undefined) {
-		const witness = causalWitness(g, s, bad);
+	if (Z.some((z) => s.forbidden[z])) {
+		const witness = causalWitness(g, s, X, Z);
 		return { failure: 'forbidden', length: witness.length - 1, witness };
 	}
 	const r = dSeparated(properBackDoorGraph(g, s), X, Y, Z);
@@ -111,6 +99,19 @@ interface AdditionScan {
 	/** Return false to stop the scan. */
 	found(u: number, v: number, result: Omit<WeaknessIdx, 'change'>): boolean;
 	progress?: (fraction: number) => void;
+}
+
+/** Variables in an order where every arrow points forward (Kahn 1962). O(n + m). */
+function topologicalOrder(g: CompiledDag): number[] {
+	const indeg = new Int32Array(g.n);
+	for (let v = 0; v < g.n; v++) indeg[v] = g.parentStart[v + 1] - g.parentStart[v];
+	const order: number[] = [];
+	for (let v = 0; v < g.n; v++) if (indeg[v] === 0) order.push(v);
+	for (let i = 0; i < order.length; i++) {
+		const v = order[i];
+		for (let k = g.childStart[v]; k < g.childStart[v + 1]; k++) if (--indeg[g.childList[k]] === 0) order.push(g.childList[k]);
+	}
+	return order;
 }
 
 /**
@@ -128,6 +129,33 @@ function scanAdditions(g: CompiledDag, X: readonly number[], Y: readonly number[
 	const base: StateRules = { inZ, anZ };
 	const forward = forwardDistances(pbd, X, s.inY, base);
 	const backward = backwardDistances(pbd, Y, base);
+	// Arrows creating causal paths (kind 1): G^pbd without x → w for w ∉ An(Z), whose walks are dead ends.
+	const trimmed = withoutArrows(pbd, (a, b) => s.inX[a] === 1 && anZ[b] === 0);
+	const forwardTrimmed = forwardDistances(trimmed, X, s.inY, base);
+	const backwardTrimmed = backwardDistances(trimmed, Y, base);
+	// Witness trees for failures of condition (a).
+	const fromXTree = directedTree(g, X, 'down', s.inX);
+	const toZTree = directedTree(g, Z, 'up');
+	const throughCn = causalTree(g, s, X);
+	// best[u]: shortest x ⇝ w ⇝ z with w ∉ X, w ∈ fromX ∩ An(Z), w ⇝ u avoiding X (w joins cn when u → v adds a causal path).
+	const best = new Int32Array(n).fill(-1);
+	const bestVia = new Int32Array(n).fill(-1);
+	for (const u of topologicalOrder(g)) {
+		if (s.inX[u]) continue;
+		if (fromX[u] && anZ[u]) {
+			best[u] = fromXTree.dist[u] + toZTree.dist[u];
+			bestVia[u] = u;
+		}
+		for (let k = g.parentStart[u]; k < g.parentStart[u + 1]; k++) {
+			const p = g.parentList[k];
+			if (s.inX[p] || best[p] < 0 || (best[u] >= 0 && best[u] <= best[p])) continue;
+			best[u] = best[p];
+			bestVia[u] = bestVia[p];
+		}
+	}
+	// head ends at u; then u → v and the shortest v ⇝ z.
+	const viaArrow = (head: number[], v: number): number[] => [...head, ...pathFrom(toZTree, v)];
+
 	let considered = 0;
 	for (let u = 0; u < n; u++) {
 		scan.progress?.(u / n);
@@ -136,11 +164,24 @@ function scanAdditions(g: CompiledDag, X: readonly number[], Y: readonly number[
 		for (let v = 0; v < n; v++) {
 			if (u === v || hasArrow(g, u, v) || hasArrow(g, v, u) || !canAddArrow(de, u, v)) continue;
 			considered++;
-			let result: Omit<WeaknessIdx, 'change'> | null;
+			let result: Omit<WeaknessIdx, 'change'> | null = null;
 			if (fromX[u] && toY[v] && !s.inX[v]) {
-				result = retest(withArrow(g, u, v), X, Y, Z);
+				// Kind 1: new causal paths through u → v.
+				if (anZ[v] || best[u] >= 0) {
+					const direct = anZ[v] ? fromXTree.dist[u] + 1 + toZTree.dist[v] : Infinity;
+					const witness =
+						best[u] >= 0 && best[u] < direct
+							? [...pathTo(fromXTree, bestVia[u]), ...pathFrom(toZTree, bestVia[u]).slice(1)]
+							: viaArrow(pathTo(fromXTree, u), v);
+					result = { failure: 'forbidden', length: witness.length - 1, witness };
+				} else {
+					const length = s.inX[u] ? forwardTrimmed.toY : lengthWithArrow(forwardTrimmed, backwardTrimmed, base, u, v);
+					if (Number.isFinite(length)) result = { failure: 'open-path', length, witness: null };
+				}
 			} else if (s.forbidden[u] && anZ[v]) {
-				result = retest(withArrow(g, u, v), X, Y, Z);
+				// Kind 2 failing (a): a planned variable now descends from a causal node through u → v.
+				const witness = viaArrow(throughCn.path(u), v);
+				result = { failure: 'forbidden', length: witness.length - 1, witness };
 			} else {
 				let length: number;
 				if (anZ[v] && !anZ[u]) {
@@ -152,7 +193,7 @@ function scanAdditions(g: CompiledDag, X: readonly number[], Y: readonly number[
 				} else {
 					length = lengthWithArrow(forward, backward, base, u, v);
 				}
-				result = Number.isFinite(length) ? { failure: 'open-path', length, witness: null } : null;
+				if (Number.isFinite(length)) result = { failure: 'open-path', length, witness: null };
 			}
 			if (result && !scan.found(u, v, result)) return considered;
 		}

@@ -167,7 +167,8 @@ describe('robustness of a planned set, every answer re-derived by editing the gr
 					expect(w.witness).not.toBeNull();
 					const path = w.witness!;
 					expect(path.length - 1).toBe(w.length);
-					if (forbidden) expect(isDirected(changed, path) && Z.includes(path[path.length - 1])).toBe(true);
+					// A directed path from an exposure, through a causal node of the changed diagram, to a planned variable.
+					if (forbidden) expect(X.includes(path[0]) && oracle.causalNodes.has(path[1]) && isDirected(changed, path) && Z.includes(path[path.length - 1])).toBe(true);
 					else expect(isOpenPath(changed, path, new Set(Z))).toBe(true);
 				};
 				let additions = 0;
