@@ -1,0 +1,117 @@
+/**
+ * Section 6: production bundle size and time to interactive of the built page.
+ * Sizes: the files of the static build (build/ of bench/app.ts's temporary checkout), raw and
+ * gzip (zlib, level 9), split into what the page loads up front (index.html, its module
+ * preloads and style sheets) and what it loads on demand (web workers, other chunks).
+ * Time to interactive (fresh browser context, first visit, so the demo study opens): first
+ * contentful paint, the moment the analysis column first shows a verdict, and TTI = the end
+ * of the last long task (> 50 ms, PerformanceObserver 'longtask') before the first quiet
+ * second after the verdict is shown — the page then answers input at once.
+ */
+import { readdirSync, readFileSync, statSync } from 'node:fs';
+import { join, relative } from 'node:path';
+import { gzipSync } from 'node:zlib';
+import type { Browser } from '@playwright/test';
+import type { BuiltApp } from './app';
+import { KEEP_NAMES_SHIM } from './editor';
+import { fmtBytes, fmtMs, type Row, type Section } from './table';
+
+function filesUnder(dir: string): string[] {
+	return readdirSync(dir).flatMap((f) => {
+		const p = join(dir, f);
+		return statSync(p).isDirectory() ? filesUnder(p) : [p];
+	});
+}
+
+function sizes(files: string[]): { raw: number; gzip: number } {
+	let raw = 0;
+	let gzip = 0;
+	for (const f of files) {
+		const bytes = readFileSync(f);
+		raw += bytes.length;
+		gzip += gzipSync(bytes, { level: 9 }).length;
+	}
+	return { raw, gzip };
+}
+
+export function bundleRows(app: BuiltApp): Row[] {
+	const root = join(app.dir, 'build');
+	const code = filesUnder(root).filter((f) => /\.(js|css|html)$/.test(f));
+	const html = readFileSync(join(root, 'index.html'), 'utf8');
+	const referenced = new Set([...html.matchAll(/(?:href|import\()\s*=?\s*"\.\/([^"]+)"/g)].map((m) => join(root, m[1])));
+	referenced.add(join(root, 'index.html'));
+	const upFront = code.filter((f) => referenced.has(f));
+	const workers = code.filter((f) => f.includes('/workers/'));
+	const other = code.filter((f) => !referenced.has(f) && !f.includes('/workers/'));
+	const row = (what: string, files: string[]): Row => {
+		const s = sizes(files);
+		return { part: what, files: String(files.length), raw: fmtBytes(s.raw), gzip: fmtBytes(s.gzip) };
+	};
+	return [
+		row('loaded up front (index.html, preloaded modules, CSS)', upFront),
+		...workers.map((w) => row(`worker ${relative(root, w).replace(/^_app\/immutable\/workers\//, '').replace(/-[\w-]+\.js$/, '')} (on demand)`, [w])),
+		row('other chunks (on demand)', other),
+		row('all code', code)
+	];
+}
+
+interface Timing {
+	fcp: number;
+	verdict: number;
+	tti: number;
+	longTasks: number;
+}
+
+async function timeToInteractive(browser: Browser, url: string): Promise<Timing> {
+	const context = await browser.newContext({ viewport: { width: 1280, height: 800 } });
+	const page = await context.newPage();
+	await page.addInitScript(KEEP_NAMES_SHIM);
+	await page.addInitScript(() => {
+		const w = window as unknown as { __tti: { tasks: [number, number][]; verdict: number } };
+		w.__tti = { tasks: [], verdict: -1 };
+		new PerformanceObserver((list) => {
+			for (const e of list.getEntries()) w.__tti.tasks.push([e.startTime, e.startTime + e.duration]);
+		}).observe({ type: 'longtask', buffered: true });
+		const tick = () => {
+			if (document.querySelector('[data-testid="verdict"]')) w.__tti.verdict = performance.now();
+			else requestAnimationFrame(tick);
+		};
+		requestAnimationFrame(tick);
+	});
+	await page.goto(url);
+	await page.waitForFunction(() => (window as unknown as { __tti: { verdict: number } }).__tti.verdict >= 0, null, { timeout: 60_000 });
+	// Wait for one quiet second (no long task) after the verdict.
+	const r = await page.evaluate(
+		() =>
+			new Promise<Timing>((resolve) => {
+				const w = window as unknown as { __tti: { tasks: [number, number][]; verdict: number } };
+				const check = () => {
+					const now = performance.now();
+					const lastEnd = Math.max(w.__tti.verdict, ...w.__tti.tasks.map((t) => t[1]));
+					if (now - lastEnd >= 1000) {
+						const paint = performance.getEntriesByName('first-contentful-paint')[0];
+						resolve({ fcp: paint ? paint.startTime : NaN, verdict: w.__tti.verdict, tti: lastEnd, longTasks: w.__tti.tasks.length });
+					} else setTimeout(check, 100);
+				};
+				check();
+			})
+	);
+	await context.close();
+	return r;
+}
+
+export async function benchBundle(app: BuiltApp, browser: Browser | null, url: string | null, repeats: number, why?: string): Promise<Section> {
+	const rows = bundleRows(app);
+	let note =
+		'gzip level 9 of each file (what a server sending gzip transfers). The analysis worker starts when a diagram has more than 20 variables, the layout worker on a tidy layout of more than 60, the data worker when data are opened. ' +
+		`Build time of the app (vite build): ${fmtMs(app.buildMs)}.`;
+	if (browser && url) {
+		const runs: Timing[] = [];
+		for (let i = 0; i < repeats; i++) runs.push(await timeToInteractive(browser, url));
+		runs.sort((a, b) => a.tti - b.tti);
+		const m = runs[runs.length >> 1];
+		rows.push({ part: `time to interactive, first visit with the demo study (median of ${repeats}, local server)`, files: '', raw: `first paint ${fmtMs(m.fcp)}; verdict shown ${fmtMs(m.verdict)}`, gzip: `TTI ${fmtMs(m.tti)} (${m.longTasks} long tasks)` });
+		note += ' TTI = end of the last long task before a quiet second after the first verdict is on screen (all runs: ' + runs.map((t) => fmtMs(t.tti)).join(', ') + ').';
+	}
+	return { title: '6. Production bundle and time to interactive', rows, note, skipped: browser ? undefined : why };
+}
