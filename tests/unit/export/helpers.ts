@@ -1,4 +1,5 @@
 /** Diagrams shared by the export tests: the demo study, and one with hostile labels. */
+import { execFileSync } from 'node:child_process';
 import { readFileSync } from 'node:fs';
 import type { Diagram } from '../../../src/lib/graph/diagram';
 import { parseDiagramJson } from '../../../src/lib/graph/native-json';
@@ -25,4 +26,14 @@ export function hostileDemo(): Diagram {
 	const d = demo();
 	HOSTILE_LABELS.forEach((label, i) => (d.variables[i].label = label));
 	return d;
+}
+
+/** True when an outside program runs (`dot -V`, `pdflatex --version`); tests that need it skip otherwise. */
+export function hasProgram(command: string, versionFlag: string): boolean {
+	try {
+		execFileSync(command, [versionFlag], { stdio: 'ignore' });
+		return true;
+	} catch {
+		return false;
+	}
 }

@@ -5,22 +5,14 @@
  * native JSON and DOT through export and import (ids, labels, roles, positions, unknown keys).
  * The Graphviz checks are skipped, with a message, where Graphviz is not installed.
  */
-import { execFileSync, spawnSync } from 'node:child_process';
+import { spawnSync } from 'node:child_process';
 import { describe, expect, it } from 'vitest';
 import { exportText } from '../../../src/lib/export/formats';
 import { readDiagramText } from '../../../src/lib/graph/read-file';
 import type { Diagram } from '../../../src/lib/graph/diagram';
-import { demo, hostileDemo } from './helpers';
+import { demo, hostileDemo, hasProgram } from './helpers';
 
-function hasGraphviz(): boolean {
-	try {
-		execFileSync('dot', ['-V'], { stdio: 'ignore' });
-		return true;
-	} catch {
-		return false;
-	}
-}
-const graphviz = hasGraphviz();
+const graphviz = hasProgram('dot', '-V');
 if (!graphviz) console.warn('Graphviz `dot` not found: skipping the DOT export checks against Graphviz (apt-get install graphviz)');
 
 /** The demo with unknown keys everywhere and a note, to check nothing is lost. */

@@ -4,7 +4,7 @@
  * as a command. Skipped with a message where pdflatex is not installed (CI installs only what
  * .ci/run installs).
  */
-import { execFileSync, spawnSync } from 'node:child_process';
+import { spawnSync } from 'node:child_process';
 import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -12,17 +12,9 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { writeTikz } from '../../../src/lib/export/tikz';
 import { escapeLatex } from '../../../src/lib/export/escape';
 import { variableRoles } from '../../../src/lib/causal/analysis';
-import { demo, hostileDemo } from './helpers';
+import { demo, hostileDemo, hasProgram } from './helpers';
 
-function hasPdflatex(): boolean {
-	try {
-		execFileSync('pdflatex', ['--version'], { stdio: 'ignore' });
-		return true;
-	} catch {
-		return false;
-	}
-}
-const pdflatex = hasPdflatex();
+const pdflatex = hasProgram('pdflatex', '--version');
 if (!pdflatex) console.warn('pdflatex not found: skipping the TikZ compile checks (apt-get install texlive-latex-base texlive-pictures)');
 
 const dir = mkdtempSync(join(tmpdir(), 'causeway-tikz-'));
