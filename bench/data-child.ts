@@ -3,7 +3,7 @@
  *   node --import tsx bench/data-child.ts <diagram.json> <data.csv>
  * Streams the CSV through parseTableStream (as the app's data worker reads a File), runs every
  * arrow check, then every claim check, then the crude vs adjusted estimates, through the data
- * pipeline (src/lib/datacheck runDataChecks), and prints one JSON line: the times, the counts,
+ * pipeline (src/lib/datacheck runDataChecks), and prints one JSON line: the wall and CPU times, the counts,
  * the resident set before reading and its peak (process.resourceUsage().maxRSS).
  */
 import { createReadStream, readFileSync, statSync } from 'node:fs';
@@ -15,20 +15,30 @@ async function main(): Promise<void> {
 	const [diagramPath, csvPath] = process.argv.slice(2);
 	const diagram = parseDiagramJson(readFileSync(diagramPath, 'utf8'));
 	const rssBefore = process.memoryUsage().rss;
+	let c = process.cpuUsage();
+	const cpuSince = () => {
+		const d = process.cpuUsage(c);
+		c = process.cpuUsage();
+		return (d.user + d.system) / 1000;
+	};
 	const t0 = performance.now();
 	const parsed = await parseTableStream(createReadStream(csvPath, { highWaterMark: 1 << 20 }), { totalBytes: statSync(csvPath).size });
 	const parseMs = performance.now() - t0;
+	const parseCpu = cpuSince();
 	if (!parsed.ok) throw new Error(`could not read ${csvPath}: ${JSON.stringify(parsed.error)}`);
 	const table = parsed.table;
 	const t1 = performance.now();
 	const arrows = runDataChecks(diagram, table, { parts: { arrows: true, claims: false, estimates: false } }).arrows;
 	const arrowsMs = performance.now() - t1;
+	const arrowsCpu = cpuSince();
 	const t2 = performance.now();
 	const claims = runDataChecks(diagram, table, { parts: { arrows: false, claims: true, estimates: false } }).claims;
 	const claimsMs = performance.now() - t2;
+	const claimsCpu = cpuSince();
 	const t3 = performance.now();
 	const estimates = runDataChecks(diagram, table, { parts: { arrows: false, claims: false, estimates: true } }).estimates;
 	const estimatesMs = performance.now() - t3;
+	const estimatesCpu = cpuSince();
 	console.log(
 		JSON.stringify({
 			rows: table.rowCount,
@@ -37,6 +47,10 @@ async function main(): Promise<void> {
 			arrowsMs,
 			claimsMs,
 			estimatesMs,
+			parseCpu,
+			arrowsCpu,
+			claimsCpu,
+			estimatesCpu,
 			arrowChecks: arrows.checks.length,
 			claimChecks: claims.tested,
 			estimateRows: estimates?.rows.length ?? 0,
