@@ -66,7 +66,8 @@ export const exportCommand: Command = {
   sets-md        the same as a Markdown table
   report-md      the protocol report in Markdown (figure embedded as an SVG data URI)
   report-html    the protocol report as one self-contained HTML file (prints to PDF)
-  --format F         which export; when left out, taken from OUT's extension
+  --format F         which export (md and html stand for report-md and report-html; --to is
+                     the same option); when left out, taken from OUT's extension
   -o, --output OUT   the file to write
   --mono             plain black-and-white figure
   --no-legend        figure without legend
@@ -95,8 +96,9 @@ ${QUESTION_HELP}`,
 		const named = ctx.values.format ?? ctx.values.to;
 		let format: ExportFormat;
 		if (typeof named === 'string') {
-			if (!isExportFormat(named)) throw new UsageError(`--format must be one of ${FORMAT_NAMES}, not "${named}"`);
-			format = named;
+			if (named === 'md' || named === 'html') format = named === 'md' ? 'report-md' : 'report-html';
+			else if (!isExportFormat(named)) throw new UsageError(`--format must be one of ${FORMAT_NAMES}, not "${named}"`);
+			else format = named;
 		} else {
 			const guessed = out === '-' ? null : formatFromName(out);
 			if (!guessed) throw new UsageError(`export needs --format (${FORMAT_NAMES})`);

@@ -41,6 +41,8 @@ describe('causeway export', () => {
 		const r = await run(['export', DEMO_PATH, '-o', 'fig.svg', '--mono', '--no-legend']);
 		expect(r.code).toBe(0);
 		expect(r.written['fig.svg']).toBe(exportText('svg', demo(), { mono: true, legend: false }));
+		const h = await run(['export', DEMO_PATH, '--to', 'html', '--date', '2026-03-01']);
+		expect(h.out).toBe(exportText('report-html', demo(), { date: DATE }));
 		const t = await run(['export', DEMO_PATH, '--format', 'tikz', '--standalone']);
 		expect(t.out).toContain('\\documentclass{article}');
 	});
