@@ -11,6 +11,10 @@ import { EXPORT_FORMATS, exportText, isExportFormat, type ExportFormat } from '.
 import { figureOf } from '../../lib/export/figure';
 import { reportAnalysis } from '../../lib/export/report';
 import { checkReportData, type ReportDataResults } from '../../lib/export/report-data';
+import { reportDataFromChecks } from '../../lib/export/from-datacheck';
+import { parseTable } from '../../lib/stats';
+import { runDataChecks } from '../../lib/datacheck';
+import { labelLookup } from '../../lib/ui/wording';
 import { dagrePositions, needsLayout, withPositions } from '../../lib/ui/canvas/layout';
 import { UsageError } from '../io';
 import { QUESTION, QUESTION_HELP, type Command, type Context } from '../command';
@@ -73,7 +77,9 @@ export const exportCommand: Command = {
   --no-legend        figure without legend
   --standalone       tikz: a complete LaTeX document
   --draft FILE       reports: the draft paragraph to print (text file) instead of the generated one
-  --results FILE     reports: data checks and estimates (JSON, see docs/export.md)
+  --data FILE        reports: run the data checks and estimates on this CSV/TSV (as
+                     "causeway test" and "causeway estimate" do) and include them
+  --results FILE     reports: data checks and estimates from a JSON file (docs/export.md)
   --figure-file NAME report-md: write the figure to NAME beside OUT and link it, instead of
                      embedding it (for renderers that refuse SVG data URIs, e.g. GitHub)
   --date YYYY-MM-DD  reports: the date printed (default today)
@@ -88,6 +94,7 @@ ${QUESTION_HELP}`,
 		standalone: { type: 'boolean' },
 		draft: { type: 'string' },
 		results: { type: 'string' },
+		data: { type: 'string' },
 		'figure-file': { type: 'string' },
 		date: { type: 'string' }
 	},
@@ -130,6 +137,16 @@ ${QUESTION_HELP}`,
 		const draft = typeof ctx.values.draft === 'string' ? await readText(ctx, ctx.values.draft, 'draft') : undefined;
 
 		let d = withQuestion(await ctx.diagram(), ctx.question());
+		if (typeof ctx.values.data === 'string') {
+			if (data) throw new UsageError('use either --data or --results, not both');
+			const path = ctx.values.data;
+			const parsed = parseTable(await readText(ctx, path, 'data'));
+			if (!parsed.ok) {
+				const e = parsed.error;
+				throw new InputError(`${path}: ${e.message}${e.row !== undefined ? ` (row ${e.row}${e.column ? `, column "${e.column}"` : ''})` : ''}`);
+			}
+			data = reportDataFromChecks(runDataChecks(d, parsed.table), labelLookup(d), path.replace(/^.*[/\\]/, ''));
+		}
 		const question = d.exposures.length > 0 && d.outcomes.length > 0;
 		const analysis = question || EXPORT_FORMATS[format].needsQuestion ? reportAnalysis(d) : { sets: null, check: null, roles: [] };
 		if (EXPORT_FORMATS[format].needsQuestion && !analysis.sets) {

@@ -21,7 +21,8 @@ export interface ReportDataCheck {
 	/** The test used, e.g. "partial correlation (Fisher's z)" or "G-test". */
 	test: string;
 	statistic?: number | null;
-	df?: number | null;
+	/** Degrees of freedom: one number, or two for an F test. */
+	df?: number | number[] | null;
 	pValue?: number | null;
 	/** p-value after a multiple-testing adjustment, when one was made. */
 	adjustedP?: number | null;
@@ -82,7 +83,9 @@ export function checkReportData(value: Json): ReportDataResults {
 			if (!isObject(c)) fail(p, 'an object', c);
 			needString(c, 'statement', p);
 			needString(c, 'test', p);
-			for (const k of ['statistic', 'df', 'pValue', 'adjustedP']) optNumber(c, k, p);
+			for (const k of ['statistic', 'pValue', 'adjustedP']) optNumber(c, k, p);
+			if (Array.isArray(c.df)) c.df.forEach((_: Json, j: number) => optNumber(c.df as unknown as Record<string, Json>, String(j), `${p}.df`));
+			else optNumber(c, 'df', p);
 			if (!['consistent', 'inconsistent', 'not-tested'].includes(c.verdict as string)) fail(`${p}.verdict`, '"consistent", "inconsistent" or "not-tested"', c.verdict);
 			needString(c, 'detail', p, true);
 		});

@@ -362,7 +362,7 @@ function dataBlocks(data: ReportDataResults, label: LabelOf): Block[] {
 				c.statement,
 				c.test,
 				formatNumber(c.statistic),
-				c.df === null || c.df === undefined ? '–' : String(c.df),
+				c.df === null || c.df === undefined ? '–' : Array.isArray(c.df) ? c.df.join(', ') : String(c.df),
 				formatP(c.pValue),
 				...(adjusted ? [formatP(c.adjustedP)] : []),
 				(c.verdict === 'consistent' ? 'consistent with the diagram' : c.verdict === 'inconsistent' ? 'not consistent with the diagram' : 'not tested') + (c.detail ? ` (${c.detail})` : '')
