@@ -56,27 +56,132 @@ export function firstVisit(storage: StorageLike): boolean {
 	}
 }
 
+/** Who wrote the autosaved diagram last: `tab id:serial`, stored beside the diagram. */
+export const AUTOSAVE_STAMP_KEY = 'causeway.autosave.stamp.v1';
+
+/** Another tab (or window) saved to the same slot since this tab last read or wrote it. */
+export interface AutosaveConflict {
+	/** The other tab's diagram as it is stored now; null when it cannot be read. */
+	theirs: Diagram | null;
+}
+
+export interface AutosaverOptions {
+	/** This tab's id (e.g. crypto.randomUUID()); unique per open tab. */
+	tabId?: string;
+	/** Called once per change by another tab; saving pauses until keepMine or takeTheirs. */
+	onConflict?: (conflict: AutosaveConflict) => void;
+}
+
 /**
- * Debounces saving: `schedule(d)` saves `d` after `delayMs` without a newer call, and
- * `flush()` saves any pending diagram at once (used when the page is hidden or closed).
+ * Saves the diagram after edits: the first edit after a quiet spell at once (so that a tab
+ * that crashes a moment later has it), later edits of a burst together after `delayMs`, and
+ * anything pending on `flush()` (page hidden or closed).
+ *
+ * Two tabs share one storage slot. Each save is stamped with this tab's id; before writing,
+ * the saver checks that the stamp is still the one it last read or wrote. If another tab has
+ * written since, it does not overwrite: it reports a conflict (also at once, through
+ * `onStorage`, the handler for the window's `storage` event) and waits for the user to choose
+ * `keepMine(d)` (this tab's diagram replaces the stored one) or `takeTheirs()` (this tab
+ * takes the stored one). Saving a diagram identical to the stored text writes nothing, so
+ * two tabs that agree do not wake each other up.
  */
-export function createAutosaver(storage: StorageLike, delayMs = 400, onError?: (message: string) => void) {
+export function createAutosaver(storage: StorageLike, delayMs = 400, onError?: (message: string) => void, options: AutosaverOptions = {}) {
+	const tabId = options.tabId ?? Math.random().toString(36).slice(2);
+	let serial = 0;
+	let known = readStamp(storage);
+	let conflictStamp: string | null = null;
 	let pending: Diagram | null = null;
 	let timer: ReturnType<typeof setTimeout> | null = null;
+
+	const changedElsewhere = (): boolean => {
+		const now = readStamp(storage);
+		return now !== known && !(now ?? '').startsWith(`${tabId}:`);
+	};
+	const report = () => {
+		const stamp = readStamp(storage);
+		if (stamp === conflictStamp) return;
+		conflictStamp = stamp;
+		const restored = restoreDiagram(storage);
+		options.onConflict?.({ theirs: restored.kind === 'saved' ? restored.diagram : null });
+	};
+	const write = (d: Diagram) => {
+		let text: string;
+		try {
+			text = writeDiagramJson(d);
+			if (text === storage.getItem(AUTOSAVE_KEY)) {
+				known = readStamp(storage);
+				return;
+			}
+			const stamp = `${tabId}:${++serial}`;
+			storage.setItem(AUTOSAVE_KEY, text);
+			storage.setItem(AUTOSAVE_STAMP_KEY, stamp);
+			known = stamp;
+		} catch (e) {
+			// Quota exceeded or storage disabled: the edit stands, only the backup failed.
+			onError?.(`Autosave failed: ${e instanceof Error ? e.message : String(e)}`);
+		}
+	};
+	const save = () => {
+		if (pending === null) return;
+		if (conflictStamp !== null || changedElsewhere()) {
+			report();
+			return; // kept pending until the user chooses
+		}
+		const d = pending;
+		pending = null;
+		write(d);
+	};
 	const flush = () => {
 		if (timer !== null) clearTimeout(timer);
 		timer = null;
-		if (pending === null) return;
-		const result = saveDiagram(storage, pending);
-		pending = null;
-		if (!result.ok) onError?.(result.message);
+		save();
 	};
 	return {
 		schedule(d: Diagram) {
 			pending = d;
-			if (timer !== null) clearTimeout(timer);
-			timer = setTimeout(flush, delayMs);
+			if (timer === null) {
+				save(); // leading edge: the first edit of a burst is stored at once
+				timer = setTimeout(flush, delayMs);
+			}
 		},
-		flush
+		flush,
+		/** Handler for the window's `storage` event (its `key`; null when storage was cleared). */
+		onStorage(key: string | null) {
+			if (key !== null && key !== AUTOSAVE_KEY && key !== AUTOSAVE_STAMP_KEY) return;
+			if (changedElsewhere()) report();
+		},
+		/** True while another tab's save waits for the user's choice. */
+		get inConflict(): boolean {
+			return conflictStamp !== null;
+		},
+		/** True while an edit is not yet stored (during a burst, or held by a conflict). */
+		get unsaved(): boolean {
+			return pending !== null;
+		},
+		/** The user keeps this tab's diagram: it replaces the other tab's in storage. */
+		keepMine(d: Diagram) {
+			known = readStamp(storage);
+			conflictStamp = null;
+			pending = null;
+			write(d);
+		},
+		/** The user takes the other tab's diagram: returned, and this tab follows it from now on. */
+		takeTheirs(): Diagram | null {
+			known = readStamp(storage);
+			conflictStamp = null;
+			pending = null;
+			const restored = restoreDiagram(storage);
+			return restored.kind === 'saved' ? restored.diagram : null;
+		}
 	};
+}
+
+export type Autosaver = ReturnType<typeof createAutosaver>;
+
+function readStamp(storage: StorageLike): string | null {
+	try {
+		return storage.getItem(AUTOSAVE_STAMP_KEY);
+	} catch {
+		return null;
+	}
 }
