@@ -7,13 +7,15 @@
 import type { Diagram } from '../graph/diagram';
 import type { ParseProgress, TableError } from '../stats';
 import type { DataCheckProgress, DataCheckReport, MappingOverrides, TableInfo, TypeOverrides } from '../datacheck';
-import type { DataReply, DataRequest, DataSource } from './data-protocol';
+import type { DataPart, DataReply, DataRequest, DataSource } from './data-protocol';
 
 export interface DataRunnerEvents {
 	loadProgress(p: ParseProgress): void;
 	loaded(info: TableInfo, ms: number): void;
 	loadFailed(error: TableError): void;
 	checkProgress(p: DataCheckProgress): void;
+	/** The report so far, while `pending` parts are still being computed. */
+	partial(r: DataCheckReport, pending: DataPart[]): void;
 	report(r: DataCheckReport, ms: number): void;
 	checkFailed(message: string): void;
 }
@@ -111,6 +113,7 @@ export class DataRunner {
 	#onCheckReply(reply: DataReply): void {
 		if (reply.id !== this.#checkId) return; // superseded
 		if (reply.kind === 'check-progress') this.#events.checkProgress(reply.progress);
+		else if (reply.kind === 'partial') this.#events.partial(reply.report, reply.pending);
 		else if (reply.kind === 'report') this.#events.report(reply.report, reply.ms);
 		else if (reply.kind === 'check-failed') this.#events.checkFailed(reply.message);
 	}

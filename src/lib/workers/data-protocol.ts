@@ -5,6 +5,9 @@ import type { DataCheckProgress, DataCheckReport, MappingOverrides, TableInfo, T
 
 export type { ColumnInfo, TableInfo } from '../datacheck';
 
+/** The parts of a report, in the order the worker computes them (quick ones first). */
+export type DataPart = 'arrows' | 'estimates' | 'claims';
+
 export type DataSource = { kind: 'file'; file: File } | { kind: 'url'; url: string; name: string };
 
 export type DataRequest =
@@ -16,5 +19,6 @@ export type DataReply =
 	| { id: number; kind: 'loaded'; info: TableInfo; ms: number }
 	| { id: number; kind: 'load-failed'; error: TableError }
 	| { id: number; kind: 'check-progress'; progress: DataCheckProgress }
+	| { id: number; kind: 'partial'; report: DataCheckReport; pending: DataPart[] }
 	| { id: number; kind: 'report'; report: DataCheckReport; ms: number }
 	| { id: number; kind: 'check-failed'; message: string };

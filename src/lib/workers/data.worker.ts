@@ -7,7 +7,8 @@
  */
 import { parseTableStream, type Table, type TableSource } from '../stats';
 import { describeTable, runDataChecks } from '../datacheck';
-import type { DataReply, DataRequest } from './data-protocol';
+import type { DataCheckReport } from '../datacheck';
+import type { DataPart, DataReply, DataRequest } from './data-protocol';
 
 const post = (reply: DataReply) => (self as unknown as Worker).postMessage(reply);
 
@@ -51,6 +52,11 @@ async function load(id: number, request: Extract<DataRequest, { kind: 'load' }>)
 	post({ id, kind: 'loaded', info: describeTable(result.table, name), ms: performance.now() - started });
 }
 
+/**
+ * Runs the checks part by part — arrows, then estimates, then claims (the slowest on large
+ * tables) — posting the report so far after each part, so the page can show the quick
+ * results while the claims are still being tested.
+ */
 function check(request: Extract<DataRequest, { kind: 'check' }>): void {
 	const { id } = request;
 	if (!table) {
@@ -59,21 +65,31 @@ function check(request: Extract<DataRequest, { kind: 'check' }>): void {
 	}
 	const started = performance.now();
 	let lastPost = 0;
+	const order: DataPart[] = ['arrows', 'estimates', 'claims'];
+	let report = null as DataCheckReport | null;
 	try {
-		const report = runDataChecks(request.diagram, table, {
-			mapping: request.mapping,
-			types: request.types,
-			planned: request.planned,
-			pictures: true,
-			onProgress: (progress) => {
-				const now = performance.now();
-				if (now - lastPost > 80) {
-					lastPost = now;
-					post({ id, kind: 'check-progress', progress });
+		for (const [k, part] of order.entries()) {
+			const r = runDataChecks(request.diagram, table, {
+				mapping: request.mapping,
+				types: request.types,
+				planned: request.planned,
+				pictures: true,
+				parts: { arrows: part === 'arrows', estimates: part === 'estimates', claims: part === 'claims' },
+				onProgress: (progress) => {
+					const now = performance.now();
+					if (now - lastPost > 80) {
+						lastPost = now;
+						post({ id, kind: 'check-progress', progress });
+					}
 				}
-			}
-		});
-		post({ id, kind: 'report', report, ms: performance.now() - started });
+			});
+			if (report === null) report = r;
+			else if (part === 'estimates') report = { ...report, estimates: r.estimates, estimatesMessage: r.estimatesMessage };
+			else report = { ...report, claims: r.claims };
+			const pending = order.slice(k + 1);
+			if (pending.length > 0) post({ id, kind: 'partial', report, pending });
+		}
+		post({ id, kind: 'report', report: report as DataCheckReport, ms: performance.now() - started });
 	} catch (e) {
 		post({ id, kind: 'check-failed', message: e instanceof Error ? e.message : String(e) });
 	}

@@ -8,7 +8,7 @@ import type { Diagram } from '../../graph/diagram';
 import type { ColumnKind, ParseProgress, SummaryStatistics, TableError } from '../../stats';
 import { parseSummaryMatrix, runSummaryChecks, type DataCheckProgress, type DataCheckReport, type TableInfo } from '../../datacheck';
 import { DataRunner } from '../../workers/data-client';
-import type { DataSource } from '../../workers/data-protocol';
+import type { DataPart, DataSource } from '../../workers/data-protocol';
 import { claimsKey } from '../../workers/analysis-steps';
 
 export type DataStatus = 'empty' | 'loading' | 'checking' | 'ready';
@@ -37,6 +37,8 @@ export class DataState {
 	mapping = $state.raw<Record<string, string | null>>({});
 	types = $state.raw<Record<string, ColumnKind>>({});
 	lastMs = $state(0);
+	/** Parts of the shown report still being computed (claims take longest on large tables). */
+	pending = $state.raw<readonly DataPart[]>([]);
 
 	#runner: DataRunner;
 	#diagram: Diagram | null = null;
@@ -68,7 +70,13 @@ export class DataState {
 					this.status = this.hasData ? 'ready' : 'empty';
 				},
 				checkProgress: (p) => (this.checkProgress = p),
+				partial: (r, pending) => {
+					this.report = r;
+					this.reportKey = this.#key;
+					this.pending = pending;
+				},
 				report: (r, ms) => {
+					this.pending = [];
 					this.report = r;
 					this.reportKey = this.#key;
 					this.#good = { mapping: this.mapping, types: this.types };
@@ -183,6 +191,7 @@ export class DataState {
 
 	#refused(message: string): void {
 		this.error = `Not applied — ${message}`;
+		this.pending = [];
 		this.mapping = this.#good.mapping;
 		this.types = this.#good.types;
 		this.checkProgress = null;
