@@ -29,7 +29,8 @@ th, td { text-align: left; vertical-align: top; padding: 0.35rem 0.5rem; border-
 thead th { border-bottom: 1.5px solid #1a1a1a; font-weight: 700; }
 td.num, th.num { text-align: right; font-variant-numeric: tabular-nums; }
 table.facts th { width: 12rem; font-weight: 700; }
-figure { margin: 1rem 0; text-align: center; break-inside: avoid; page-break-inside: avoid; }
+figure { margin: 1rem -2rem; text-align: center; break-inside: avoid; page-break-inside: avoid; }
+figcaption { margin-left: 2rem; margin-right: 2rem; }
 figure svg { max-width: 100%; height: auto; }
 figcaption { font: 0.85rem/1.45 Arial, "Liberation Sans", Helvetica, sans-serif; color: #333; text-align: left; margin-top: 0.5rem; }
 .verdict { border-left: 5px solid; padding: 0.6rem 0.9rem; margin: 0.6rem 0; font-weight: 600; }
@@ -46,6 +47,8 @@ footer { margin-top: 2rem; font: 0.8rem Arial, "Liberation Sans", Helvetica, san
   h2, h3 { break-after: avoid; page-break-after: avoid; }
   tr, li, .verdict { break-inside: avoid; page-break-inside: avoid; }
   .draft { border-style: solid; }
+  figure { margin: 0.8rem 0; }
+  figcaption { margin-left: 0; margin-right: 0; }
   .verdict.ok, .verdict.bad { -webkit-print-color-adjust: exact; print-color-adjust: exact; }
 }
 `;
