@@ -27,7 +27,7 @@ li { margin: 0.25rem 0; }
 table { border-collapse: collapse; width: 100%; margin: 0.6rem 0; font: 0.86rem/1.4 Arial, "Liberation Sans", Helvetica, sans-serif; }
 th, td { text-align: left; vertical-align: top; padding: 0.35rem 0.5rem; border-bottom: 1px solid #dcdcd6; }
 thead th { border-bottom: 1.5px solid #1a1a1a; font-weight: 700; }
-td.num, th.num { text-align: right; font-variant-numeric: tabular-nums; }
+td.num, th.num { text-align: right; font-variant-numeric: tabular-nums; white-space: nowrap; }
 table.facts th { width: 12rem; font-weight: 700; }
 figure { margin: 1rem -2rem; text-align: center; break-inside: avoid; page-break-inside: avoid; }
 figcaption { margin-left: 2rem; margin-right: 2rem; }

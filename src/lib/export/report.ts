@@ -353,10 +353,14 @@ function dataBlocks(data: ReportDataResults, label: LabelOf): Block[] {
 	}
 	if (data.checks?.length) {
 		blocks.push({ kind: 'subheading', text: 'Checks of the independencies the diagram implies' });
+		blocks.push({
+			kind: 'paragraph',
+			text: 'Each row tests one independence that the diagram implies. "Not consistent" means the data contradict it, which points to a missing arrow or another wrong assumption; "consistent" does not prove the diagram right.'
+		});
 		const adjusted = data.checks.some((c) => c.adjustedP !== undefined && c.adjustedP !== null);
 		blocks.push({
 			kind: 'table',
-			head: ['Implied independence', 'Test', 'Statistic', 'df', 'p', ...(adjusted ? ['Adjusted p'] : []), 'Result'],
+			head: ['Implied independence', 'Test', 'Statistic', 'df', 'p', ...(adjusted ? ['Adjusted p'] : []), 'Data'],
 			numeric: [false, false, true, true, true, ...(adjusted ? [true] : []), false],
 			rows: data.checks.map((c) => [
 				c.statement,
@@ -365,7 +369,7 @@ function dataBlocks(data: ReportDataResults, label: LabelOf): Block[] {
 				c.df === null || c.df === undefined ? '–' : Array.isArray(c.df) ? c.df.join(', ') : String(c.df),
 				formatP(c.pValue),
 				...(adjusted ? [formatP(c.adjustedP)] : []),
-				(c.verdict === 'consistent' ? 'consistent with the diagram' : c.verdict === 'inconsistent' ? 'not consistent with the diagram' : 'not tested') + (c.detail ? ` (${c.detail})` : '')
+				(c.verdict === 'consistent' ? 'consistent' : c.verdict === 'inconsistent' ? 'not consistent' : 'not tested') + (c.detail ? ` (${c.detail})` : '')
 			])
 		});
 	}
