@@ -113,10 +113,11 @@ ${QUESTION_HELP}`,
 		}
 		let date: Date | undefined;
 		if (typeof ctx.values.date === 'string') {
-			if (!/^\d{4}-\d{2}-\d{2}$/.test(ctx.values.date) || Number.isNaN(Date.parse(`${ctx.values.date}T00:00:00Z`))) {
+			const [y, m, day] = ctx.values.date.split('-').map(Number);
+			date = new Date(y, m - 1, day);
+			if (!/^\d{4}-\d{2}-\d{2}$/.test(ctx.values.date) || date.getMonth() !== m - 1 || date.getDate() !== day) {
 				throw new UsageError(`--date must be a date like 2026-03-01, not "${ctx.values.date}"`);
 			}
-			date = new Date(`${ctx.values.date}T00:00:00Z`);
 		}
 		let data: ReportDataResults | undefined;
 		if (typeof ctx.values.results === 'string') {

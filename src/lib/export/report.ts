@@ -89,7 +89,9 @@ const ROLE_WORD: Record<Role, string> = {
 	unrelated: 'unrelated to the question'
 };
 
-export const isoDate = (date: Date) => date.toISOString().slice(0, 10);
+/** The date as YYYY-MM-DD in the local time zone (the day the user made the report). */
+export const isoDate = (date: Date) =>
+	`${date.getFullYear()}-${String(date.getMonth() + 1).padStart(2, '0')}-${String(date.getDate()).padStart(2, '0')}`;
 
 /** Numbers for display: three significant digits, p-values below 0.001 as "< 0.001". */
 export function formatNumber(x: number | null | undefined): string {

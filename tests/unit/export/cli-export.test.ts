@@ -25,7 +25,7 @@ async function run(args: string[], files: Record<string, string> = {}) {
 	return { code, out, err, written };
 }
 
-const DATE = new Date('2026-03-01T00:00:00Z');
+const DATE = new Date(2026, 2, 1);
 
 describe('causeway export', () => {
 	it('writes every format exactly as the library makes it', async () => {
@@ -79,6 +79,7 @@ describe('causeway export', () => {
 			[['export', DEMO_PATH], /export needs --format/],
 			[['export', DEMO_PATH, '-o', 'x.pdf'], /export needs --format/],
 			[['export', DEMO_PATH, '--format', 'report-md', '--date', '1 March'], /--date must be a date/],
+			[['export', DEMO_PATH, '--format', 'report-md', '--date', '2026-02-30'], /--date must be a date like 2026-03-01, not "2026-02-30"/],
 			[['export', DEMO_PATH, '--format', 'report-md', '--results', 'r.json'], /r\.json: estimates\[0\]\.estimate must be a number/, { 'r.json': '{"estimates":[{"label":"a","measure":"OR","adjustedFor":[],"estimate":"x"}]}' }],
 			[['export', DEMO_PATH, '--format', 'report-md', '--results', 'r.json'], /r\.json: not valid JSON/, { 'r.json': '{' }],
 			[['export', 'g.dot', '--format', 'sets-csv'], /sets-csv needs a valid diagram with an exposure and an outcome/, { 'g.dot': 'digraph { a -> b }' }]

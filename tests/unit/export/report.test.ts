@@ -28,7 +28,7 @@ function textOf(node: Node): string {
 	return 'childNodes' in node ? node.childNodes.map(textOf).join('') : '';
 }
 
-const DATE = new Date('2026-03-01T00:00:00Z');
+const DATE = new Date(2026, 2, 1);
 const DATA: ReportDataResults = {
 	source: { name: 'cycling-hypertension.csv', rows: 2000, columns: 13 },
 	checks: [{ statement: 'Age is independent of Distance to work', test: "partial correlation (Fisher's z)", statistic: 0.512, df: null, pValue: 0.0004, verdict: 'inconsistent' }],
