@@ -11,6 +11,7 @@
 import type { Diagram } from '../graph/diagram';
 import { InputError } from '../graph/errors';
 import { adjustmentSets, checkAdjustment, compareSets, sortIds } from '../causal/analysis';
+import type { AdjustmentSets } from '../causal/types';
 import { completeRows, estimateExposureEffect, eValue, numericValues, StatsError, type Column, type ExposureEffect } from '../stats';
 import type { EstimateRole, EstimateRow, Estimates, EValueSummary, VariableMapping } from './types';
 
@@ -62,25 +63,24 @@ function eValueOfDifference(effect: ExposureEffect, outcome: Column, used: reado
 	};
 }
 
-export function estimateEffects(seen: Diagram, columnOf: (name: string) => Column, mapping: VariableMapping, options: EstimateOptions = {}): EstimatesOutcome {
-	if (seen.exposures.length !== 1 || seen.outcomes.length !== 1)
-		return { estimates: null, message: 'Estimates need exactly one exposure and one outcome in the Question.' };
-	const [exposureId] = seen.exposures;
-	const [outcomeId] = seen.outcomes;
+/** The exposure and outcome to estimate for, or why none can be. O(1). */
+export function estimateQuestion(seen: Diagram, columns: Readonly<Record<string, string>>, missing: string): { exposure: string; outcome: string } | { message: string } {
+	if (seen.exposures.length !== 1 || seen.outcomes.length !== 1) return { message: 'Estimates need exactly one exposure and one outcome in the Question.' };
+	const [exposure] = seen.exposures;
+	const [outcome] = seen.outcomes;
 	for (const [id, role] of [
-		[exposureId, 'exposure'],
-		[outcomeId, 'outcome']
+		[exposure, 'exposure'],
+		[outcome, 'outcome']
 	] as const)
-		if (mapping.columns[id] === undefined) return { estimates: null, message: `No estimate: the ${role} "${id}" has no column in the data.` };
-	const col = (id: string) => columnOf(mapping.columns[id]);
-	const outcome = col(outcomeId);
-	const exposure = col(exposureId);
-	const planned = sortIds(new Set(options.planned ?? seen.adjusted));
-	const listing = adjustmentSets(seen, { max: options.maxSets ?? 20 });
-	const notes: string[] = [];
-	if (!listing.identifiable) notes.push('With the variables that have data, no adjustment set is sufficient: every adjusted estimate below stays biased under the diagram.');
-	if (listing.truncated) notes.push(`Only the first ${listing.sets.length} minimal sets are shown.`);
+		if (columns[id] === undefined) return { message: `No estimate: the ${role} "${id}" ${missing}.` };
+	return { exposure, outcome };
+}
 
+/**
+ * The sets to estimate for, each once with every role it has: crude (empty), each minimal
+ * set, the optimal set, the planned set. O(k² · set size) for k sets.
+ */
+export function setsToEstimate(listing: AdjustmentSets, planned: readonly string[]): { roles: EstimateRole[]; set: string[] }[] {
 	const wanted: { roles: EstimateRole[]; set: string[] }[] = [];
 	const add = (role: EstimateRole, set: string[]) => {
 		const existing = wanted.find((w) => compareSets(w.set, set) === 0);
@@ -90,7 +90,23 @@ export function estimateEffects(seen: Diagram, columnOf: (name: string) => Colum
 	add('crude', []);
 	for (const s of listing.sets) add('minimal', s);
 	if (listing.optimal) add('optimal', listing.optimal);
-	add('planned', planned);
+	add('planned', sortIds(new Set(planned)));
+	return wanted;
+}
+
+export function estimateEffects(seen: Diagram, columnOf: (name: string) => Column, mapping: VariableMapping, options: EstimateOptions = {}): EstimatesOutcome {
+	const question = estimateQuestion(seen, mapping.columns, 'has no column in the data');
+	if ('message' in question) return { estimates: null, message: question.message };
+	const { exposure: exposureId, outcome: outcomeId } = question;
+	const col = (id: string) => columnOf(mapping.columns[id]);
+	const outcome = col(outcomeId);
+	const exposure = col(exposureId);
+	const listing = adjustmentSets(seen, { max: options.maxSets ?? 20 });
+	const notes: string[] = [];
+	if (!listing.identifiable) notes.push('With the variables that have data, no adjustment set is sufficient: every adjusted estimate below stays biased under the diagram.');
+	if (listing.truncated) notes.push(`Only the first ${listing.sets.length} minimal sets are shown.`);
+
+	const wanted = setsToEstimate(listing, options.planned ?? seen.adjusted);
 
 	const rows: EstimateRow[] = [];
 	let plannedEffect: { effect: ExposureEffect; used: Column[] } | null = null;

@@ -16,13 +16,13 @@
  */
 import Papa from 'papaparse';
 import type { Diagram } from '../graph/diagram';
-import { adjustmentSets, checkAdjustment, compareSets, impliedClaims, sortIds } from '../causal/analysis';
+import { adjustmentSets, checkAdjustment, impliedClaims } from '../causal/analysis';
 import { linearRegressionFromSummary, partialCorrelationFromSummary, StatsError, type SummaryStatistics } from '../stats';
 import { associationStrength, DEFAULT_ALPHA, supportOf } from './arrow-checks';
 import { claimFamily } from './claim-checks';
-import { rowLabel, type EstimatesOutcome } from './estimates';
+import { estimateQuestion, rowLabel, setsToEstimate, type EstimatesOutcome } from './estimates';
 import { dataDiagram, mapVariables } from './mapping';
-import type { ArrowCheck, DataCheckReport, EstimateRole, EstimateRow, MappingOverrides } from './types';
+import type { ArrowCheck, DataCheckReport, EstimateRow, MappingOverrides } from './types';
 
 function numberCell(cell: string, row: number, column: number): number {
 	const t = cell.trim();
@@ -82,25 +82,11 @@ export interface SummaryCheckOptions {
 }
 
 function summaryEstimates(seen: Diagram, s: SummaryStatistics, columns: Record<string, string>, options: SummaryCheckOptions): EstimatesOutcome {
-	if (seen.exposures.length !== 1 || seen.outcomes.length !== 1) return { estimates: null, message: 'Estimates need exactly one exposure and one outcome in the Question.' };
-	const [x] = seen.exposures;
-	const [y] = seen.outcomes;
-	for (const [id, role] of [
-		[x, 'exposure'],
-		[y, 'outcome']
-	] as const)
-		if (columns[id] === undefined) return { estimates: null, message: `No estimate: the ${role} "${id}" is not in the summary matrix.` };
+	const question = estimateQuestion(seen, columns, 'is not in the summary matrix');
+	if ('message' in question) return { estimates: null, message: question.message };
+	const { exposure: x, outcome: y } = question;
 	const listing = adjustmentSets(seen, { max: options.maxSets ?? 20 });
-	const wanted: { roles: EstimateRole[]; set: string[] }[] = [];
-	const add = (role: EstimateRole, set: string[]) => {
-		const w = wanted.find((v) => compareSets(v.set, set) === 0);
-		if (w) w.roles.push(role);
-		else wanted.push({ roles: [role], set });
-	};
-	add('crude', []);
-	for (const set of listing.sets) add('minimal', set);
-	if (listing.optimal) add('optimal', listing.optimal);
-	add('planned', sortIds(new Set(options.planned ?? seen.adjusted)));
+	const wanted = setsToEstimate(listing, options.planned ?? seen.adjusted);
 	const fit = (set: string[]) => {
 		const r = linearRegressionFromSummary(s, columns[y], [columns[x], ...set.map((id) => columns[id])]);
 		return r.coefficients.find((c) => c.name === columns[x]) ?? null;
