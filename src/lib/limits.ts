@@ -30,6 +30,9 @@ export const MAX_LABEL_CHARS = 1_000;
 /** Longest variable note, in characters. */
 export const MAX_NOTE_CHARS = 100_000;
 
+/** Deepest nesting of { } in a DOT file (subgraphs, node groups); diagrams use two or three. */
+export const MAX_DOT_NESTING = 100;
+
 /** Largest data (CSV) file, in bytes when read as a file, in characters when given as text. */
 export const MAX_TABLE_BYTES = 512 * 1024 * 1024;
 /** Most columns a data file may have. */

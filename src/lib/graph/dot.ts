@@ -29,7 +29,7 @@ import { isUnsafeKey, type Arrow, type Diagram, type Extra, type Variable } from
 import { describePosition, InputError, lineColumn, quote } from './errors';
 import { validateDiagram } from './validate';
 import { assertDiagramTextSize, assertDiagramWithinLimits } from './size-limits';
-import { describeCount, MAX_ARROWS, MAX_VARIABLES } from '../limits';
+import { describeCount, MAX_ARROWS, MAX_DOT_NESTING, MAX_VARIABLES } from '../limits';
 
 // ---------------------------------------------------------------------------------------------
 // Text codecs
@@ -190,6 +190,57 @@ function protectLineBreaksInStrings(text: string): { text: string; restore: (s: 
 	return { text: out, restore: (s) => s.replace(pattern, (c) => back.get(c) ?? c) };
 }
 
+/**
+ * Checks that braces, quoted strings, HTML-like strings and comments are closed, and that
+ * braces nest at most MAX_DOT_NESTING deep, before the grammar runs: the ts-graphviz parser
+ * backtracks exponentially on unclosed nested subgraphs (an 860-byte file found by the fuzz
+ * tests took minutes) and recurses once per level. One pass, O(length); the message names the
+ * unclosed piece's line and column.
+ */
+function checkNesting(text: string, at: (offset: number) => { phrase: string; where: string }): void {
+	const fail = (offset: number, what: string) => {
+		const p = at(offset);
+		return new InputError(`Invalid DOT at ${p.phrase}: ${what}`, p.where);
+	};
+	const open: number[] = [];
+	const n = text.length;
+	let i = 0;
+	while (i < n) {
+		const c = text[i];
+		if (c === '"') {
+			const from = i++;
+			while (i < n && text[i] !== '"') i += text[i] === '\\' ? 2 : 1;
+			if (i >= n) throw fail(from, 'this quoted string is never closed');
+			i++;
+		} else if (c === '<') {
+			const from = i;
+			let depth = 0;
+			for (; i < n; i++) {
+				if (text[i] === '<') depth++;
+				else if (text[i] === '>' && --depth === 0) break;
+			}
+			if (i >= n) throw fail(from, 'this HTML-like string (<…>) is never closed');
+			i++;
+		} else if (c === '/' && text[i + 1] === '*') {
+			const end = text.indexOf('*/', i + 2);
+			if (end < 0) throw fail(i, 'this comment is never closed');
+			i = end + 2;
+		} else if ((c === '/' && text[i + 1] === '/') || c === '#') {
+			const end = text.indexOf('\n', i);
+			i = end < 0 ? n : end;
+		} else {
+			if (c === '{') {
+				open.push(i);
+				if (open.length > MAX_DOT_NESTING) throw new InputError(`The DOT file is nested too deeply to read: more than ${MAX_DOT_NESTING} levels of { } (${at(i).phrase})`, at(i).where);
+			} else if (c === '}') {
+				if (open.pop() === undefined) throw fail(i, 'this } closes nothing');
+			}
+			i++;
+		}
+	}
+	if (open.length > 0) throw fail(open[open.length - 1], 'this { is never closed');
+}
+
 interface Attr {
 	value: string;
 	html: boolean;
@@ -224,6 +275,7 @@ export function parseDot(text: string): Diagram {
 		return { phrase: describePosition(pos), where: `${pos.line}:${pos.column}` };
 	};
 
+	checkNesting(source, at);
 	let dot;
 	try {
 		dot = parse(guarded, PARSE_LIMITS);
