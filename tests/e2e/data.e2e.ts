@@ -95,13 +95,41 @@ test('a bad CSV gives one clear message and leaves the earlier data and results'
 	// Through all of it the earlier data, results and canvas marks stayed.
 	await expect(data(page).getByTestId('estimates-table')).toContainText('0.609');
 	expect(await page.evaluate(() => window.__causewayCanvas.arrowClasses('cycling', 'fitness'))).toContain('data-supported');
-	// A constant column is read, named, and its arrows are reported as not tested.
-	const last = page.waitForEvent('filechooser');
-	await data(page).getByRole('button', { name: 'Load data file…' }).click();
-	await (await last).setFiles({ name: 'constant.csv', mimeType: 'text/csv', buffer: Buffer.from('age,cycling\n40,1\n50,1\n60,1\n') });
+	// A constant column, dropped on the load area, is read, named, and its arrows are reported as not tested.
+	const dropped = await page.evaluateHandle(() => {
+		const dt = new DataTransfer();
+		dt.items.add(new File(['age,cycling\n40,1\n50,1\n60,1\n'], 'constant.csv', { type: 'text/csv' }));
+		return dt;
+	});
+	const loader = data(page).getByRole('group', { name: 'Load data' });
+	await loader.dispatchEvent('dragover', { dataTransfer: dropped });
+	await loader.dispatchEvent('drop', { dataTransfer: dropped });
+	await expect(data(page).getByTestId('data-source')).toContainText('constant.csv');
 	await expect(data(page).getByText("Column 'cycling' has a single value in every row")).toBeVisible();
 	await expect(data(page).locator('li[data-arrow="age>cycling"]')).toContainText('not tested');
 	expect(await page.evaluate(() => window.__causewayCanvas.arrowClasses('age', 'cycling'))).toContain('data-untested');
+	// The diagram was not touched by the dropped file.
+	expect((await counts(page)).variables).toBe(13);
+
+	// A summary matrix (correlations of five demo columns, computed by R from the demo CSV).
+	await data(page).getByRole('button', { name: 'Summary matrix…' }).click();
+	await data(page)
+		.getByRole('textbox')
+		.fill(
+			[
+				',age,income,diet,cycling,hypertension',
+				'age,1,0.383,0.076,-0.127,0.23',
+				'income,0.383,1,0.224,0.025,0.008',
+				'diet,0.076,0.224,1,0.219,-0.128',
+				'cycling,-0.127,0.025,0.219,1,-0.148',
+				'hypertension,0.23,0.008,-0.128,-0.148,1',
+				'n,5000'
+			].join('\n')
+		);
+	await data(page).getByRole('button', { name: 'Use this matrix' }).click();
+	await expect(data(page).getByTestId('data-source')).toContainText('correlation matrix of 5 variables, n = 5000');
+	await expect(data(page).getByTestId('estimates-table')).toContainText('Difference');
+	await expect(data(page).getByTestId('data-unmapped').first()).toContainText('treated as unmeasured');
 });
 
 test('keyboard only: load the demo data, change a column link, pin an arrow check', async ({ page }) => {
