@@ -198,13 +198,22 @@ export class DataState {
 		this.status = this.hasData ? 'ready' : 'empty';
 	}
 
+	/** The user's links that still apply: variables deleted or marked unmeasured since are dropped. */
+	#mappingFor(d: Diagram): Record<string, string | null> {
+		const measured = new Set(d.variables.filter((v) => v.measured).map((v) => v.id));
+		const kept = Object.fromEntries(Object.entries(this.mapping).filter(([id]) => measured.has(id)));
+		if (Object.keys(kept).length !== Object.keys(this.mapping).length) this.mapping = kept;
+		return kept;
+	}
+
 	#run(): void {
 		const d = this.#diagram;
 		if (!d || !this.hasData) return;
 		this.#key = dataKey(d);
+		const mapping = this.#mappingFor(d);
 		if (this.summary) {
 			try {
-				this.report = runSummaryChecks(d, this.summary.stats, { mapping: this.mapping });
+				this.report = runSummaryChecks(d, this.summary.stats, { mapping });
 				this.reportKey = this.#key;
 				this.#good = { mapping: this.mapping, types: this.types };
 				this.status = 'ready';
@@ -215,6 +224,6 @@ export class DataState {
 		}
 		if (this.status !== 'loading') this.status = 'checking';
 		this.checkProgress = { stage: 'arrows', fraction: 0 };
-		this.#runner.check({ diagram: $state.snapshot(d) as Diagram, mapping: { ...this.mapping }, types: { ...this.types } });
+		this.#runner.check({ diagram: $state.snapshot(d) as Diagram, mapping: { ...mapping }, types: { ...this.types } });
 	}
 }
