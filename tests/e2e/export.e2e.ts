@@ -130,6 +130,11 @@ test('the edited draft paragraph goes into the report and is saved with the diag
 	await expect(popup.locator('.verdict')).toContainText('Sufficient');
 	await popup.screenshot({ path: 'test-results/export-report-print-view.png', fullPage: true });
 	await popup.close();
+
+	const [figure] = await Promise.all([page.waitForEvent('popup'), report(page).getByRole('button', { name: 'Print view', exact: true }).click()]);
+	await figure.waitForLoadState();
+	await expect(figure.locator('svg title')).toHaveText(DEMO.title);
+	await figure.close();
 });
 
 test('a share link restores the diagram exactly in another browser; a damaged one changes nothing', async ({ page, browser, baseURL }) => {

@@ -7,7 +7,8 @@ import { describe, expect, it } from 'vitest';
 import { parse, type DefaultTreeAdapterMap } from 'parse5';
 import MarkdownIt from 'markdown-it';
 import { buildReport, reportAnalysis, formatNumber, formatP } from '../../../src/lib/export/report';
-import { reportHtml, REPORT_CSP } from '../../../src/lib/export/report-html';
+import { figurePageHtml, reportHtml, REPORT_CSP } from '../../../src/lib/export/report-html';
+import { writeSvg } from '../../../src/lib/export/svg';
 import { reportMarkdown } from '../../../src/lib/export/report-md';
 import type { ReportDataResults } from '../../../src/lib/export/report-data';
 import { checkReportData } from '../../../src/lib/export/report-data';
@@ -97,6 +98,18 @@ describe('HTML report', () => {
 		expect(all).toContain('Complete cases only. <b>not bold</b>');
 		const draft = els.find((e) => e.attrs.some((a) => a.name === 'class' && a.value === 'draft'))!;
 		expect(draft.childNodes.filter((c) => c.nodeName === 'p')).toHaveLength(2);
+	});
+});
+
+describe('figure print page', () => {
+	it('holds only the escaped figure, under the same policy, with no script', () => {
+		const d = hostileDemo();
+		const page = figurePageHtml(d.variables[0].label, writeSvg(d, []));
+		const els = elements(parse(page) as unknown as Node);
+		expect(els.filter((e) => ['script', 'img'].includes(e.tagName))).toEqual([]);
+		expect(els.find((e) => e.tagName === 'title') && textOf(els.find((e) => e.tagName === 'title') as unknown as Node)).toBe(d.variables[0].label);
+		expect(els.filter((e) => e.tagName === 'svg')).toHaveLength(1);
+		expect(page).toContain(REPORT_CSP);
 	});
 });
 
