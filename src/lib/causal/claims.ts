@@ -18,12 +18,12 @@
  *
  * Speed (measured with bench/claims.ts on the benchmark's 1,000-variable DAG, ~500,000 claims).
  * The earlier version built H explicitly for every pair (n Set objects) after a separate
- * d-separation test: ~260 µs per claim. Now H is never built and a pair allocates nothing but
+ * d-separation test: ~260 µs (wall, busy machine), 350–420 µs of CPU per claim. Now H is never built and a pair allocates nothing but
  * its answer: marks are epoch-stamped arrays kept per compiled graph; An({a, b}) is the OR of
  * two precomputed ancestor bit rows; each search opens every family clique F_c = {c} ∪ pa(c)
  * of H once (so a search is linear in G[A], not O(Σ indeg²)); phase 2 stops as soon as every
- * member of Z₀ is reached. ~20 µs per claim (a 13× gain), the rest being the searches
- * themselves: on that DAG |A| ≈ 420 and phase 2 covers ≈ 300 variables before it meets
+ * member of Z₀ is reached. ~20 µs of CPU per claim, 17–22× less than before on the same pairs
+ * (bench section 3), the rest being the searches themselves: on that DAG |A| ≈ 420 and phase 2 covers ≈ 300 variables before it meets
  * Z₀, which sits next to a (or all of b's component when some member of Z₀ is cut off, in a
  * third of the pairs). A bidirectional variant (regions grown from b and from every neighbour
  * of Z₀, merged by union–find) gave the same answers but measured 1.5–2× slower: the many
