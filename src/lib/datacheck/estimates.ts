@@ -94,6 +94,21 @@ export function setsToEstimate(listing: AdjustmentSets, planned: readonly string
 	return wanted;
 }
 
+/**
+ * A second guard against separation (Albert & Anderson 1984) besides the fit's own check of
+ * fitted probabilities: under complete or quasi-complete separation the maximum-likelihood
+ * estimate does not exist, and IRLS stops with a huge coefficient and an even larger
+ * standard error (Heinze & Schemper, Stat Med 2002). A standard error above 10 on the
+ * log-odds scale (an odds-ratio interval spanning more than e^39) or a non-finite one is taken
+ * as that sign — a rule of thumb. O(p).
+ */
+export function separationWarning(effect: ExposureEffect): string | null {
+	if (effect.model !== 'logistic') return null;
+	const suspicious = effect.fits.adjusted.coefficients.filter((c) => !Number.isFinite(c.se) || !Number.isFinite(c.estimate) || c.se > 10).map((c) => `'${c.name}'`);
+	if (suspicious.length === 0) return null;
+	return `Likely separation (an outcome level predicted perfectly): the estimate for ${suspicious.join(', ')} has no finite maximum-likelihood value and its interval is meaningless; consider fewer or coarser covariates, or penalized (Firth) regression.`;
+}
+
 export function estimateEffects(seen: Diagram, columnOf: (name: string) => Column, mapping: VariableMapping, options: EstimateOptions = {}): EstimatesOutcome {
 	const question = estimateQuestion(seen, mapping.columns, 'has no column in the data');
 	if ('message' in question) return { estimates: null, message: question.message };
@@ -129,6 +144,8 @@ export function estimateEffects(seen: Diagram, columnOf: (name: string) => Colum
 			if (!a) throw new StatsError(`The exposure '${exposure.name}' was left out of the model (collinear with the adjustment set).`);
 			if (r.adjusted.length > 1) notes.push(`The exposure has ${r.adjusted.length + 1} levels; the first contrast (${a.term}) is shown.`);
 			const isCrude = w.set.length === 0;
+			const separation = separationWarning(r);
+			const rowWarnings = separation && !r.warnings.some((x) => /separation/i.test(x)) ? [...r.warnings, separation] : r.warnings;
 			rows.push({
 				...blank,
 				sufficient,
@@ -140,9 +157,9 @@ export function estimateEffects(seen: Diagram, columnOf: (name: string) => Colum
 				crudeSameRows: isCrude ? null : r.crude[0].estimate,
 				changePercent: isCrude ? null : r.change[0].percent,
 				changeMarked: isCrude ? false : r.change[0].atLeastTenPercent,
-				warnings: r.warnings
+				warnings: rowWarnings
 			});
-			for (const x of r.warnings) warnings.add(x);
+			for (const x of rowWarnings) warnings.add(x);
 			if (w.roles.includes('planned')) plannedEffect = { effect: r, used: [outcome, exposure, ...used] };
 		} catch (e) {
 			if (!(e instanceof StatsError || e instanceof InputError)) throw e;

@@ -166,3 +166,31 @@ describe('summary-matrix path (mtcars covariance matrix written by R)', () => {
 		expect(() => parseSummaryMatrix(',a,b\nb,1,0.2\na,0.2,1\nn,10\n')).toThrow(StatsError);
 	});
 });
+
+describe('warnings on the estimates, never silent nonsense', () => {
+	const d = chain(['c', 'x', 'y'], [['c', 'x'], ['c', 'y'], ['x', 'y']], 'x', 'y', ['c']);
+
+	it('separation: an exposure that predicts the outcome perfectly is flagged', () => {
+		const rows = ['c,x,y'];
+		for (let i = 0; i < 60; i++) rows.push(`${i % 7},${i % 2},${i % 2}`);
+		const r = runDataChecks(d, tableOf(rows.join('\n')), { parts: { arrows: false, claims: false } });
+		const planned = r.estimates!.rows.find((x) => x.roles.includes('planned'))!;
+		expect(planned.warnings.join(' ')).toMatch(/separation|did not converge|fitted probabilities/i);
+	});
+
+	it('fewer than about 10 events per parameter is flagged as a rule of thumb (Peduzzi et al. 1996)', () => {
+		const rows = ['c,x,y'];
+		for (let i = 0; i < 80; i++) rows.push(`${(i * 37) % 11},${i % 3 === 0 ? 1 : 0},${i % 13 === 0 ? 1 : 0}`);
+		const r = runDataChecks(d, tableOf(rows.join('\n')), { parts: { arrows: false, claims: false } });
+		const planned = r.estimates!.rows.find((x) => x.roles.includes('planned'))!;
+		expect(planned.warnings.join(' ')).toMatch(/rule of thumb \(Peduzzi et al\., J Clin Epidemiol 1996\)/);
+	});
+
+	it('collinearity: an adjustment column equal to the exposure is left out and named', () => {
+		const rows = ['c,x,y'];
+		for (let i = 0; i < 50; i++) rows.push(`${(i * 7) % 10},${(i * 7) % 10},${((i * 13) % 17) / 3}`);
+		const r = runDataChecks(d, tableOf(rows.join('\n')), { parts: { arrows: false, claims: false } });
+		const planned = r.estimates!.rows.find((x) => x.roles.includes('planned'))!;
+		expect(planned.message ?? planned.warnings.join(' ')).toMatch(/collinear|left out/i);
+	});
+});
