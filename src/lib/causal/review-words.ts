@@ -87,15 +87,22 @@ export function assumptionWords(c: AssumptionChange, label: Label): string {
 	}
 }
 
-/** "The plan depends on there being no arrow from A to B: with it, X ← A → B → Y would be open." */
-export function weaknessWords(w: PlanWeakness, arrows: readonly { from: string; to: string }[], label: Label): string {
-	const head = `The plan depends on ${w.change.kind === 'add-arrow' ? 'there being ' : ''}${assumptionWords(w.change, label)}`;
+/** The two halves of a weakness: what the plan assumes, and what happens otherwise. */
+export function weaknessParts(w: PlanWeakness, arrows: readonly { from: string; to: string }[], label: Label): { assumes: string; otherwise: string } {
+	const assumes = `${w.change.kind === 'add-arrow' ? 'there being ' : ''}${assumptionWords(w.change, label)}`;
 	if (w.failure === 'unmeasured') {
-		const fallback = w.fallback === undefined ? '' : w.fallback === null ? ' Without it no set of measured variables is sufficient.' : ` Without it, ${setWords(w.fallback, label)} would do.`;
-		return `${head}.${fallback}`;
+		const otherwise = w.fallback === undefined ? '' : w.fallback === null ? 'without it no set of measured variables is sufficient' : `without it, ${setWords(w.fallback, label)} would do`;
+		return { assumes, otherwise };
 	}
-	if (!w.witness) return `${head} (a ${w.length}-arrow path would open).`;
+	if (!w.witness) return { assumes, otherwise: `a ${w.length}-arrow biasing path would open` };
 	const path = pathWords(w.witness, arrowTestAfter(arrows, w.change), label);
-	if (w.failure === 'forbidden') return `${head}: otherwise ${label(w.witness[w.witness.length - 1])} would lie on or below a causal path (${path}).`;
-	return `${head}: otherwise ${path} would be open.`;
+	if (w.failure === 'forbidden') return { assumes, otherwise: `${label(w.witness[w.witness.length - 1])} would lie on or below a causal path (${path})` };
+	return { assumes, otherwise: `${path} would be open` };
+}
+
+/** "The plan depends on there being no arrow from A to B: otherwise X ← A → B → Y would be open." */
+export function weaknessWords(w: PlanWeakness, arrows: readonly { from: string; to: string }[], label: Label): string {
+	const { assumes, otherwise } = weaknessParts(w, arrows, label);
+	if (w.failure === 'unmeasured') return `The plan depends on ${assumes}.${otherwise ? ` ${otherwise[0].toUpperCase()}${otherwise.slice(1)}.` : ''}`;
+	return `The plan depends on ${assumes}: otherwise ${otherwise}.`;
 }

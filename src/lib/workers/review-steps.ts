@@ -25,7 +25,8 @@ export type ReviewJob = { kind: 'review'; diagram: Diagram; stated: string[] } |
 export function runReview(d: Diagram, stated: string[]): ReviewResult {
 	const single = d.exposures.length === 1 && d.outcomes.length === 1;
 	return {
-		review: reviewAdjustment(d, { adjusted: stated }),
+		// The nearest minimal set is sought among the first 300 listed (the answer says when more exist).
+		review: reviewAdjustment(d, { adjusted: stated, maxSets: 300 }),
 		efficiency: efficiencyAdvice(d, { adjusted: stated }),
 		instruments: single ? conditionalInstruments(d) : null
 	};
