@@ -37,7 +37,7 @@ export const MAX_FILE_BYTES = MAX_DIAGRAM_CHARS;
  * first bad byte, rather than read with replacement characters.
  */
 export async function readFileText(file: File): Promise<string> {
-	if (file.size > MAX_FILE_BYTES) throw new InputError(`${file.name}: the file is ${describeBytes(file.size)}; a diagram file may have at most ${describeBytes(MAX_FILE_BYTES)}`);
+	if (file.size > MAX_FILE_BYTES) throw new InputError(`${file.name}: The file is too large: ${describeBytes(file.size)}, but a diagram file may have at most ${describeBytes(MAX_FILE_BYTES)}`);
 	try {
 		return decodeTextFile(new Uint8Array(await file.arrayBuffer()));
 	} catch (e) {
