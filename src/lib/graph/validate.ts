@@ -146,6 +146,16 @@ export function validateDiagram(d: Diagram, opts: ValidateOptions = {}): Diagram
 	return issues;
 }
 
+/**
+ * The first problem an editor cannot display, or undefined: a repeated id or an arrow to a
+ * variable that is not listed (the canvas and the lists draw each variable and arrow by its
+ * id). The app refuses to open such a file, naming the problem; the other issues are shown in
+ * the opened diagram. O(n + m).
+ */
+export function firstUnopenableIssue(d: Diagram): DiagramIssue | undefined {
+	return validateDiagram(d).find((i) => i.code === 'duplicate-id' || i.code === 'unknown-arrow-end');
+}
+
 /** Throws an InputError with the first problem validateDiagram finds (where = its ids). */
 export function assertValidDiagram(d: Diagram, opts: ValidateOptions = {}): void {
 	const [first] = validateDiagram(d, opts);
