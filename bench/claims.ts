@@ -7,21 +7,10 @@
  */
 import type { CompiledDag } from '../src/lib/graph/compiled';
 import { impliedClaimsIdx } from '../src/lib/causal/claims';
-import { dSeparated } from '../src/lib/causal/dsep';
-import { contractedMoralGraph } from '../src/lib/causal/moral-graph';
-import { adjacent, ancestorsOf, membersOf } from '../src/lib/causal/reach';
-import { closeSeparator } from '../src/lib/causal/separators';
+import { adjacent } from '../src/lib/causal/reach';
+import { measuredSeparatorViaMoralGraph } from '../tests/unit/reference/moral-separator';
 import { randomDag, xorshift } from './random-dag';
 import { fmtInt, fmtMs, timeOnce, type Section } from './table';
-
-function previousMethod(g: CompiledDag, a: number, b: number): number[] | null {
-	const allowed = new Uint8Array(g.n);
-	for (let v = 0; v < g.n; v++) allowed[v] = g.measured[v] && v !== a && v !== b ? 1 : 0;
-	const candidate = membersOf(ancestorsOf(g, [a, b])).filter((v) => allowed[v]);
-	if (!dSeparated(g, [a], [b], candidate).separated) return null;
-	const h = contractedMoralGraph(g, [a], [b], allowed);
-	return closeSeparator(h, [h.source]);
-}
 
 /** CPU ms per pair of the previous method over `samples` random non-adjacent pairs. */
 function previousPerPair(g: CompiledDag, samples: number): number {
@@ -32,9 +21,9 @@ function previousPerPair(g: CompiledDag, samples: number): number {
 		const b = Math.floor(rand() * g.n);
 		if (a < b && !adjacent(g, a, b)) pairs.push([a, b]);
 	}
-	previousMethod(g, pairs[0][0], pairs[0][1]);
+	measuredSeparatorViaMoralGraph(g, pairs[0][0], pairs[0][1]);
 	return timeOnce(() => {
-		for (const [a, b] of pairs) previousMethod(g, a, b);
+		for (const [a, b] of pairs) measuredSeparatorViaMoralGraph(g, a, b);
 	}).cpu / samples;
 }
 
