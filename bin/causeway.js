@@ -10,6 +10,12 @@ if (!existsSync(bundle)) {
 	process.stderr.write('causeway: the command is not built yet; run `npm install` (or `npm run build:cli`) in the project folder\n');
 	process.exit(2);
 }
+// A reader that stops early (`causeway claims d.json | head`) closes the pipe: that is not an
+// error of ours, so end quietly as other Unix tools do instead of printing a stack trace.
+process.stdout.on('error', (err) => {
+	if (err && err.code === 'EPIPE') process.exit(process.exitCode ?? 0);
+	throw err;
+});
 const { main } = await import(pathToFileURL(bundle).href);
 process.exitCode = await main(process.argv.slice(2), {
 	stdout: (s) => process.stdout.write(s),

@@ -232,3 +232,24 @@ describe('convert and the installed command', () => {
 		expect(broken.stderr.trim().split('\n')).toHaveLength(1);
 	});
 });
+
+describe('the bundled command in a pipeline', () => {
+	it('ends quietly when the reader closes the pipe early (`causeway claims big.json | head -1`)', () => {
+		const dir = mkdtempSync(join(tmpdir(), 'causeway-pipe-'));
+		const file = join(dir, 'chain.json');
+		// A 400-variable chain implies 79,401 claims: far more output than one pipe buffer.
+		const ids = Array.from({ length: 400 }, (_, i) => `v${i}`);
+		writeFileSync(
+			file,
+			JSON.stringify({
+				format: 'causeway.diagram',
+				version: 1,
+				variables: ids.map((id) => ({ id })),
+				arrows: ids.slice(1).map((id, i) => ({ from: ids[i], to: id }))
+			})
+		);
+		const run = spawnSync('bash', ['-c', `node bin/causeway.js claims "${file}" | head -1; echo "status \${PIPESTATUS[0]}" >&2`], { encoding: 'utf8' });
+		expect(run.stdout).toMatch(/^v0 ⟂ v2 \| v1\n$/);
+		expect(run.stderr).toBe('status 0\n');
+	});
+});
