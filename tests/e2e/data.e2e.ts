@@ -3,6 +3,7 @@
 // plot and E-value; a bad CSV gives one clear message and leaves the earlier results; the
 // whole section works from the keyboard.
 import { expect, test, type Page } from '@playwright/test';
+import { readFileSync } from 'node:fs';
 import { counts } from './helpers';
 
 /** First visit: the app opens the demo study diagram. */
@@ -158,4 +159,18 @@ test('keyboard only: load the demo data, change a column link, pin an arrow chec
 	await page.keyboard.press(' ');
 	await expect(check).toHaveAttribute('aria-pressed', 'true');
 	await page.keyboard.press('Escape');
+});
+
+test('the protocol report carries the data checks and estimates once they are complete', async ({ page }) => {
+	await openDemo(page);
+	await loadDemoData(page);
+	await expect(data(page)).toContainText(/46 tested/, { timeout: 30_000 });
+	await page.getByRole('button', { name: /^▸?\s*Report/ }).click();
+	const reportSection = page.locator('[data-section="report"]');
+	await expect(reportSection.getByText('The report includes the data checks and estimates.')).toBeVisible();
+	const [file] = await Promise.all([page.waitForEvent('download'), reportSection.getByRole('button', { name: 'HTML', exact: true }).click()]);
+	const html = readFileSync((await file.path())!, 'utf8');
+	expect(html).toContain('Data checks and estimates');
+	expect(html).toContain('cycling-hypertension.csv');
+	expect(html).toMatch(/E-value/);
 });
