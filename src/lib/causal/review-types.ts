@@ -2,6 +2,7 @@
  * Result types of the reviewer tools (review, robustness, efficiency, instruments, diagram
  * comparison) in variable ids, as the CLI prints them and the app shows them.
  */
+import type { DiagramDiffStructure } from './diff';
 
 export type ReviewReason =
 	/** A non-causal path left open; a back-door path when its first arrow points into the exposure. */
@@ -81,16 +82,7 @@ export interface Instrument {
 	given: string[];
 }
 
-export interface DiagramComparison {
-	renamed: { first: string; second: string; how: 'id' | 'label' | 'id-label' | 'neighbours'; firstLabel: string; secondLabel: string }[];
-	added: string[];
-	removed: string[];
-	arrowsAdded: { from: string; to: string }[];
-	arrowsRemoved: { from: string; to: string }[];
-	arrowsReversed: { from: string; to: string }[];
-	arrowsOfAdded: { from: string; to: string }[];
-	arrowsOfRemoved: { from: string; to: string }[];
-	measuredChanged: { id: string; measured: boolean }[];
+export interface DiagramComparison extends Omit<DiagramDiffStructure, 'matches'> {
 	/** Minimal sets of each diagram, the second's written in first-diagram ids where matched. */
 	sets: { first: string[][] | null; second: string[][] | null; onlyFirst: string[][]; onlySecond: string[][]; common: string[][] };
 	/** The first diagram's planned set judged under each diagram (null: not judged, with why). */

@@ -31,7 +31,7 @@ import { checkAdjustmentIdx, isAdjustmentSet } from './adjustment';
 import { contractedMoralGraph } from './moral-graph';
 import { properBackDoorGraph, properCausalStructure } from './proper-causal';
 import { ancestorsOf, hasArrow, maskOf, type Mask } from './reach';
-import { minimumSeparator } from './separators';
+import { componentOf, minimumSeparator } from './separators';
 import { listMinimalAdjustmentSetsIdx } from './sets';
 
 export type ReviewReasonIdx =
@@ -98,22 +98,6 @@ function adjustedBelow(g: CompiledDag, v: number, Z: Mask): number[] {
 	return out;
 }
 
-/** Vertices reachable from `start` in h without entering `blocked`. O(n + m). */
-function reachable(h: ContractedMoralGraph, start: number, blocked: Mask): Uint8Array {
-	const seen = new Uint8Array(h.size);
-	const stack = [start];
-	seen[start] = 1;
-	while (stack.length > 0) {
-		const u = stack.pop()!;
-		for (const w of h.adjacency[u]) {
-			if (seen[w] || blocked[w]) continue;
-			seen[w] = 1;
-			stack.push(w);
-		}
-	}
-	return seen;
-}
-
 /**
  * A minimal source–sink separator inside the separator `members` of h (FINDMINSEP, van der
  * Zander et al. 2019): keep the members next to the source's component, then of those the
@@ -122,11 +106,11 @@ function reachable(h: ContractedMoralGraph, start: number, blocked: Mask): Uint8
 export function minimalSubSeparator(h: ContractedMoralGraph, members: readonly number[]): number[] {
 	const blocked = new Uint8Array(h.size);
 	for (const v of members) blocked[v] = 1;
-	const fromSource = reachable(h, h.source, blocked);
+	const fromSource = componentOf(h, h.source, blocked);
 	const first = members.filter((v) => h.adjacency[v].some((w) => fromSource[w]));
 	blocked.fill(0);
 	for (const v of first) blocked[v] = 1;
-	const fromSink = reachable(h, h.sink, blocked);
+	const fromSink = componentOf(h, h.sink, blocked);
 	return first.filter((v) => h.adjacency[v].some((w) => fromSink[w])).sort((a, b) => a - b);
 }
 

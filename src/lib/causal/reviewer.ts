@@ -201,16 +201,9 @@ export function compareDiagrams(first: Diagram, second: Diagram, opts: { maxSets
 	if (question.length > 0) note = `exposure or outcome not in the second diagram: ${question.join(', ')}`;
 	else if (missing.length > 0) note = `planned variable(s) not in the second diagram: ${missing.join(', ')}`;
 	else verdictSecond = judge(secondAsked, plannedIds.map((id) => toSecond.get(id)!));
+	const { matches: _matches, ...changes } = structure;
 	return {
-		renamed: structure.renamed,
-		added: structure.added,
-		removed: structure.removed,
-		arrowsAdded: structure.arrowsAdded,
-		arrowsRemoved: structure.arrowsRemoved,
-		arrowsReversed: structure.arrowsReversed,
-		arrowsOfAdded: structure.arrowsOfAdded,
-		arrowsOfRemoved: structure.arrowsOfRemoved,
-		measuredChanged: structure.measuredChanged,
+		...changes,
 		sets: {
 			first: setsA,
 			second: setsB,

@@ -17,7 +17,7 @@
 import type { ContractedMoralGraph } from './moral-graph';
 
 /** Vertices reachable from `start` without entering `blocked`. O(n + m). */
-function componentOf(h: ContractedMoralGraph, start: number, blocked: Uint8Array): Uint8Array {
+export function componentOf(h: ContractedMoralGraph, start: number, blocked: Uint8Array): Uint8Array {
 	const seen = new Uint8Array(h.size);
 	const stack = [start];
 	seen[start] = 1;
