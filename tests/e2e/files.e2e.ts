@@ -52,7 +52,7 @@ test('first visit shows the demo study; later visits restore the autosaved diagr
 
 test('open a DOT file without positions: tidy layout, question read from the file', async ({ page }) => {
 	await openEmpty(page);
-	await page.locator('input[type=file]').setInputFiles({ name: 'study.dot', mimeType: 'text/vnd.graphviz', buffer: Buffer.from(DOT_WITHOUT_POSITIONS) });
+	await page.locator('header.toolbar input[type=file]').setInputFiles({ name: 'study.dot', mimeType: 'text/vnd.graphviz', buffer: Buffer.from(DOT_WITHOUT_POSITIONS) });
 	await expect(message(page)).toContainText('Opened study.dot: 4 variables, 5 arrows');
 	// Minimal set {Age} (the mediator example, Schisterman et al. 2009).
 	await expect(page.getByRole('button', { name: 'Plan {Age}' })).toBeVisible();
@@ -100,11 +100,11 @@ test('save as JSON and DOT, open the saved file again, drag-and-drop, and a bad 
 	await expect(verdict(page)).toContainText('Adjusting for Age, Diet quality and Household income is sufficient');
 
 	// A broken file: one line naming the place, and the diagram as it was.
-	await page.locator('input[type=file]').setInputFiles({ name: 'broken.json', mimeType: 'application/json', buffer: Buffer.from('{\n  "format": "causeway.diagram",\n  "version": 1,\n  "variables": [ { "id": "a" }, ]\n}\n') });
+	await page.locator('header.toolbar input[type=file]').setInputFiles({ name: 'broken.json', mimeType: 'application/json', buffer: Buffer.from('{\n  "format": "causeway.diagram",\n  "version": 1,\n  "variables": [ { "id": "a" }, ]\n}\n') });
 	await expect(message(page)).toContainText('Not opened — broken.json: Invalid JSON at line 4');
 	expect((await counts(page)).variables).toBe(13);
 
 	// The native file saved earlier opens back to the same diagram.
-	await page.locator('input[type=file]').setInputFiles((await json.path())!);
+	await page.locator('header.toolbar input[type=file]').setInputFiles((await json.path())!);
 	await expect(message(page)).toContainText('13 variables, 21 arrows');
 });
