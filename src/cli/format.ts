@@ -1,5 +1,6 @@
 /** Plain-text rendering helpers for the command's human-readable output. */
-import type { AdjustmentProblem, ForbiddenWhy, PathNodeReason, Role } from '../lib/causal/types';
+import type { AdjustmentProblem, ForbiddenWhy, PathNodeReason } from '../lib/causal/types';
+import { ROLE_NAME } from '../lib/causal/role-names';
 
 export const braces = (ids: readonly string[]): string => (ids.length === 0 ? '{} (no adjustment needed)' : `{${ids.join(', ')}}`);
 
@@ -25,18 +26,7 @@ export function problemText(p: AdjustmentProblem, arrows: (a: string, b: string)
 	return `open non-causal path: ${pathText(p.path, arrows)}`;
 }
 
-export const ROLE_TEXT: Record<Role, string> = {
-	exposure: 'exposure',
-	outcome: 'outcome',
-	confounder: 'confounder',
-	mediator: 'mediator',
-	collider: 'collider',
-	'descendant-of-exposure': 'descendant of exposure',
-	'descendant-of-outcome': 'descendant of outcome',
-	'instrument-like': 'instrument-like',
-	precision: 'precision variable',
-	unrelated: 'unrelated'
-};
+export const ROLE_TEXT = ROLE_NAME;
 
 export function reasonText(r: PathNodeReason): string {
 	switch (r.reason) {

@@ -10,6 +10,7 @@ import type { Diagram } from '../graph/diagram';
 import { validateDiagram } from '../graph/validate';
 import { adjustmentSets, checkAdjustment, variableRoles } from '../causal/analysis';
 import type { AdjustmentCheck, AdjustmentSets, Role, VariableRoles } from '../causal/types';
+import { ROLE_NAME } from '../causal/role-names';
 import { BADGE_MEANING, labelLookup, listNames, pathText, problemText, setText, verdictSentence, type LabelOf } from '../ui/wording';
 import { criticalAbsentArrows, withPlannedReasons, type AbsentArrowReport } from './assumptions';
 import type { ReportDataResults } from './report-data';
@@ -76,18 +77,8 @@ export const CAUTIONS: readonly string[] = [
 export const METHODS =
 	'Methods: d-separation (Pearl 1988); the adjustment criterion (Shpitser, VanderWeele & Robins 2010) and the listing of minimal sufficient adjustment sets (van der Zander, Liśkiewicz & Textor 2019); the efficiency-optimal set (Henckel, Perković & Maathuis 2022).';
 
-const ROLE_WORD: Record<Role, string> = {
-	exposure: 'exposure',
-	outcome: 'outcome',
-	confounder: 'confounder',
-	mediator: 'mediator',
-	collider: 'collider',
-	'descendant-of-exposure': 'descendant of exposure',
-	'descendant-of-outcome': 'descendant of outcome',
-	'instrument-like': 'instrument-like',
-	precision: 'precision variable',
-	unrelated: 'unrelated to the question'
-};
+/** In the report's variable table, an unrelated variable is said to be unrelated to the question. */
+const ROLE_WORD: Record<Role, string> = { ...ROLE_NAME, unrelated: 'unrelated to the question' };
 
 /** The date as YYYY-MM-DD in the local time zone (the day the user made the report). */
 export const isoDate = (date: Date) =>

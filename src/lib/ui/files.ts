@@ -1,19 +1,12 @@
 /** Browser file plumbing: saving text as a download and reading a chosen or dropped file. */
 import { InputError } from '../graph/errors';
+import { downloadBlob } from './export/download';
 import { decodeTextFile } from '../graph/text-decoding';
 import { describeBytes, MAX_DIAGRAM_CHARS } from '../limits';
 
 /** Offers `text` as a file download (a blob: URL, so nothing leaves the machine). */
 export function downloadText(name: string, text: string, type: string): void {
-	const url = URL.createObjectURL(new Blob([text], { type }));
-	const a = document.createElement('a');
-	a.href = url;
-	a.download = name;
-	a.rel = 'noopener';
-	document.body.append(a);
-	a.click();
-	a.remove();
-	setTimeout(() => URL.revokeObjectURL(url), 10_000);
+	downloadBlob(name, new Blob([text], { type }));
 }
 
 /** A file name from the diagram title: "Cycling and BP" → "cycling-and-bp". */
