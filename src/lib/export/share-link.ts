@@ -21,6 +21,7 @@ import { deflateSync, Inflate, strToU8 } from 'fflate';
 import type { Diagram } from '../graph/diagram';
 import { InputError } from '../graph/errors';
 import { parseDiagramJson, writeDiagramJson } from '../graph/native-json';
+import { firstUnopenableIssue } from '../graph/validate';
 import { base64UrlToBytes, bytesToBase64Url } from './base64';
 
 export const SHARE_PREFIX = 'diagram=1.';
@@ -110,9 +111,14 @@ export function readShareFragment(fragment: string): Diagram | null {
 	} catch {
 		throw new InputError('The share link is damaged: its diagram is not valid UTF-8 text');
 	}
+	let shared: Diagram;
 	try {
-		return parseDiagramJson(jsonText);
+		shared = parseDiagramJson(jsonText);
 	} catch (e) {
 		throw new InputError(`The share link holds a diagram that cannot be read: ${e instanceof Error ? e.message : String(e)}`);
 	}
+	// As for opened files: repeated ids and arrows to unlisted variables cannot be drawn.
+	const unopenable = firstUnopenableIssue(shared);
+	if (unopenable) throw new InputError(`The share link holds a diagram that cannot be opened: ${unopenable.message}`);
+	return shared;
 }

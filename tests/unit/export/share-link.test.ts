@@ -109,6 +109,11 @@ describe('share links', () => {
 			/variables\[0\]\.id must be text/
 		);
 		expect(damaged(`diagram=1.${bytesToBase64Url(deflateSync(new Uint8Array([0xff, 0xfe, 0x41])))}`)).toMatch(/not valid UTF-8/);
+		// Repeated ids cannot be drawn (the canvas keys variables by id): refused as for opened files.
+		const twice = '{"format":"causeway.diagram","version":1,"variables":[{"id":"a"},{"id":"a"}],"arrows":[]}';
+		expect(damaged(`diagram=1.${bytesToBase64Url(deflateSync(strToU8(twice)))}`)).toMatch(/cannot be opened: .*"a"/);
+		const dangling = '{"format":"causeway.diagram","version":1,"variables":[{"id":"a"}],"arrows":[{"from":"a","to":"b"}]}';
+		expect(damaged(`diagram=1.${bytesToBase64Url(deflateSync(strToU8(dangling)))}`)).toMatch(/cannot be opened: .*"b"/);
 	});
 
 	it('refuse a link that unpacks to more than the file size limit (a "zip bomb")', () => {
