@@ -7,6 +7,7 @@ export default defineConfig({
 		include: ['tests/unit/**/*.test.ts'],
 		environment: 'node',
 		testTimeout: 60_000,
-		hookTimeout: 60_000
+		hookTimeout: 60_000,
+		setupFiles: ['tests/unit/fast-check-seed.ts']
 	}
 });

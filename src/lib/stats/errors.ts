@@ -10,7 +10,9 @@ export class StatsError extends Error {
 	readonly column: string | undefined;
 
 	constructor(message: string, where: { row?: number; column?: string } = {}) {
-		super(message);
+		// Names and values quoted from a file may hold line breaks (a quoted CSV header can):
+		// shown as ↵ so that the message stays one line, as promised above.
+		super(message.replace(/\r\n|[\r\n\u2028\u2029]/g, '↵'));
 		this.name = 'StatsError';
 		this.row = where.row;
 		this.column = where.column;

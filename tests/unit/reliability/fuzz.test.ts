@@ -8,7 +8,8 @@
  * - no input takes more than HANG_MS (a guard against hangs on pathological input, far above
  *   the few milliseconds each takes; speed itself is measured in `npm run bench`);
  * - Object.prototype is unchanged afterwards (no prototype pollution).
- * The seed is fixed per run by fast-check and printed on failure, so a failure can be replayed.
+ * The seed is fixed (tests/unit/fast-check-seed.ts; FAST_CHECK_SEED=random explores new
+ * inputs) and printed on failure, so a failure can be replayed.
  */
 import { readFileSync, writeFileSync } from 'node:fs';
 import fc from 'fast-check';

@@ -118,6 +118,10 @@ describe('bad input gets one line naming the problem and where', () => {
 		expect(e.message).toBe('Row 3 has 2 fields but the header has 3.');
 		expect(e.row).toBe(3);
 	});
+	it('a quoted header with a line break stays on one line in the message (found by fuzzing)', () => {
+		const e = err(parseTable('"bmi\nkg/m2",age\n22.1,34\nabc,41\n27.3,52\n'));
+		expect(e.message).toBe("Row 3, column 'bmi↵kg/m2': 'abc' is not a number in a numeric column; mark it as missing or declare the column categorical.");
+	});
 	it('duplicate header', () => {
 		expect(err(parseTable('age,sex,age\n1,2,3\n')).message).toBe("Duplicate column name 'age' (columns 1 and 3).");
 	});
