@@ -3,51 +3,12 @@ import { execFileSync, spawnSync } from 'node:child_process';
 import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { main } from '../../../src/cli/main';
+import { runCli as run, diagramJson as diagram, MBIAS } from './harness';
 
 const DEMO = 'static/demo/cycling-hypertension.causeway.json';
 
-async function run(args: string[], files: Record<string, string> = {}) {
-	let out = '';
-	let err = '';
-	const written: Record<string, string> = {};
-	const code = await main(args, {
-		stdout: (s) => (out += s),
-		stderr: (s) => (err += s),
-		readFile: async (p) => (p in files ? files[p] : readFileSync(p, 'utf8')),
-		writeFile: async (p, c) => {
-			written[p] = typeof c === 'string' ? c : Buffer.from(c).toString('utf8');
-		}
-	});
-	return { code, out, err, written };
-}
 
-const diagram = (arrows: [string, string][], extra: Record<string, unknown> = {}) => {
-	const ids = [...new Set(arrows.flat())];
-	return JSON.stringify({
-		format: 'causeway.diagram',
-		version: 1,
-		title: 't',
-		variables: ids.map((id) => ({ id, label: id, measured: true })),
-		arrows: arrows.map(([from, to]) => ({ from, to })),
-		exposures: [],
-		outcomes: [],
-		adjusted: [],
-		...extra
-	});
-};
 
-// M-bias (Greenland, Epidemiology 2003): E ← U1 → M ← U2 → D, E → D.
-const MBIAS = diagram(
-	[
-		['u1', 'e'],
-		['u1', 'm'],
-		['u2', 'm'],
-		['u2', 'd'],
-		['e', 'd']
-	],
-	{ exposures: ['e'], outcomes: ['d'] }
-);
 
 describe('causeway sets', () => {
 	it('prints the demo study sets as the JSON contract says', async () => {

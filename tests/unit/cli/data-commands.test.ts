@@ -2,7 +2,7 @@
 // app), human-readable and --json, exit 0 when done and 2 with one stderr line on bad input.
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { main } from '../../../src/cli/main';
+import { runCli as run } from './harness';
 import { runDataChecks } from '../../../src/lib/datacheck';
 import { parseDiagramJson } from '../../../src/lib/graph/native-json';
 import { parseTable } from '../../../src/lib/stats';
@@ -13,19 +13,6 @@ const MTCARS = 'tests/fixtures/datacheck/mtcars.causeway.json';
 const MTCARS_CSV = 'tests/fixtures/datacheck/mtcars.csv';
 const MTCARS_COV = 'tests/fixtures/datacheck/mtcars-covariance.csv';
 
-async function run(args: string[], files: Record<string, string> = {}) {
-	let out = '';
-	let err = '';
-	const code = await main(args, {
-		stdout: (s) => (out += s),
-		stderr: (s) => (err += s),
-		readFile: async (p) => {
-			if (p in files) return files[p];
-			return readFileSync(p, 'utf8');
-		}
-	});
-	return { code, out, err };
-}
 
 function pipeline(diagramPath: string, csvPath: string) {
 	const t = parseTable(readFileSync(csvPath, 'utf8'));

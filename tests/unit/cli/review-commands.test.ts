@@ -4,49 +4,13 @@
  * usage or input), run in-process through main() with injected files.
  */
 import { describe, expect, it } from 'vitest';
-import { readFileSync } from 'node:fs';
 import { spawnSync } from 'node:child_process';
-import { main } from '../../../src/cli/main';
+import { runCli as run, diagramJson as diagram, MBIAS } from './harness';
 
 const DEMO = 'static/demo/cycling-hypertension.causeway.json';
 
-async function run(args: string[], files: Record<string, string> = {}) {
-	let out = '';
-	let err = '';
-	const code = await main(args, {
-		stdout: (s) => (out += s),
-		stderr: (s) => (err += s),
-		readFile: async (p) => (p in files ? files[p] : readFileSync(p, 'utf8'))
-	});
-	return { code, out, err };
-}
 
-const diagram = (arrows: [string, string][], extra: Record<string, unknown> = {}, labels: Record<string, string> = {}) => {
-	const ids = [...new Set(arrows.flat())];
-	return JSON.stringify({
-		format: 'causeway.diagram',
-		version: 1,
-		title: 't',
-		variables: ids.map((id) => ({ id, label: labels[id] ?? id, measured: true })),
-		arrows: arrows.map(([from, to]) => ({ from, to })),
-		exposures: [],
-		outcomes: [],
-		adjusted: [],
-		...extra
-	});
-};
 
-// M-bias (Greenland, Pearl & Robins, Epidemiology 1999): E ← U1 → M ← U2 → D, E → D.
-const MBIAS = diagram(
-	[
-		['u1', 'e'],
-		['u1', 'm'],
-		['u2', 'm'],
-		['u2', 'd'],
-		['e', 'd']
-	],
-	{ exposures: ['e'], outcomes: ['d'] }
-);
 
 describe('causeway review', () => {
 	it('M-bias, adjusting the collider: exit 1, every reason and the fixes in JSON', async () => {

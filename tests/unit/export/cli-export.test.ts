@@ -5,25 +5,11 @@
  */
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { main } from '../../../src/cli/main';
+import { runCli as run } from '../cli/harness';
 import { EXPORT_FORMATS, exportText, type ExportFormat } from '../../../src/lib/export/formats';
 import { SOFTWARE_VERSION } from '../../../src/lib/export/version';
 import { demo, DEMO_PATH } from './helpers';
 
-async function run(args: string[], files: Record<string, string> = {}) {
-	let out = '';
-	let err = '';
-	const written: Record<string, string> = {};
-	const code = await main(args, {
-		stdout: (s) => (out += s),
-		stderr: (s) => (err += s),
-		readFile: async (p) => (p in files ? files[p] : readFileSync(p, 'utf8')),
-		writeFile: async (p, c) => {
-			written[p] = typeof c === 'string' ? c : Buffer.from(c).toString('utf8');
-		}
-	});
-	return { code, out, err, written };
-}
 
 const DATE = new Date(2026, 2, 1);
 
