@@ -18,11 +18,11 @@ import {
 	exposureOutcomePaths,
 	impliedClaims,
 	variableRoles
-} from '../lib/causal/analysis';
-import type { Effect } from '../lib/causal/types';
+} from '../lib/causal';
+import type { Effect } from '../lib/causal';
 import { UsageError, type CliIo } from './io';
 import { COMMON, QUESTION, QUESTION_HELP, type Command, type Context, type Values } from './command';
-import { braces, pathText, problemText, reasonText, ROLE_TEXT } from './format';
+import { braces, pathText, problemText, reasonText, ROLE_TEXT } from '../lib/wording/command-line';
 import { estimateCommand } from './commands/estimate';
 import { testCommand } from './commands/test';
 import { exportCommand } from './commands/export';

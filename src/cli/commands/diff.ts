@@ -2,8 +2,8 @@
 import { readFile } from 'node:fs/promises';
 import type { Diagram } from '../../lib/graph/diagram';
 import { readDiagramBytes, readDiagramText } from '../../lib/graph/read-file';
-import { compareDiagrams } from '../../lib/causal/analysis';
-import { setWords } from '../../lib/causal/review-words';
+import { compareDiagrams } from '../../lib/causal';
+import { setWords } from '../../lib/wording';
 import { UsageError } from '../io';
 import type { Command, Context } from '../command';
 

@@ -4,7 +4,8 @@
  * with 95 % CIs, the change from crude, warnings and the E-value of the planned estimate.
  * Same pipeline as the app's data pane.
  */
-import { braces, formatCi, formatNumber, formatPercent } from '../../lib/datacheck';
+import { braces } from '../../lib/datacheck';
+import { formatCi, formatNumber, formatPercent } from '../../lib/wording';
 import { QUESTION, QUESTION_HELP } from '../command';
 import { COMMON_DATA_PRINT, type Command } from './data-print';
 import { CAUTION, DATA_HELP, DATA_OPTIONS, reportJson, runOnData } from './data-input';

@@ -14,8 +14,8 @@ import { checkReportData, type ReportDataResults } from '../../lib/export/report
 import { reportDataFromChecks } from '../../lib/export/from-datacheck';
 import { parseTable } from '../../lib/stats';
 import { runDataChecks } from '../../lib/datacheck';
-import { labelLookup } from '../../lib/ui/wording';
-import { dagrePositions, needsLayout, withPositions } from '../../lib/ui/canvas/layout';
+import { labelLookup } from '../../lib/wording';
+import { dagrePositions, needsLayout, withPositions } from '../../lib/layout';
 import { UsageError } from '../io';
 import { QUESTION, QUESTION_HELP, type Command, type Context } from '../command';
 

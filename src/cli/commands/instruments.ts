@@ -1,5 +1,5 @@
 /** `causeway instruments`: conditional instruments for the exposure, with their conditioning sets. */
-import { conditionalInstruments } from '../../lib/causal/analysis';
+import { conditionalInstruments } from '../../lib/causal';
 import { QUESTION, QUESTION_HELP, type Command } from '../command';
 
 export const instruments: Command = {

@@ -1,6 +1,6 @@
 /** `causeway review`: a reviewer's verdict on a stated adjustment set, with every reason and the fixes. */
-import { efficiencyAdvice, reviewAdjustment } from '../../lib/causal/analysis';
-import { arrowTest, reasonWords, reviewVerdict, setWords } from '../../lib/causal/review-words';
+import { efficiencyAdvice, reviewAdjustment } from '../../lib/causal';
+import { arrowTest, reasonWords, reviewVerdict, setWords } from '../../lib/wording';
 import { QUESTION, QUESTION_HELP, type Command } from '../command';
 
 const id = (x: string) => x;

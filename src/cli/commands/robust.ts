@@ -1,6 +1,6 @@
 /** `causeway robust`: which single change to the diagram would break the planned set. */
-import { planRobustness, setsRobustToAdditions } from '../../lib/causal/analysis';
-import { setWords, weaknessWords } from '../../lib/causal/review-words';
+import { planRobustness, setsRobustToAdditions } from '../../lib/causal';
+import { setWords, weaknessWords } from '../../lib/wording';
 import { QUESTION, QUESTION_HELP, type Command } from '../command';
 
 const id = (x: string) => x;

@@ -4,7 +4,7 @@
  * adjusted p-values (contradicted claims first). Same pipeline as the app's data pane.
  */
 import { COMMON_DATA_PRINT, type Command } from './data-print';
-import { formatNumber, formatP, pText, testSummary } from '../../lib/datacheck';
+import { formatNumber, formatP, pText, testSummary } from '../../lib/wording';
 import { CAUTION, DATA_HELP, DATA_OPTIONS, reportJson, runOnData } from './data-input';
 import { UsageError } from '../io';
 

@@ -4,10 +4,11 @@
  * one-line message naming the problem; the index-based algorithms live beside this file.
  */
 import type { Diagram } from '../graph/diagram';
-import { compileDiagram, type CompiledDag } from '../graph/compiled';
+import type { CompiledDag } from '../graph/compiled';
 import { InputError } from '../graph/errors';
 import { DEFAULT_LISTED_PATHS, MAX_LISTED_PATHS } from '../limits';
 import { validateDiagram, type DiagramIssue } from '../graph/validate';
+import { compareSets, compileChecked, indicesFor, prepare, sortIds, STRUCTURAL, type QuestionOptions } from './question';
 import type {
 	AdjustmentCheck,
 	AdjustmentSets,
@@ -25,74 +26,6 @@ import { dSeparated } from './dsep';
 import { listPathsIdx, type NodeStatus } from './paths';
 import { variableRolesIdx } from './roles';
 import { listMinimalAdjustmentSetsIdx, minimumAdjustmentSetIdx, optimalAdjustmentSetIdx } from './sets';
-
-export interface QuestionOptions {
-	exposures?: string[];
-	outcomes?: string[];
-}
-
-export interface Prepared {
-	g: CompiledDag;
-	X: number[];
-	Y: number[];
-	exposures: string[];
-	outcomes: string[];
-}
-
-/** Compares ids the same way everywhere (code-unit order, stable across machines). */
-export function compareIds(a: string, b: string): number {
-	return a < b ? -1 : a > b ? 1 : 0;
-}
-
-export function sortIds(ids: Iterable<string>): string[] {
-	return [...ids].sort(compareIds);
-}
-
-/** Orders sets by size, then lexicographically by their sorted ids. */
-export function compareSets(a: readonly string[], b: readonly string[]): number {
-	if (a.length !== b.length) return a.length - b.length;
-	for (let i = 0; i < a.length; i++) {
-		const c = compareIds(a[i], b[i]);
-		if (c !== 0) return c;
-	}
-	return 0;
-}
-
-/** Throws InputError for the first structural error (duplicate ids, unknown ends, cycles). */
-function compileChecked(d: Diagram): CompiledDag {
-	const errors = validateDiagram(d).filter((issue) => issue.code !== 'missing-exposure' && issue.code !== 'missing-outcome');
-	const blocking = errors.filter((issue) => STRUCTURAL.has(issue.code));
-	if (blocking.length > 0) throw new InputError(blocking[0].message);
-	return compileDiagram(d);
-}
-
-const STRUCTURAL = new Set<DiagramIssue['code']>(['duplicate-id', 'unknown-arrow-end', 'self-loop', 'cycle']);
-
-export function indicesFor(g: CompiledDag, ids: readonly string[], role: string): number[] {
-	const seen = new Set<string>();
-	const out: number[] = [];
-	for (const id of ids) {
-		const i = g.indexOf.get(id);
-		if (i === undefined) throw new InputError(`The ${role} "${id}" is not a variable of the diagram`);
-		if (seen.has(id)) continue;
-		seen.add(id);
-		out.push(i);
-	}
-	return out;
-}
-
-export function prepare(d: Diagram, opts: QuestionOptions = {}): Prepared {
-	const g = compileChecked(d);
-	const exposures = opts.exposures ?? d.exposures;
-	const outcomes = opts.outcomes ?? d.outcomes;
-	if (exposures.length === 0) throw new InputError('No exposure is chosen: name one (for example --exposure cycling)');
-	if (outcomes.length === 0) throw new InputError('No outcome is chosen: name one (for example --outcome hypertension)');
-	const X = indicesFor(g, exposures, 'exposure');
-	const Y = indicesFor(g, outcomes, 'outcome');
-	const both = exposures.find((id) => outcomes.includes(id));
-	if (both !== undefined) throw new InputError(`"${both}" is both an exposure and an outcome`);
-	return { g, X, Y, exposures: sortIds(new Set(exposures)), outcomes: sortIds(new Set(outcomes)) };
-}
 
 const named = (g: CompiledDag, list: readonly number[]) => list.map((i) => g.ids[i]);
 
@@ -177,8 +110,25 @@ export function exposureOutcomePaths(d: Diagram, opts: QuestionOptions & { adjus
 
 /** The independencies the diagram implies, one per non-adjacent pair of measured variables. */
 export function impliedClaims(d: Diagram, opts: { max?: number } = {}): Claim[] {
+	return listImpliedClaims(d, opts).claims;
+}
+
+/**
+ * The implied claims with whether the listing stopped at `max`, reporting progress (fraction
+ * of pairs done) for long listings. Empty when the diagram is not a DAG (the caller shows the
+ * diagram's problems instead). O(n²) pairs, each O(|An(a, b)| + arrows in it).
+ */
+export function listImpliedClaims(
+	d: Diagram,
+	opts: { max?: number; progress?: (fraction: number) => void; every?: number } = {}
+): { claims: Claim[]; truncated: boolean } {
+	if (validateDiagram(d).some((i) => STRUCTURAL.has(i.code))) return { claims: [], truncated: false };
 	const g = compileChecked(d);
-	return impliedClaimsIdx(g, opts.max).claims.map((c) => ({ a: g.ids[c.a], b: g.ids[c.b], given: c.given && sortIds(named(g, c.given)) }));
+	const listing = impliedClaimsIdx(g, opts.max, opts.progress, opts.every);
+	return {
+		claims: listing.claims.map((c) => ({ a: g.ids[c.a], b: g.ids[c.b], given: c.given && sortIds(named(g, c.given)) })),
+		truncated: listing.truncated
+	};
 }
 
 export interface Analysis {
@@ -212,6 +162,3 @@ export function analyse(d: Diagram, opts: { maxSets?: number; maxPaths?: number;
 		claims
 	};
 }
-
-// Reviewer tools (review of a stated set, robustness, efficiency, instruments, comparison).
-export { reviewAdjustment, planRobustness, setsRobustToAdditions, efficiencyAdvice, conditionalInstruments, compareDiagrams } from './reviewer';

@@ -268,13 +268,24 @@ function newMoralNeighbours(g: CompiledDag, w: Workspace, u: number, opened: Int
 	return count;
 }
 
-/** Claims for every non-adjacent pair of measured variables, at most `max`. O(n²) pairs. */
-export function impliedClaimsIdx(g: CompiledDag, max = Infinity): { claims: ClaimIdx[]; truncated: boolean } {
+/**
+ * Claims for every non-adjacent pair of measured variables, at most `max`, in index order.
+ * O(n²) pairs; `progress` (when given) is called with the fraction of pairs done about every
+ * `every` pairs, so a worker can report progress on large diagrams.
+ */
+export function impliedClaimsIdx(
+	g: CompiledDag,
+	max = Infinity,
+	progress?: (fraction: number) => void,
+	every = 250
+): { claims: ClaimIdx[]; truncated: boolean } {
 	const claims: ClaimIdx[] = [];
+	const total = (g.n * (g.n - 1)) / 2;
+	let seen = 0;
 	for (let a = 0; a < g.n; a++) {
-		if (!g.measured[a]) continue;
 		for (let b = a + 1; b < g.n; b++) {
-			if (!g.measured[b] || adjacent(g, a, b)) continue;
+			if (progress && ++seen % every === 0) progress(seen / total);
+			if (!g.measured[a] || !g.measured[b] || adjacent(g, a, b)) continue;
 			if (claims.length >= max) return { claims, truncated: true };
 			claims.push({ a, b, given: minimalMeasuredSeparator(g, a, b) });
 		}

@@ -8,7 +8,8 @@
 import type { Diagram } from '../graph/diagram';
 import type { CompiledDag } from '../graph/compiled';
 import { InputError } from '../graph/errors';
-import { adjustmentSets, checkAdjustment, compareSets, indicesFor, prepare, sortIds, type QuestionOptions } from './analysis';
+import { adjustmentSets, checkAdjustment } from './analysis';
+import { compareSets, indicesFor, prepare, sortIds, type QuestionOptions } from './question';
 import { reviewAdjustmentIdx, type ReviewReasonIdx } from './review';
 import { plannedSetRobustnessIdx, setsRobustToAdditionsIdx, type AssumptionChangeIdx } from './robust';
 import { efficiencyAdviceIdx } from './efficiency';

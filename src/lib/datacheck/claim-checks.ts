@@ -10,7 +10,7 @@
  */
 import type { Diagram } from '../graph/diagram';
 import { findCycle } from '../graph/validate';
-import { impliedClaims } from '../causal/analysis';
+import { impliedClaims } from '../causal';
 import { benjaminiHochbergAdjust, holmAdjust, StatsError, testConditionalIndependence, type Column } from '../stats';
 import { DEFAULT_ALPHA } from './arrow-checks';
 import type { ClaimCheck, ClaimChecks, VariableMapping } from './types';

@@ -10,8 +10,8 @@
  */
 import type { Diagram } from '../graph/diagram';
 import { InputError } from '../graph/errors';
-import { adjustmentSets, checkAdjustment, compareSets, sortIds } from '../causal/analysis';
-import type { AdjustmentSets } from '../causal/types';
+import { adjustmentSets, checkAdjustment, compareSets, sortIds } from '../causal';
+import type { AdjustmentSets } from '../causal';
 import { completeRows, estimateExposureEffect, eValue, numericValues, StatsError, type Column, type ExposureEffect } from '../stats';
 import type { EstimateRole, EstimateRow, Estimates, EValueSummary, VariableMapping } from './types';
 

@@ -14,7 +14,6 @@ export { checkArrows, associationStrength, supportOf, SMALL_STRENGTH, DEFAULT_AL
 export { checkClaims, suggestedArrows } from './claim-checks';
 export { estimateEffects, rowLabel, braces } from './estimates';
 export { pictureData } from './pictures';
-export { formatP, pText, formatNumber, formatCi, formatPercent, testSummary } from './format';
 export type { PictureData, BarsPicture, ScatterPicture, BoxPicture, BoxStats } from './pictures';
 export type * from './types';
 export { describeTable, columnInfo } from './table-info';

@@ -16,7 +16,7 @@
  */
 import Papa from 'papaparse';
 import type { Diagram } from '../graph/diagram';
-import { adjustmentSets, checkAdjustment, impliedClaims } from '../causal/analysis';
+import { adjustmentSets, checkAdjustment, impliedClaims } from '../causal';
 import { linearRegressionFromSummary, partialCorrelationFromSummary, StatsError, type SummaryStatistics } from '../stats';
 import { associationStrength, DEFAULT_ALPHA, supportOf } from './arrow-checks';
 import { claimFamily } from './claim-checks';

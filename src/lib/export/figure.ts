@@ -4,8 +4,8 @@
  * the bounds. Positions are the canvas's (centre of the box, y pointing down). Pure; O(n + m).
  */
 import type { Diagram } from '../graph/diagram';
-import type { Role, VariableRoles } from '../causal/types';
-import { badges } from '../ui/wording';
+import type { Role, VariableRoles } from '../causal';
+import { badges } from '../wording';
 import { arialWidth, type TextWidth } from './text-width';
 
 export const LABEL_PX = 14;

@@ -5,8 +5,8 @@
  * nothing. O(size of the result).
  */
 import type { DataCheckReport } from '../datacheck';
-import type { LabelOf } from '../ui/wording';
-import { claimSentence, listNames } from '../ui/wording';
+import type { LabelOf } from '../wording';
+import { claimSentence, listNames } from '../wording';
 import type { ReportDataResults } from './report-data';
 
 const ROLE_WORD: Record<string, string> = { crude: 'crude', minimal: 'minimal set', optimal: 'optimal set', planned: 'planned set' };

@@ -8,11 +8,11 @@
  */
 import type { Diagram } from '../graph/diagram';
 import { validateDiagram } from '../graph/validate';
-import { adjustmentSets, checkAdjustment, variableRoles } from '../causal/analysis';
-import type { AdjustmentCheck, AdjustmentSets, Role, VariableRoles } from '../causal/types';
-import { ROLE_NAME } from '../causal/role-names';
-import { BADGE_MEANING, labelLookup, listNames, pathText, problemText, setText, verdictSentence, type LabelOf } from '../ui/wording';
-import { criticalAbsentArrows, withPlannedReasons, type AbsentArrowReport } from './assumptions';
+import { adjustmentSets, checkAdjustment, variableRoles } from '../causal';
+import type { AdjustmentCheck, AdjustmentSets, Role, VariableRoles } from '../causal';
+import { ROLE_NAME } from '../wording';
+import { BADGE_MEANING, labelLookup, listNames, pathText, problemText, setText, verdictSentence, type LabelOf } from '../wording';
+import { criticalAbsentArrows, withPlannedReasons, type AbsentArrowReport } from '../causal';
 import type { ReportDataResults } from './report-data';
 import { writeSvg } from './svg';
 import { SOFTWARE_NAME, SOFTWARE_VERSION } from './version';

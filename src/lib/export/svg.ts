@@ -10,8 +10,8 @@
  * badges) for journals that print in greyscale. O(n + m).
  */
 import type { Diagram } from '../graph/diagram';
-import type { VariableRoles } from '../causal/types';
-import { BADGE_MEANING } from '../ui/wording';
+import type { VariableRoles } from '../causal';
+import { BADGE_MEANING } from '../wording';
 import { escapeXml } from './escape';
 import { BADGE_PX, badgeLine, figureOf, LABEL_PX, LINE_GAP, PLANNED_OFFSET, type Figure, type FigureNode, type FigureOptions } from './figure';
 import { arialWidth, FIGURE_FONT_STACK } from './text-width';

@@ -7,8 +7,8 @@
  */
 import Papa from 'papaparse';
 import type { Diagram } from '../graph/diagram';
-import type { AdjustmentCheck, AdjustmentSets, VariableRoles } from '../causal/types';
-import { labelLookup } from '../ui/wording';
+import type { AdjustmentCheck, AdjustmentSets, VariableRoles } from '../causal';
+import { labelLookup } from '../wording';
 import { escapeMarkdownInline } from './escape';
 
 function csv(header: string[], rows: (string | number)[][]): string {

@@ -9,8 +9,8 @@
  * letters outside Latin-1/T1 need LuaLaTeX or XeLaTeX. O(n + m).
  */
 import type { Diagram } from '../graph/diagram';
-import type { VariableRoles } from '../causal/types';
-import { BADGE_MEANING } from '../ui/wording';
+import type { VariableRoles } from '../causal';
+import { BADGE_MEANING } from '../wording';
 import { escapeLatex } from './escape';
 import { badgeLine, figureOf, type FigureOptions } from './figure';
 import { SOFTWARE_NAME, SOFTWARE_VERSION } from './version';

@@ -3,7 +3,7 @@
  * listed, progress, and cancel/retry. Wraps the AnalysisRunner (main thread or worker).
  */
 import type { Diagram } from '../graph/diagram';
-import type { Role } from '../causal/types';
+import type { Role } from '../causal';
 import { AnalysisRunner, type RunnerOptions } from '../workers/analysis-client';
 import type { AnalysisProgress, AppAnalysis } from '../workers/analysis-steps';
 

@@ -5,23 +5,19 @@
  * dominate on large diagrams (about 2 s at 300 variables on one core).
  *
  * The result equals the engine façade's `analyse` (tests/unit/editor/analysis-steps.test.ts
- * holds it to that); the claims loop is spelled out here only to report progress between
- * pairs. Pure TypeScript: runs in the worker and, for small diagrams, on the main thread.
+ * holds it to that). Pure TypeScript: runs in the worker and, for small diagrams, on the main thread.
  */
 import type { Diagram } from '../graph/diagram';
-import { compileDiagram } from '../graph/compiled';
 import { validateDiagram } from '../graph/validate';
 import {
 	adjustmentSets,
 	checkAdjustment,
 	exposureOutcomePaths,
-	sortIds,
+	listImpliedClaims,
 	variableRoles,
-	type Analysis
-} from '../causal/analysis';
-import { minimalMeasuredSeparator } from '../causal/claims';
-import { adjacent } from '../causal/reach';
-import type { Claim } from '../causal/types';
+	type Analysis,
+	type Claim
+} from '../causal';
 
 export interface AnalysisLimits {
 	maxSets: number;
@@ -44,8 +40,6 @@ export interface AppAnalysis extends Analysis {
 	/** False while the claims are still being listed (a partial result). */
 	complete: boolean;
 }
-
-const STRUCTURAL = new Set(['duplicate-id', 'unknown-arrow-end', 'self-loop', 'cycle']);
 
 /** The question-dependent part (sets, verdict, roles, paths); claims left empty. */
 export function analyseQuestion(d: Diagram, limits: AnalysisLimits = DEFAULT_LIMITS): AppAnalysis {
@@ -75,22 +69,7 @@ export function listClaims(
 	progress?: (fraction: number) => void,
 	every = 250
 ): { claims: Claim[]; truncated: boolean } {
-	const issues = validateDiagram(d);
-	if (issues.some((i) => STRUCTURAL.has(i.code))) return { claims: [], truncated: false };
-	const g = compileDiagram(d);
-	const claims: Claim[] = [];
-	const total = (g.n * (g.n - 1)) / 2;
-	let seen = 0;
-	for (let a = 0; a < g.n; a++) {
-		for (let b = a + 1; b < g.n; b++) {
-			if (++seen % every === 0) progress?.(seen / total);
-			if (!g.measured[a] || !g.measured[b] || adjacent(g, a, b)) continue;
-			if (claims.length >= maxClaims) return { claims, truncated: true };
-			const given = minimalMeasuredSeparator(g, a, b);
-			claims.push({ a: g.ids[a], b: g.ids[b], given: given && sortIds(given.map((i) => g.ids[i])) });
-		}
-	}
-	return { claims, truncated: false };
+	return listImpliedClaims(d, { max: maxClaims, progress, every });
 }
 
 /**

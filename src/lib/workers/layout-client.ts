@@ -2,9 +2,9 @@
  * Tidy layout in a Web Worker: one short-lived worker per layout (layouts are occasional),
  * terminated when done, so the canvas stays responsive while dagre works (about a second of
  * CPU at 300 variables). Small diagrams are laid out on the main thread, where starting a
- * worker and loading Cytoscape into it would cost more than the layout itself.
+ * worker and loading dagre into it would cost more than the layout itself.
  */
-import { dagrePositions, type LayoutInput, type Positions } from '../ui/canvas/layout';
+import { dagrePositions, type LayoutInput, type Positions } from '../layout';
 
 /** Up to this many variables the layout takes a few tens of milliseconds: no worker needed. */
 export const MAIN_THREAD_LAYOUT_LIMIT = 60;

@@ -1,5 +1,5 @@
-/** Runs the dagre layout off the main thread (see ui/canvas/layout.ts). */
-import { dagrePositions, type LayoutInput } from '../ui/canvas/layout';
+/** Runs the dagre layout off the main thread (src/lib/layout). */
+import { dagrePositions, type LayoutInput } from '../layout';
 
 self.onmessage = (event: MessageEvent<LayoutInput>) => {
 	try {

@@ -1,6 +1,6 @@
 /** Messages between the app and the analysis worker. Plain data (structured clone). */
 import type { Diagram } from '../graph/diagram';
-import type { Claim } from '../causal/types';
+import type { Claim } from '../causal';
 import type { AnalysisLimits, AnalysisProgress, AppAnalysis } from './analysis-steps';
 
 export interface AnalyseRequest {

@@ -5,8 +5,8 @@
  * thread for small diagrams and in review.worker.ts for large ones.
  */
 import type { Diagram } from '../graph/diagram';
-import { conditionalInstruments, efficiencyAdvice, planRobustness, reviewAdjustment, setsRobustToAdditions } from '../causal/analysis';
-import type { AdjustmentReview, EfficiencyAdvice, Instrument, PlanRobustness, RobustSets } from '../causal/review-types';
+import { conditionalInstruments, efficiencyAdvice, planRobustness, reviewAdjustment, setsRobustToAdditions } from '../causal';
+import type { AdjustmentReview, EfficiencyAdvice, Instrument, PlanRobustness, RobustSets } from '../causal';
 
 export interface ReviewResult {
 	review: AdjustmentReview;

@@ -14,7 +14,7 @@ import {
 	reviewAdjustment,
 	setsRobustToAdditions,
 	variableRoles
-} from '../../../src/lib/causal/analysis';
+} from '../../../src/lib/causal';
 import type { AdjustmentReview, PlanWeakness } from '../../../src/lib/causal/review-types';
 import { compileDiagram } from '../../../src/lib/graph/compiled';
 import { dSeparatedOracle } from '../reference/brute-force';

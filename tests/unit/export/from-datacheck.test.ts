@@ -11,7 +11,7 @@ import { reportDataFromChecks } from '../../../src/lib/export/from-datacheck';
 import { buildReport } from '../../../src/lib/export/report';
 import { reportMarkdown } from '../../../src/lib/export/report-md';
 import { checkReportData } from '../../../src/lib/export/report-data';
-import { labelLookup } from '../../../src/lib/ui/wording';
+import { labelLookup } from '../../../src/lib/wording';
 import { main } from '../../../src/cli/main';
 import { demo, DEMO_PATH } from './helpers';
 

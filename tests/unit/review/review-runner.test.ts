@@ -7,7 +7,7 @@ import { describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
 import { parseDiagramJson } from '../../../src/lib/graph/native-json';
 import type { Diagram } from '../../../src/lib/graph/diagram';
-import { planRobustness, reviewAdjustment } from '../../../src/lib/causal/analysis';
+import { planRobustness, reviewAdjustment } from '../../../src/lib/causal';
 import { ReviewRunner } from '../../../src/lib/workers/review-client';
 import { runStress, type ReviewResult, type StressResult } from '../../../src/lib/workers/review-steps';
 import type { ReviewReply, ReviewRequest } from '../../../src/lib/workers/review-protocol';

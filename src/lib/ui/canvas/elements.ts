@@ -7,8 +7,8 @@
  */
 import type { Core, ElementDefinition } from 'cytoscape';
 import type { Diagram, Variable } from '../../graph/diagram';
-import type { Role } from '../../causal/types';
-import { badges } from '../wording';
+import type { Role } from '../../causal';
+import { badges } from '../../wording';
 import { BADGE_FONT_PX, FONT_FAMILY, LABEL_FONT_PX, LINE_HEIGHT } from './style';
 
 export const nodeKey = (id: string) => `v:${id}`;

@@ -2,7 +2,7 @@
  * Plain-language sentences for the reviewer tools, shared by the CLI and the app so both say
  * the same thing. Pure functions of the results, a label look-up and an arrow test.
  */
-import type { AdjustmentReview, AssumptionChange, PlanWeakness, ReviewReason } from './review-types';
+import type { AdjustmentReview, AssumptionChange, PlanWeakness, ReviewReason } from '../causal';
 
 export type Label = (id: string) => string;
 /** True when the arrow a → b is in the diagram the path belongs to. */

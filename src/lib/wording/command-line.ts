@@ -1,6 +1,6 @@
 /** Plain-text rendering helpers for the command's human-readable output. */
-import type { AdjustmentProblem, ForbiddenWhy, PathNodeReason } from '../lib/causal/types';
-import { ROLE_NAME } from '../lib/causal/role-names';
+import type { AdjustmentProblem, ForbiddenWhy, PathNodeReason } from '../causal';
+import { ROLE_NAME } from './roles';
 
 export const braces = (ids: readonly string[]): string => (ids.length === 0 ? '{} (no adjustment needed)' : `{${ids.join(', ')}}`);
 

@@ -5,7 +5,8 @@
  */
 import { describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
-import { dagrePositions, layoutInput, needsLayout, withPositions } from '../../../src/lib/ui/canvas/layout';
+import { dagrePositions, needsLayout, withPositions } from '../../../src/lib/layout';
+import { layoutInput } from '../../../src/lib/ui/canvas/layout';
 import { createMeasure } from '../../../src/lib/ui/canvas/elements';
 import { parseDiagramJson } from '../../../src/lib/graph/native-json';
 import { parseDot } from '../../../src/lib/graph/dot';

@@ -16,10 +16,10 @@
  */
 import type { Diagram } from '../graph/diagram';
 import { compileDag, compileDiagram } from '../graph/compiled';
-import { isAdjustmentSet } from '../causal/adjustment';
-import { ancestorsOf, descendantsOf, hasArrow } from '../causal/reach';
-import { checkAdjustment } from '../causal/analysis';
-import type { AdjustmentProblem, AdjustmentSets } from '../causal/types';
+import { isAdjustmentSet } from './adjustment';
+import { ancestorsOf, descendantsOf, hasArrow } from './reach';
+import { checkAdjustment } from './analysis';
+import type { AdjustmentProblem, AdjustmentSets } from './types';
 
 export interface CriticalAbsentArrow {
 	from: string;

@@ -1,6 +1,5 @@
 /** Words of the Data section (shared by its components and tested without a browser). */
-import type { ArrowSupport, ClaimStatus, EstimateRow } from '../../datacheck';
-import type { LabelOf } from '../wording';
+import type { ArrowSupport, ClaimStatus, EstimateRow } from '../datacheck';
 
 export const SUPPORT_TEXT: Record<ArrowSupport, string> = {
 	supported: 'supported',
@@ -21,10 +20,6 @@ export const CLAIM_TEXT: Record<ClaimStatus, string> = {
 	consistent: 'consistent',
 	untested: 'not tested'
 };
-
-export function claimText(c: { a: string; b: string; given: readonly string[] }, labelOf: LabelOf): string {
-	return `${labelOf(c.a)} ⟂ ${labelOf(c.b)}${c.given.length ? ` | ${c.given.map(labelOf).join(', ')}` : ''}`;
-}
 
 /** Short row names for the forest plot: "Crude", "Minimal 2", "Optimal", "Planned", joined by "·". */
 export function shortRowLabels(rows: readonly EstimateRow[]): string[] {

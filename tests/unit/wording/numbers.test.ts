@@ -1,10 +1,11 @@
 // How the data checks' numbers are written (the same in the app and the CLI), the column
 // summary the app's mapping table shows, and the forest plot's short row names.
 import { describe, expect, it } from 'vitest';
-import { describeTable, formatCi, formatNumber, formatP, formatPercent, pText } from '../../../src/lib/datacheck';
+import { describeTable } from '../../../src/lib/datacheck';
+import { formatCi, formatNumber, formatP, formatPercent, pText } from '../../../src/lib/wording';
 import type { EstimateRow } from '../../../src/lib/datacheck';
-import { shortRowLabels } from '../../../src/lib/ui/data/wording';
-import { tableOf } from './helpers';
+import { shortRowLabels } from '../../../src/lib/wording';
+import { tableOf } from '../datacheck/helpers';
 
 describe('number formats', () => {
 	it('p-values: two significant digits, "< 0.001" below, dash when missing', () => {

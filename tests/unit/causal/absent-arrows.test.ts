@@ -6,7 +6,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { criticalAbsentArrows } from '../../../src/lib/export/assumptions';
+import { criticalAbsentArrows } from '../../../src/lib/causal';
 import { adjustmentSets, checkAdjustment } from '../../../src/lib/causal/analysis';
 import { compileDag } from '../../../src/lib/graph/compiled';
 import type { Diagram } from '../../../src/lib/graph/diagram';
