@@ -3,6 +3,8 @@ import { defineConfig } from '@playwright/test';
 // Browser tests drive Debian's Chromium (/usr/bin/chromium); Playwright's own browser
 // download cannot run on our machines. CHROMIUM_PATH overrides the location.
 const executablePath = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
+// E2E_PORT lets two checkouts run their browser tests at the same time on one machine.
+const port = Number(process.env.E2E_PORT ?? 4173);
 
 export default defineConfig({
 	testDir: 'tests/e2e',
@@ -12,7 +14,7 @@ export default defineConfig({
 	workers: 1,
 	reporter: [['list']],
 	use: {
-		baseURL: 'http://127.0.0.1:4173',
+		baseURL: `http://127.0.0.1:${port}`,
 		viewport: { width: 1280, height: 800 },
 		launchOptions: {
 			executablePath,
@@ -20,8 +22,8 @@ export default defineConfig({
 		}
 	},
 	webServer: {
-		command: 'npx vite preview --host 127.0.0.1 --port 4173 --strictPort',
-		url: 'http://127.0.0.1:4173',
+		command: `npx vite preview --host 127.0.0.1 --port ${port} --strictPort`,
+		url: `http://127.0.0.1:${port}`,
 		reuseExistingServer: false,
 		timeout: 60_000
 	}
