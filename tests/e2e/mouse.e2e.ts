@@ -31,7 +31,7 @@ test('M-bias built by mouse: sets, verdict, reasons, then undo everything', asyn
 	const adj = adjustment(page);
 	// The empty set is the only minimal sufficient set (Greenland 2003).
 	await expect(adj.getByRole('list', { name: /Minimal sufficient adjustment sets for the total effect/ }).getByRole('listitem')).toHaveCount(1);
-	await expect(adj.getByRole('button', { name: 'Plan { } (no adjustment)' })).toBeVisible();
+	await expect(adj.getByRole('button', { name: 'Plan { }: adjust for nothing' })).toBeVisible();
 	await expect(verdict(page)).toContainText('No adjustment is needed');
 	await expect(page.locator('[data-section="paths"]')).toContainText('Cycling ← Health consciousness → Sports-club membership ← Family history → Hypertension');
 
@@ -39,10 +39,10 @@ test('M-bias built by mouse: sets, verdict, reasons, then undo everything', asyn
 	const text = async (id: string) => page.evaluate((v) => window.__causewayCanvas.nodeClasses(v), id);
 	expect(await text('cycling')).toContain('exposure');
 
-	// Adjusting for the collider alone opens the biasing path.
+	// Adjusting for the collider alone opens the non-causal path.
 	await variableMenu(page, 'sports_club_membership', 'In the planned set');
-	await expect(verdict(page)).toContainText('Adjusting for Sports-club membership is not sufficient: a biasing path stays open.');
-	const reason = adj.getByRole('button', { name: /A biasing path stays open: Cycling ← Health consciousness → Sports-club membership ← Family history → Hypertension/ });
+	await expect(verdict(page)).toContainText('Adjusting for Sports-club membership is not sufficient: a non-causal path stays open.');
+	const reason = adj.getByRole('button', { name: /A non-causal path stays open: Cycling ← Health consciousness → Sports-club membership ← Family history → Hypertension/ });
 	await reason.click();
 	await expect(reason).toHaveAttribute('aria-pressed', 'true');
 	const lit = await page.evaluate(() => window.__causewayCanvas.arrowClasses('health_consciousness', 'sports_club_membership'));
@@ -54,7 +54,7 @@ test('M-bias built by mouse: sets, verdict, reasons, then undo everything', asyn
 	await expect(verdict(page)).toContainText('is sufficient');
 
 	// Clicking a minimal set makes it the planned set.
-	await adj.getByRole('button', { name: 'Plan { } (no adjustment)' }).click();
+	await adj.getByRole('button', { name: 'Plan { }: adjust for nothing' }).click();
 	await expect(verdict(page)).toContainText('No adjustment is needed');
 
 	// Paths: hovering one lights it on the canvas.

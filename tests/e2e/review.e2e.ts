@@ -28,7 +28,7 @@ test('a stated set with a mediator and a collider: verdict, every reason lit on 
 	await input.fill('Body-mass index, Fitness-app panel enrolment, nonsense');
 	await input.press('Enter');
 	await expect(review(page).getByRole('alert')).toContainText('No variable is called "nonsense"');
-	await expect(page.getByTestId('review-verdict')).toContainText('is NOT sufficient');
+	await expect(page.getByTestId('review-verdict')).toContainText('is not sufficient');
 	const reasons = page.getByTestId('review-reasons');
 	await expect(reasons).toContainText('Overadjustment: Body-mass index is a mediator');
 	await expect(reasons).toContainText('Collider bias: Fitness-app panel enrolment is a collider');

@@ -1,38 +1,45 @@
-/** The verdict on a planned set and each of its problems, in sentences. */
+/**
+ * The verdict on a planned set and each of its problems, in sentences: one wording for the
+ * app, the command line (ids as labels) and the report.
+ */
 import type { AdjustmentCheck, AdjustmentProblem, ForbiddenWhy } from '../causal';
 import type { Diagram } from '../graph/diagram';
-import { listNames, type LabelOf } from './names';
+import { adjustingFor, arrowSet, countText, listNames, type LabelOf } from './names';
 import { pathText } from './paths';
 
-const FORBIDDEN: Record<ForbiddenWhy, string> = {
+/** Why a variable must not be in the planned set, after its name. */
+export const FORBIDDEN_WHY: Readonly<Record<ForbiddenWhy, string>> = {
 	exposure: 'is an exposure; it cannot be adjusted for',
 	outcome: 'is an outcome; it cannot be adjusted for',
-	mediator: 'is a mediator: adjusting for it removes part of the effect being estimated',
-	'descendant-of-mediator': 'is caused by a mediator: adjusting for it removes part of the effect or opens a biasing path',
+	mediator: 'is a mediator (on a causal path from exposure to outcome): adjusting for it removes part of the effect being estimated',
+	'descendant-of-mediator': 'is caused by a mediator: adjusting for it removes part of the effect or opens a non-causal path',
 	'descendant-of-outcome': 'is caused by the outcome: adjusting for it can bias the estimate',
 	'descendant-of-exposure': 'is caused by the exposure on the way to the outcome: adjusting for it can bias the estimate',
 	unmeasured: 'is unmeasured, so it cannot be adjusted for'
 };
 
-export function problemText(p: AdjustmentProblem, d: Diagram, labelOf: LabelOf): string {
-	if (p.kind === 'open-path') return `A biasing path stays open: ${pathText(p.path, d, labelOf)}.`;
-	return `${labelOf(p.variable)} ${FORBIDDEN[p.why]}.`;
+export function problemText(p: AdjustmentProblem, d: Diagram, labelOf: LabelOf, arrows: ReadonlySet<string> = arrowSet(d)): string {
+	if (p.kind === 'open-path') return `A non-causal path stays open: ${pathText(p.path, d, labelOf, arrows)}.`;
+	return `${labelOf(p.variable)} ${FORBIDDEN_WHY[p.why]}.`;
 }
 
 /** The verdict on the planned set, in one sentence. */
 export function verdictSentence(check: AdjustmentCheck, labelOf: LabelOf): string {
-	const planned = check.adjusted.map(labelOf);
+	const subject = capitalise(adjustingFor(check.adjusted, labelOf));
 	if (check.valid) {
-		return planned.length === 0
-			? 'No adjustment is needed: with nothing adjusted for, every biasing path is already blocked.'
-			: `Adjusting for ${listNames(planned)} is sufficient: it blocks every biasing path and adjusts for no mediator or descendant of the outcome.`;
+		return check.adjusted.length === 0
+			? 'No adjustment is needed: with nothing adjusted for, every non-causal path is already blocked.'
+			: `${subject} is sufficient: it blocks every non-causal path and adjusts for no mediator or descendant of the outcome.`;
 	}
 	const open = check.problems.filter((p) => p.kind === 'open-path').length;
 	const bad = check.problems.length - open;
 	const parts: string[] = [];
-	if (open > 0) parts.push(`${open === 1 ? 'a biasing path stays' : `${open} biasing paths stay`} open`);
-	if (bad > 0) parts.push(`${bad === 1 ? 'one variable' : `${bad} variables`} should not be adjusted for`);
-	const subject = planned.length === 0 ? 'Adjusting for nothing' : `Adjusting for ${listNames(planned)}`;
+	if (open > 0) parts.push(`${open === 1 ? 'a non-causal path stays' : `${countText(open, 'non-causal path')} stay`} open`);
+	if (bad > 0) parts.push(`${bad === 1 ? 'one variable' : countText(bad, 'variable')} should not be adjusted for`);
 	return `${subject} is not sufficient: ${listNames(parts)}.`;
 }
 
+/** "Adjusting for …" at the start of a sentence. */
+export function capitalise(text: string): string {
+	return text.length === 0 ? text : text[0].toUpperCase() + text.slice(1);
+}

@@ -1,15 +1,23 @@
 /**
- * How variables and sets are named in sentences: by their labels, joined as English lists.
- * Pure functions; O(length of the list).
+ * How variables, sets and paths are named in sentences: by their labels (the app, the report)
+ * or by their ids (the command line: pass `idAsLabel`), joined as English lists. One spelling of
+ * each thing everywhere: the empty set is "{ }", a path "A → B ← C". Pure functions; O(length).
  */
 import type { Diagram } from '../graph/diagram';
 
 export type LabelOf = (id: string) => string;
 
+/** True when the arrow a → b is in the diagram a path belongs to. */
+export type ArrowTest = (a: string, b: string) => boolean;
+
+/** The label of each id (the id itself when it has none). O(n) to build, O(1) per call. */
 export function labelLookup(d: Diagram): LabelOf {
 	const map = new Map(d.variables.map((v) => [v.id, v.label]));
 	return (id) => map.get(id) ?? id;
 }
+
+/** Names variables by their ids: what the command line prints. */
+export const idAsLabel: LabelOf = (id) => id;
 
 /** "A", "A and B", "A, B and C". */
 export function listNames(names: readonly string[]): string {
@@ -17,13 +25,38 @@ export function listNames(names: readonly string[]): string {
 	return `${names.slice(0, -1).join(', ')} and ${names[names.length - 1]}`;
 }
 
-/** A set as the app shows it: "{Age, Diet quality}", or "{ } (no adjustment)" when empty. */
+/** The one spelling of the empty set. */
+export const EMPTY_SET = '{ }';
+
+/** A set: "{Age, Diet quality}", or "{ }" when empty (sentences say what an empty set means). */
 export function setText(ids: readonly string[], labelOf: LabelOf): string {
-	return ids.length === 0 ? '{ } (no adjustment)' : `{${ids.map(labelOf).join(', ')}}`;
+	return ids.length === 0 ? EMPTY_SET : `{${ids.map(labelOf).join(', ')}}`;
 }
 
-/** The arrows of a diagram as a set of "from\0to" keys, for pathText. O(m). */
+/** "adjusting for Age and Diet" or "adjusting for nothing". */
+export function adjustingFor(ids: readonly string[], labelOf: LabelOf): string {
+	return ids.length === 0 ? 'adjusting for nothing' : `adjusting for ${listNames(ids.map(labelOf))}`;
+}
+
+/** The arrows of a diagram as a set of "from\0to" keys. O(m). */
 export function arrowSet(d: Diagram): ReadonlySet<string> {
 	return new Set(d.arrows.map((a) => `${a.from}\u0000${a.to}`));
 }
 
+/** The arrow test of a list of arrows. O(m) to build, O(1) per call. */
+export function arrowTest(arrows: readonly { from: string; to: string }[] | ReadonlySet<string>): ArrowTest {
+	const keys = arrows instanceof Set ? (arrows as ReadonlySet<string>) : new Set((arrows as readonly { from: string; to: string }[]).map((a) => `${a.from}\u0000${a.to}`));
+	return (a, b) => keys.has(`${a}\u0000${b}`);
+}
+
+/** "A → B ← C": the path with each arrow's real direction. O(length). */
+export function pathWords(nodes: readonly string[], arrow: ArrowTest, labelOf: LabelOf): string {
+	let text = labelOf(nodes[0] ?? '');
+	for (let i = 1; i < nodes.length; i++) text += `${arrow(nodes[i - 1], nodes[i]) ? ' → ' : ' ← '}${labelOf(nodes[i])}`;
+	return text;
+}
+
+/** "1 claim", "2 claims", "1,000 variables": a count with its noun in the right number. */
+export function countText(n: number, singular: string, plural = `${singular}s`): string {
+	return `${n.toLocaleString('en-GB')} ${n === 1 ? singular : plural}`;
+}

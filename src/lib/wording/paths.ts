@@ -1,48 +1,59 @@
-/** Exposure–outcome paths in words: the arrows' directions, causal or not, open or blocked and where. */
+/**
+ * Exposure–outcome paths in words: the arrows' directions, causal or not, open or blocked and
+ * where. One vocabulary (DESIGN.md): a "non-causal path" is open or blocked under the planned
+ * set; "back-door path" is said only of a non-causal path that starts with an arrow into the
+ * exposure (Pearl 1995). Shared by the app, the command line and the report.
+ */
 import type { PathInfo, PathNodeReason } from '../causal';
 import type { Diagram } from '../graph/diagram';
-import { arrowSet, listNames, type LabelOf } from './names';
+import { arrowSet, arrowTest, listNames, pathWords, type ArrowTest, type LabelOf } from './names';
 
 /** "A → B ← C": the path with each arrow's real direction. */
 export function pathText(nodes: readonly string[], d: Diagram, labelOf: LabelOf, arrows: ReadonlySet<string> = arrowSet(d)): string {
-	let text = labelOf(nodes[0] ?? '');
-	for (let i = 1; i < nodes.length; i++) {
-		const forward = arrows.has(`${nodes[i - 1]}\u0000${nodes[i]}`);
-		text += `${forward ? ' → ' : ' ← '}${labelOf(nodes[i])}`;
-	}
-	return text;
+	return pathWords(nodes, arrowTest(arrows), labelOf);
 }
 
-function reasonText(r: PathNodeReason, labelOf: LabelOf): string {
+/** Why a variable on a path blocks it or holds it open, after the variable's name. */
+export function nodeReasonText(r: PathNodeReason, labelOf: LabelOf): string {
 	switch (r.reason) {
 		case 'adjusted-non-collider':
-			return `${labelOf(r.node)} (adjusted for)`;
+			return `${labelOf(r.node)} (adjusted for, not a collider)`;
 		case 'collider-not-adjusted':
-			return `${labelOf(r.node)} (collider, not adjusted for)`;
+			return `${labelOf(r.node)} (a collider; neither it nor a descendant adjusted for)`;
 		case 'collider-adjusted':
-			return `${labelOf(r.node)} (collider, adjusted for)`;
+			return `${labelOf(r.node)} (a collider, adjusted for)`;
 		case 'collider-descendant-adjusted':
-			return `${labelOf(r.node)} (collider, opened by adjusting for ${labelOf(r.via)})`;
+			return `${labelOf(r.node)} (a collider whose descendant ${labelOf(r.via)} is adjusted for)`;
 	}
 }
 
-/** Whether a path is causal (directed from exposure to outcome) or not (a biasing path). */
-export function pathKindLabel(p: PathInfo): 'causal' | 'biasing' {
-	return p.causal ? 'causal' : 'biasing';
+/** Whether a path is causal (directed from exposure to outcome) or not. */
+export function pathKindLabel(p: PathInfo): 'causal' | 'non-causal' {
+	return p.causal ? 'causal' : 'non-causal';
 }
 
-/** Open or blocked, and where: "open", "open through M (collider, adjusted for)", "blocked at A (adjusted for)". */
+/** True when a path starts with an arrow into its first variable (the exposure). */
+export function isBackDoor(nodes: readonly string[], arrow: ArrowTest): boolean {
+	return nodes.length > 1 && arrow(nodes[1], nodes[0]);
+}
+
+/** "causal path", "back-door path" or "non-causal path". */
+export function pathKindWords(p: Pick<PathInfo, 'nodes' | 'causal'>, arrow: ArrowTest): string {
+	if (p.causal) return 'causal path';
+	return isBackDoor(p.nodes, arrow) ? 'back-door path' : 'non-causal path';
+}
+
+/** Open or blocked, and where: "open", "open through M (a collider, adjusted for)", "blocked at A (adjusted for, not a collider)". */
 export function pathStatus(p: PathInfo, labelOf: LabelOf): string {
 	if (p.open) {
-		const opened = p.reasons.map((r) => reasonText(r, labelOf));
+		const opened = p.reasons.map((r) => nodeReasonText(r, labelOf));
 		return opened.length > 0 ? `open through ${listNames(opened)}` : 'open';
 	}
-	return `blocked at ${listNames(p.reasons.map((r) => reasonText(r, labelOf)))}`;
+	return `blocked at ${listNames(p.reasons.map((r) => nodeReasonText(r, labelOf)))}`;
 }
 
-/** The visual kind of a path: causal (solid blue), open biasing (dashed vermillion) or blocked. */
+/** The visual kind of a path: causal (solid blue), open non-causal (dashed vermillion) or blocked. */
 export function pathKind(p: PathInfo): 'causal' | 'open' | 'blocked' {
 	if (!p.open) return 'blocked';
 	return p.causal ? 'causal' : 'open';
 }
-

@@ -3,15 +3,10 @@
  * the same thing. Pure functions of the results, a label look-up and an arrow test.
  */
 import type { AdjustmentReview, AssumptionChange, PlanWeakness, ReviewReason } from '../causal';
+import { capitalise, FORBIDDEN_WHY } from './adjustment';
+import { adjustingFor, arrowTest, listNames, pathWords, setText, type ArrowTest, type LabelOf } from './names';
 
-export type Label = (id: string) => string;
-/** True when the arrow a → b is in the diagram the path belongs to. */
-export type ArrowTest = (a: string, b: string) => boolean;
-
-export function arrowTest(arrows: readonly { from: string; to: string }[]): ArrowTest {
-	const keys = new Set(arrows.map((a) => `${a.from}\u0000${a.to}`));
-	return (a, b) => keys.has(`${a}\u0000${b}`);
-}
+export type Label = LabelOf;
 
 /** The arrow test of the diagram after one change (for witness paths that use the new arrow). */
 export function arrowTestAfter(arrows: readonly { from: string; to: string }[], change: AssumptionChange): ArrowTest {
@@ -21,35 +16,22 @@ export function arrowTestAfter(arrows: readonly { from: string; to: string }[], 
 	return base;
 }
 
-/** "A → B ← C". */
-export function pathWords(nodes: readonly string[], arrow: ArrowTest, label: Label): string {
-	let text = label(nodes[0] ?? '');
-	for (let i = 1; i < nodes.length; i++) text += `${arrow(nodes[i - 1], nodes[i]) ? ' → ' : ' ← '}${label(nodes[i])}`;
-	return text;
-}
-
-/** "A", "A and B", "A, B and C". */
-export function listWords(names: readonly string[]): string {
-	if (names.length <= 1) return names.join('');
-	return `${names.slice(0, -1).join(', ')} and ${names[names.length - 1]}`;
-}
-
-export function setWords(ids: readonly string[], label: Label): string {
-	return ids.length === 0 ? '{ } (no adjustment)' : `{${ids.map(label).join(', ')}}`;
-}
+/** Older names of listNames and setText, kept for the reviewer components. */
+export const listWords = listNames;
+export const setWords = setText;
 
 export function reviewVerdict(r: AdjustmentReview, label: Label): string {
-	const set = setWords(r.adjusted, label);
+	const subject = capitalise(adjustingFor(r.adjusted, label));
 	const effect = `the total effect of ${listWords(r.exposures.map(label))} on ${listWords(r.outcomes.map(label))}`;
-	if (r.valid) return `Adjusting for ${set} is sufficient to estimate ${effect}, if the diagram is right.`;
+	if (r.valid) return `${subject} is sufficient to estimate ${effect}, if the diagram is right.`;
 	const kinds = new Set(r.reasons.map((x) => x.kind));
 	const what: string[] = [];
-	if (kinds.has('open-path')) what.push('leaves a biasing path open');
+	if (kinds.has('open-path')) what.push('leaves a non-causal path open');
 	if (kinds.has('overadjustment')) what.push('adjusts away part of the effect (overadjustment)');
 	if (kinds.has('collider-bias')) what.push('opens a path by adjusting a collider (collider bias)');
 	if (kinds.has('descendant-of-outcome')) what.push('adjusts a consequence of the outcome');
 	if (kinds.has('unmeasured') || kinds.has('exposure-or-outcome')) what.push('names a variable that cannot be adjusted');
-	return `Adjusting for ${set} is NOT sufficient to estimate ${effect}: it ${listWords(what)}.`;
+	return `${subject} is not sufficient to estimate ${effect}: it ${listWords(what)}.`;
 }
 
 export function reasonWords(x: ReviewReason, arrow: ArrowTest, label: Label): string {
@@ -58,18 +40,18 @@ export function reasonWords(x: ReviewReason, arrow: ArrowTest, label: Label): st
 			return `${x.backDoor ? 'Open back-door path' : 'Open non-causal path'}: ${pathWords(x.path, arrow, label)}.`;
 		case 'overadjustment':
 			return x.why === 'mediator'
-				? `Overadjustment: ${label(x.variable)} is a mediator (on a causal path from exposure to outcome); adjusting for it removes part of the effect.`
-				: `Overadjustment: ${label(x.variable)} is caused by a mediator; adjusting for it removes part of the effect or biases it.`;
+				? `Overadjustment: ${label(x.variable)} ${FORBIDDEN_WHY.mediator}.`
+				: `Overadjustment: ${label(x.variable)} ${FORBIDDEN_WHY['descendant-of-mediator']}.`;
 		case 'collider-bias':
 			return x.collider === x.variable
 				? `Collider bias: ${label(x.variable)} is a collider on ${pathWords(x.path, arrow, label)}; adjusting for it opens that path.`
 				: `Collider bias: ${label(x.variable)} is caused by the collider ${label(x.collider)} on ${pathWords(x.path, arrow, label)}; adjusting for it opens that path.`;
 		case 'descendant-of-outcome':
-			return `${label(x.variable)} is caused by the outcome; adjusting for it biases the estimate.`;
+			return `${label(x.variable)} ${FORBIDDEN_WHY['descendant-of-outcome']}.`;
 		case 'exposure-or-outcome':
 			return `${label(x.variable)} is the ${x.which}; it cannot be adjusted for.`;
 		case 'unmeasured':
-			return `${label(x.variable)} is unmeasured, so it cannot be adjusted for.`;
+			return `${label(x.variable)} ${FORBIDDEN_WHY.unmeasured}.`;
 	}
 }
 
@@ -94,7 +76,7 @@ export function weaknessParts(w: PlanWeakness, arrows: readonly { from: string; 
 		const otherwise = w.fallback === undefined ? '' : w.fallback === null ? 'without it no set of measured variables is sufficient' : `without it, ${setWords(w.fallback, label)} would do`;
 		return { assumes, otherwise };
 	}
-	if (!w.witness) return { assumes, otherwise: `a ${w.length}-arrow biasing path would open` };
+	if (!w.witness) return { assumes, otherwise: `a non-causal path of ${w.length} arrows would open` };
 	const path = pathWords(w.witness, arrowTestAfter(arrows, w.change), label);
 	if (w.failure === 'forbidden') return { assumes, otherwise: `${label(w.witness[w.witness.length - 1])} would lie on or below a causal path (${path})` };
 	return { assumes, otherwise: `${path} would be open` };

@@ -32,7 +32,7 @@ describe('causeway review', () => {
 	it('a sufficient set: exit 0, plain words', async () => {
 		const r = await run(['review', DEMO, '--adjust', 'age,diet,income']);
 		expect(r.code).toBe(0);
-		expect(r.out).toContain('Adjusting for {age, diet, income} is sufficient to estimate the total effect of cycling on hypertension');
+		expect(r.out).toContain('Adjusting for age, diet and income is sufficient to estimate the total effect of cycling on hypertension');
 		expect(r.out).toContain('Precision: adding family_history');
 		expect(r.out).toContain('Efficiency-optimal set (Henckel et al. 2022): {age, diet, family_history, income}.');
 	});

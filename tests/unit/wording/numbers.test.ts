@@ -20,8 +20,25 @@ describe('number formats', () => {
 	it('estimates: three significant digits, intervals and signed percentages', () => {
 		expect(formatNumber(0.60912)).toBe('0.609');
 		expect(formatNumber(68.52)).toBe('68.5');
-		expect(formatNumber(1.2e23)).toBe('1.20e+23');
 		expect(formatNumber(Infinity)).toBe('—');
+		expect(formatNumber(null)).toBe('—');
+		expect(formatP(0.0012)).toBe('0.0012');
+		expect(formatPercent(Number.NaN)).toBe('—');
+	});
+
+	it('never e-notation: thousands grouped, small values in decimals, a true minus sign', () => {
+		expect(formatNumber(123456)).toBe('123,000');
+		expect(formatNumber(12345)).toBe('12,300');
+		expect(formatNumber(999.96)).toBe('1,000');
+		expect(formatNumber(0.000123)).toBe('0.000123');
+		expect(formatNumber(1.23e-7)).toBe('0.000000123');
+		expect(formatNumber(-4.567)).toBe('\u22124.57');
+		expect(formatNumber(1.5)).toBe('1.5');
+		expect(formatNumber(0.1 + 0.2)).toBe('0.3');
+		expect(formatNumber(1e-10)).toBe('≈ 0');
+		expect(formatNumber(1.2e23)).toBe('> 1,000,000,000,000');
+		expect(formatNumber(-1.2e23)).toBe('< \u22121,000,000,000,000');
+		for (const x of [1e-8, 3.3e-5, 7e5, 4.2e11, -2.5e-4, 6.02e10]) expect(formatNumber(x)).not.toMatch(/e[+-]?\d/);
 		expect(formatCi([0.52351, 0.70712])).toBe('0.524 to 0.707');
 		expect(formatPercent(28.44)).toBe('+28.4 %');
 		expect(formatPercent(-17.04)).toBe('−17.0 %');

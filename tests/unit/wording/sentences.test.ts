@@ -1,0 +1,104 @@
+/**
+ * The shared sentences: one wording for an idea in the app, the command line and the report
+ * (issue: "one word per idea"). Non-causal paths are "non-causal" (open or blocked); only a
+ * non-causal path that starts with an arrow into the exposure is a "back-door path" (Pearl
+ * 1995); the empty set is "{ }"; counts agree with their nouns.
+ */
+import { describe, expect, it } from 'vitest';
+import type { AdjustmentCheck, AdjustmentReview, PathInfo } from '../../../src/lib/causal';
+import { emptyDiagram, type Diagram } from '../../../src/lib/graph/diagram';
+import {
+	arrowTest,
+	claimSentence,
+	countText,
+	idAsLabel,
+	labelLookup,
+	pathKindWords,
+	pathStatus,
+	problemText,
+	reasonWords,
+	reviewVerdict,
+	setText,
+	verdictSentence
+} from '../../../src/lib/wording';
+import { braces, pathLine, problemText as cliProblemText } from '../../../src/lib/wording/command-line';
+
+// M-bias with a back door: x ← c → y, x → y, x ← a → m ← b → y (Greenland 2003 for the m part).
+function diagram(): Diagram {
+	const d = emptyDiagram('t');
+	for (const [id, label] of [['x', 'Cycling'], ['y', 'Hypertension'], ['c', 'Age'], ['a', 'A'], ['b', 'B'], ['m', 'Panel']]) {
+		d.variables.push({ id, label, measured: true });
+	}
+	d.arrows = [['c', 'x'], ['c', 'y'], ['x', 'y'], ['a', 'x'], ['a', 'm'], ['b', 'm'], ['b', 'y']].map(([from, to]) => ({ from, to }));
+	d.exposures = ['x'];
+	d.outcomes = ['y'];
+	return d;
+}
+
+describe('one word per idea', () => {
+	const d = diagram();
+	const label = labelLookup(d);
+	const arrow = arrowTest(d.arrows);
+
+	it('the empty set has one spelling, and sentences say what it means', () => {
+		expect(setText([], label)).toBe('{ }');
+		expect(braces([])).toBe('{ }');
+		const none: AdjustmentCheck = { adjusted: [], valid: false, problems: [{ kind: 'open-path', path: ['x', 'c', 'y'] }] };
+		expect(verdictSentence(none, label)).toBe('Adjusting for nothing is not sufficient: a non-causal path stays open.');
+		expect(verdictSentence({ adjusted: [], valid: true, problems: [] }, label)).toMatch(/^No adjustment is needed/);
+		expect(verdictSentence(none, label)).not.toMatch(/no adjustment needed/);
+	});
+
+	it('paths: causal, back-door (into the exposure) or non-causal; never "biasing"', () => {
+		const causal: PathInfo = { nodes: ['x', 'y'], causal: true, open: true, reasons: [] };
+		const backDoor: PathInfo = { nodes: ['x', 'c', 'y'], causal: false, open: false, reasons: [{ node: 'c', reason: 'adjusted-non-collider' }] };
+		const throughCollider: PathInfo = { nodes: ['x', 'a', 'm', 'b', 'y'], causal: false, open: true, reasons: [{ node: 'm', reason: 'collider-adjusted' }] };
+		expect(pathKindWords(causal, arrow)).toBe('causal path');
+		expect(pathKindWords(backDoor, arrow)).toBe('back-door path');
+		expect(pathStatus(backDoor, label)).toBe('blocked at Age (adjusted for, not a collider)');
+		expect(pathStatus(throughCollider, label)).toBe('open through Panel (a collider, adjusted for)');
+		expect(pathLine(throughCollider, arrow)).toBe('x ← a → m ← b → y   [back-door path, open through m (a collider, adjusted for)]');
+		const forward: PathInfo = { nodes: ['x', 'm', 'y'], causal: false, open: true, reasons: [] };
+		expect(pathKindWords(forward, (u, v) => (u === 'x' && v === 'm') || (u === 'y' && v === 'm'))).toBe('non-causal path');
+	});
+
+	it('the command line and the app give the same reason for a forbidden variable', () => {
+		const p = { kind: 'forbidden' as const, variable: 'm', why: 'mediator' as const };
+		const app = problemText(p, d, idAsLabel);
+		expect(app).toBe(`${cliProblemText(p, arrow)}.`);
+		expect(app).toContain('adjusting for it removes part of the effect being estimated');
+		const review = reasonWords({ kind: 'overadjustment', variable: 'm', why: 'mediator' }, arrow, idAsLabel);
+		expect(review).toContain('adjusting for it removes part of the effect being estimated');
+	});
+
+	it('the reviewer says "not sufficient" in the same words', () => {
+		const review: AdjustmentReview = {
+			exposures: ['x'],
+			outcomes: ['y'],
+			adjusted: ['m'],
+			valid: false,
+			identifiable: true,
+			reasons: [{ kind: 'open-path', path: ['x', 'a', 'm', 'b', 'y'], backDoor: true }],
+			openPathsTruncated: false,
+			droppable: [],
+			minimalSubset: null,
+			extension: ['c'],
+			extensionBlockedBy: [],
+			nearest: null
+		};
+		const words = reviewVerdict(review, label);
+		expect(words).toBe('Adjusting for Panel is not sufficient to estimate the total effect of Cycling on Hypertension: it leaves a non-causal path open.');
+	});
+
+	it('counts agree with their nouns and group thousands', () => {
+		expect(countText(1, 'claim')).toBe('1 claim');
+		expect(countText(0, 'claim')).toBe('0 claims');
+		expect(countText(1000, 'variable')).toBe('1,000 variables');
+		expect(countText(2, 'analysis', 'analyses')).toBe('2 analyses');
+	});
+
+	it('claims: one sentence for a pair that no measured set separates', () => {
+		expect(claimSentence({ a: 'a', b: 'b', given: null }, label)).toBe('A and B are not adjacent, but no set of measured variables makes them independent.');
+		expect(claimSentence({ a: 'a', b: 'c', given: ['x', 'y'] }, label)).toBe('A is independent of Age given Cycling and Hypertension.');
+	});
+});
