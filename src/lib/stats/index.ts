@@ -80,3 +80,16 @@ export type { EValueOptions, EValueResult } from './evalue';
 // Seeded random numbers
 export { createRandom, createRandomFromState } from './random';
 export type { Random } from './random';
+
+// The confounder check: per-level odds ratios, stratified odds ratios, standardization
+export { levelOddsRatios } from './association/level-odds-ratios';
+export type { LevelOddsRatio, LevelOddsRatios } from './association/level-odds-ratios';
+export { mantelHaenszel } from './stratified/mantel-haenszel';
+export type { MantelHaenszel, TwoByTwo } from './stratified/mantel-haenszel';
+export { breslowDay } from './stratified/breslow-day';
+export type { BreslowDay } from './stratified/breslow-day';
+export { strata2x2 } from './stratified/strata';
+export type { Strata2x2 } from './stratified/strata';
+export { standardize } from './standardization/g-computation';
+export type { MarginalEstimate, Standardization } from './standardization/g-computation';
+export { categoryCodeValues, MAX_CODE_VALUES } from './table/category-codes';
