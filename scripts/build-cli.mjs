@@ -16,5 +16,7 @@ await build({
 	// Prefer packages' ES-module builds: jsonc-parser's UMD build loads its parts with a
 	// run-time require that a bundle cannot follow.
 	mainFields: ['module', 'main'],
+	// The same build-time replacements as the app (vite.config.ts): no `eval` feature test.
+	alias: { '@stdlib/assert-has-generator-support': './src/lib/stats/shims/has-generator-support.cjs' },
 	banner: { js: "import { createRequire as __cwCreateRequire } from 'node:module'; const require = __cwCreateRequire(import.meta.url);" }
 });
