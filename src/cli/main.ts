@@ -4,6 +4,7 @@
  * exit 0 = done, 1 = negative verdict (`check`), 2 = bad usage or bad input, with one line on
  * stderr and no stack trace.
  */
+import { adjustTogetherText, optimalSetSentence } from '../lib/wording';
 import { readFile, writeFile } from 'node:fs/promises';
 import { parseArgs } from 'node:util';
 import type { Diagram } from '../lib/graph/diagram';
@@ -78,7 +79,7 @@ ${QUESTION_HELP}`,
 			for (const s of r.sets) ctx.print(`  ${braces(s)}`);
 			if (r.truncated) ctx.print(`  … stopped after ${r.sets.length} sets (--max); more exist`);
 			if (r.minimum) ctx.print(`Smallest set: ${braces(r.minimum)}`);
-			if (r.effect === 'total') ctx.print(r.optimal ? `Efficiency-optimal set: ${braces(r.optimal)}` : 'Efficiency-optimal set: none made of measured variables');
+			if (r.effect === 'total') ctx.print(optimalSetSentence(r, braces).replace(/\.$/, ''));
 			return 0;
 		}
 	},
@@ -189,8 +190,10 @@ that no measured set makes them independent.
 		summary: 'give each variable its role for the question',
 		usage: 'causeway roles DIAGRAM [--exposure …] [--outcome …] [--json]',
 		details: `Prints the role of each variable for the effect of the exposure(s) on the outcome(s):
-confounder, mediator, collider, descendant of exposure or outcome, instrument-like,
-precision variable or unrelated (several may apply).
+confounder (a pre-exposure variable in some minimal sufficient adjustment set, VanderWeele &
+Shpitser 2013), common cause, mediator, collider, descendant of exposure or outcome,
+instrument-like, precision variable or unrelated (several may apply; a confounder that is
+also a collider is printed with what it must be adjusted together with).
 ${QUESTION_HELP}`,
 		options: { ...QUESTION },
 		async run(ctx) {
@@ -201,7 +204,7 @@ ${QUESTION_HELP}`,
 				return 0;
 			}
 			const width = Math.max(...roles.map((r) => r.id.length), 1);
-			for (const r of roles) ctx.print(`${r.id.padEnd(width)}  ${r.roles.map((x) => ROLE_TEXT[x]).join(', ')}`);
+			for (const r of roles) ctx.print(`${r.id.padEnd(width)}  ${r.roles.map((x) => ROLE_TEXT[x]).join(', ')}${adjustTogetherText(r)}`);
 			return 0;
 		}
 	},

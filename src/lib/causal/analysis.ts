@@ -24,8 +24,8 @@ import { checkAdjustmentIdx } from './adjustment';
 import { impliedClaimsIdx } from './claims';
 import { dSeparated } from './dsep';
 import { listPathsIdx, type NodeStatus } from './paths';
-import { variableRolesIdx } from './roles';
-import { listMinimalAdjustmentSetsIdx, minimumAdjustmentSetIdx, optimalAdjustmentSetIdx } from './sets';
+import { variableRoleDetailsIdx } from './roles';
+import { listMinimalAdjustmentSetsIdx, minimumAdjustmentSetIdx, optimalAdjustmentSetIdx, optimalSetGapIdx } from './sets';
 
 const named = (g: CompiledDag, list: readonly number[]) => list.map((i) => g.ids[i]);
 
@@ -40,6 +40,7 @@ export function adjustmentSets(d: Diagram, opts: QuestionOptions & { effect?: Ef
 	const sets = listing.sets.map((s) => sortIds(named(g, s))).sort(compareSets);
 	const minimum = listing.identifiable ? minimumAdjustmentSetIdx(g, X, Y, effect) : null;
 	const optimal = effect === 'total' && listing.identifiable ? optimalAdjustmentSetIdx(g, X, Y) : null;
+	const gap = effect === 'total' ? optimalSetGapIdx(g, X, Y, listing.identifiable) : null;
 	return {
 		exposures,
 		outcomes,
@@ -48,7 +49,8 @@ export function adjustmentSets(d: Diagram, opts: QuestionOptions & { effect?: Ef
 		sets,
 		truncated: listing.truncated,
 		optimal: optimal && sortIds(named(g, optimal)),
-		minimum: minimum && sortIds(named(g, minimum))
+		minimum: minimum && sortIds(named(g, minimum)),
+		...(gap ? { optimalGap: gap.why === 'unmeasured' ? { why: 'unmeasured' as const, unmeasured: sortIds(named(g, gap.unmeasured)) } : { why: gap.why } } : {})
 	};
 }
 
@@ -84,7 +86,7 @@ export function dSeparation(d: Diagram, from: readonly string[], to: readonly st
 /** Roles of every variable for the question, in the diagram's order. */
 export function variableRoles(d: Diagram, opts: QuestionOptions = {}): VariableRoles[] {
 	const { g, X, Y } = prepare(d, opts);
-	return variableRolesIdx(g, X, Y).map((roles, i) => ({ id: g.ids[i], roles }));
+	return variableRoleDetailsIdx(g, X, Y).map((r, i) => (r.adjustWith === null ? { id: g.ids[i], roles: r.roles } : { id: g.ids[i], roles: r.roles, adjustWith: sortIds(r.adjustWith.map((w) => g.ids[w])) }));
 }
 
 function reasonById(g: CompiledDag, r: NodeStatus): PathNodeReason {

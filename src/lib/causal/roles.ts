@@ -2,7 +2,12 @@
  * The role each variable plays for the question "effect of X on Y". Definitions (several may
  * hold at once):
  * - mediator: inside a directed path from X to Y (interior avoiding X ∪ Y);
- * - confounder: a common cause — a directed path to X avoiding Y and one to Y avoiding X;
+ * - confounder: a pre-exposure variable in some minimal sufficient adjustment set (VanderWeele
+ *   & Shpitser, Annals of Statistics 41, 2013), decided in confounders.ts; it may also carry
+ *   other roles (a confounder that is a collider must be adjusted together with the rest of
+ *   its set);
+ * - common cause: a directed path to X avoiding Y and one to Y avoiding X (its own word: a
+ *   common cause need not be in any minimal set, and a confounder need not be a common cause);
  * - collider: → v ← on some simple X–Y path (interior avoiding X ∪ Y), decided exactly as two
  *   vertex-disjoint paths from X and from Y to two different parents of v (a unit-capacity
  *   maximum flow of value 2, Menger's theorem);
@@ -11,10 +16,12 @@
  *   d-separated from Y once the arrows out of X are cut (the usual instrument conditions);
  * - precision: causes Y by a path avoiding X, is no ancestor or descendant of X and is
  *   d-separated from X (adjusting it can only sharpen the estimate; Henckel et al. 2022).
- * O(n (n + m)) in all: one flow or one d-separation test per variable.
+ * O(n (n + m)) for all but the confounder test: one flow or one d-separation test per
+ * variable; confounders.ts gives the cost of that one.
  */
 import type { CompiledDag } from '../graph/compiled';
 import type { Role } from './types';
+import { confounderMembershipIdx } from './confounders';
 import { dSeparated } from './dsep';
 import { ancestorsOf, descendantsOf, maskOf, withoutArrows, type Mask } from './reach';
 
@@ -82,6 +89,17 @@ export function isColliderBetween(g: CompiledDag, v: number, inX: Mask, inY: Mas
 }
 
 export function variableRolesIdx(g: CompiledDag, X: readonly number[], Y: readonly number[]): Role[][] {
+	return variableRoleDetailsIdx(g, X, Y).map((r) => r.roles);
+}
+
+/** Roles, and for each confounder the rest of one minimal sufficient set containing it. */
+export function variableRoleDetailsIdx(g: CompiledDag, X: readonly number[], Y: readonly number[]): { roles: Role[]; adjustWith: number[] | null }[] {
+	const membership = confounderMembershipIdx(g, X, Y);
+	const roles = rolesWithout(g, X, Y, membership.member);
+	return roles.map((r, v) => ({ roles: r, adjustWith: membership.member[v] ? (membership.witness[v] ?? []).filter((w) => w !== v) : null }));
+}
+
+function rolesWithout(g: CompiledDag, X: readonly number[], Y: readonly number[], confounder: Uint8Array): Role[][] {
 	const n = g.n;
 	const inX = maskOf(n, X);
 	const inY = maskOf(n, Y);
@@ -102,7 +120,8 @@ export function variableRolesIdx(g: CompiledDag, X: readonly number[], Y: readon
 		const roles: Role[] = [];
 		const mediator = fromXDirect[v] === 1 && toYDirect[v] === 1;
 		if (mediator) roles.push('mediator');
-		if (toXAvoidingY[v] && toYAvoidingX[v]) roles.push('confounder');
+		if (confounder[v]) roles.push('confounder');
+		if (toXAvoidingY[v] && toYAvoidingX[v]) roles.push('common-cause');
 		if (isColliderBetween(g, v, inX, inY)) roles.push('collider');
 		if (belowY[v]) roles.push('descendant-of-outcome');
 		if (belowX[v] && !mediator) roles.push('descendant-of-exposure');

@@ -103,3 +103,26 @@ export function optimalAdjustmentSetIdx(g: CompiledDag, X: readonly number[], Y:
 	if (O.some((v) => !g.measured[v])) return null;
 	return isAdjustmentSet(g, X, Y, O) ? O : null;
 }
+
+export type OptimalSetGap = { why: 'no-causal-path' } | { why: 'unmeasured'; unmeasured: number[] } | { why: 'not-identifiable' } | { why: 'not-valid' };
+
+/**
+ * Why the efficiency-optimal set is missing (or empty for a reason worth saying): the exposure
+ * has no causal path to the outcome (cn(X, Y) is empty, so O is not defined by a causal path
+ * and any sufficient set estimates the null effect), O contains unmeasured variables, no
+ * sufficient set exists, or (several exposures) O is not valid. Null when O exists. O(n + m).
+ */
+export function optimalSetGapIdx(g: CompiledDag, X: readonly number[], Y: readonly number[], identifiable: boolean): OptimalSetGap | null {
+	const s = properCausalStructure(g, X, Y);
+	if (!membersOf(s.causalNodes).some((v) => s.inY[v])) return { why: 'no-causal-path' };
+	if (!identifiable) return { why: 'not-identifiable' };
+	const members = new Set<number>();
+	for (const w of membersOf(s.causalNodes))
+		for (let k = g.parentStart[w]; k < g.parentStart[w + 1]; k++) {
+			const p = g.parentList[k];
+			if (!s.inX[p] && !s.forbidden[p]) members.add(p);
+		}
+	const unmeasured = [...members].filter((v) => !g.measured[v]).sort((a, b) => a - b);
+	if (unmeasured.length > 0) return { why: 'unmeasured', unmeasured };
+	return optimalAdjustmentSetIdx(g, X, Y) === null ? { why: 'not-valid' } : null;
+}

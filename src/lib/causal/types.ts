@@ -38,6 +38,11 @@ export interface AdjustmentSets {
 	optimal: string[] | null;
 	/** A minimum-size set (minimum vertex cut), null when not identifiable. */
 	minimum: string[] | null;
+	/**
+	 * Why `optimal` is null (or empty because the exposure has no causal path to the outcome);
+	 * absent when the optimal set exists along a causal path, or for the direct effect.
+	 */
+	optimalGap?: { why: 'no-causal-path' | 'not-identifiable' | 'not-valid' } | { why: 'unmeasured'; unmeasured: string[] };
 }
 
 export interface DSeparationResult {
@@ -50,6 +55,7 @@ export type Role =
 	| 'exposure'
 	| 'outcome'
 	| 'confounder'
+	| 'common-cause'
 	| 'mediator'
 	| 'collider'
 	| 'descendant-of-exposure'
@@ -61,6 +67,11 @@ export type Role =
 export interface VariableRoles {
 	id: string;
 	roles: Role[];
+	/**
+	 * For a confounder: the rest of one minimal sufficient set that contains it (empty when it
+	 * suffices alone) — what it must be adjusted together with, e.g. when it is also a collider.
+	 */
+	adjustWith?: string[];
 }
 
 /** Why a path is blocked (first blocking node) or what keeps it open. */

@@ -11,7 +11,7 @@ import { validateDiagram } from '../graph/validate';
 import { adjustmentSets, checkAdjustment, variableRoles } from '../causal';
 import type { AdjustmentCheck, AdjustmentSets, Role, VariableRoles } from '../causal';
 import { ROLE_NAME } from '../wording';
-import { BADGE_MEANING, labelLookup, listNames, pathText, problemText, setText, verdictSentence, type LabelOf } from '../wording';
+import { BADGE_MEANING, labelLookup, listNames, optimalSetSentence, pathText, problemText, setText, verdictSentence, type LabelOf } from '../wording';
 import { criticalAbsentArrows, withPlannedReasons, type AbsentArrowReport } from '../causal';
 import type { ReportDataResults } from './report-data';
 import { writeSvg } from './svg';
@@ -302,7 +302,7 @@ export function buildReport(input: ReportInput): ReportModel {
 		if (a.sets.truncated) setBlocks.push({ kind: 'paragraph', text: `The listing stopped after ${a.sets.sets.length} sets; more exist.` });
 		const extra: string[] = [];
 		if (a.sets.minimum) extra.push(`Smallest set: ${setText(a.sets.minimum, label)}.`);
-		extra.push(a.sets.optimal ? `Efficiency-optimal set (Henckel, Perković & Maathuis 2022): ${setText(a.sets.optimal, label)}.` : 'Efficiency-optimal set: none made of measured variables.');
+		extra.push(optimalSetSentence(a.sets, (ids) => setText(ids, label), ' (Henckel, Perković & Maathuis 2022)'));
 		setBlocks.push({ kind: 'paragraph', text: extra.join(' ') });
 	}
 	sections.push({ id: 'sets', heading: 'Adjustment sets', blocks: setBlocks });

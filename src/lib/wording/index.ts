@@ -11,3 +11,4 @@ export * from './paths';
 export * from './claims';
 export * from './data';
 export * from './review';
+export * from './confounding';

@@ -8,6 +8,7 @@ export const ROLE_NAME: Readonly<Record<Role, string>> = {
 	exposure: 'exposure',
 	outcome: 'outcome',
 	confounder: 'confounder',
+	'common-cause': 'common cause',
 	mediator: 'mediator',
 	collider: 'collider',
 	'descendant-of-exposure': 'descendant of exposure',
@@ -22,6 +23,7 @@ const BADGE: Partial<Record<Role, string>> = {
 	exposure: 'exposure',
 	outcome: 'outcome',
 	confounder: 'confounder',
+	'common-cause': 'common cause',
 	mediator: 'mediator',
 	collider: 'collider',
 	'descendant-of-outcome': 'descendant of outcome',
@@ -29,7 +31,7 @@ const BADGE: Partial<Record<Role, string>> = {
 	precision: 'precision'
 };
 
-export const BADGE_ORDER: readonly Role[] = ['exposure', 'outcome', 'confounder', 'mediator', 'collider', 'descendant-of-outcome', 'instrument-like', 'precision'];
+export const BADGE_ORDER: readonly Role[] = ['exposure', 'outcome', 'confounder', 'common-cause', 'mediator', 'collider', 'descendant-of-outcome', 'instrument-like', 'precision'];
 
 export function badges(roles: readonly Role[]): string[] {
 	return BADGE_ORDER.filter((r) => roles.includes(r)).map((r) => BADGE[r]!);
@@ -37,10 +39,27 @@ export function badges(roles: readonly Role[]): string[] {
 
 /** What each badge means, for the legend. */
 export const BADGE_MEANING: readonly [string, string][] = [
-	['confounder', 'causes both the exposure and the outcome'],
+	['confounder', 'a pre-exposure variable in some minimal sufficient adjustment set (VanderWeele & Shpitser 2013)'],
+	['common cause', 'causes both the exposure and the outcome, not through each other'],
 	['mediator', 'lies on a causal path from exposure to outcome'],
 	['collider', 'two arrows on an exposure–outcome path meet in it'],
 	['descendant of outcome', 'is caused by the outcome'],
 	['instrument-like', 'affects the outcome only through the exposure'],
 	['precision', 'affects the outcome only, not the exposure']
 ];
+
+/**
+ * For a confounder that carries another role (e.g. also a collider) and needs company in its
+ * minimal set: ": adjust together with income"; otherwise "". So "confounder · collider:
+ * adjust together with income".
+ */
+export function adjustTogetherText(r: { roles: readonly Role[]; adjustWith?: readonly string[] }, labelOf: (id: string) => string = (id) => id): string {
+	const others = r.roles.filter((x) => x !== 'confounder' && x !== 'common-cause');
+	if (!r.roles.includes('confounder') || !r.adjustWith || r.adjustWith.length === 0 || others.length === 0) return '';
+	return `: adjust together with ${r.adjustWith.map(labelOf).join(' and ')}`;
+}
+
+/** A variable's roles joined with "·", with adjustTogetherText after them. */
+export function rolesText(r: { roles: readonly Role[]; adjustWith?: readonly string[] }, labelOf: (id: string) => string = (id) => id): string {
+	return r.roles.map((x) => ROLE_NAME[x]).join(' · ') + adjustTogetherText(r, labelOf);
+}

@@ -16,6 +16,7 @@ import {
 	variableRoles
 } from '../../../src/lib/causal/analysis';
 import type { AdjustmentCheck, Role } from '../../../src/lib/causal/types';
+import { optimalSetSentence, rolesText } from '../../../src/lib/wording';
 
 /** A diagram from "a->b" arrows; variables in order of first mention. */
 function diagram(spec: { arrows: string[]; exposures: string[]; outcomes: string[]; unmeasured?: string[]; adjusted?: string[] }): Diagram {
@@ -159,6 +160,25 @@ describe('Collider stratification and selection bias (Hernán, Hernández-Díaz 
 	});
 });
 
+describe('Confounder as a member of some minimal sufficient set (VanderWeele & Shpitser, Ann Stat 2013)', () => {
+	it('c→x, c→m, m→y, x→y: {c} and {m} are both minimal, so m is a confounder without being a common cause', () => {
+		const d = diagram({ arrows: ['c->x', 'c->m', 'm->y', 'x->y'], exposures: ['x'], outcomes: ['y'] });
+		expect(adjustmentSets(d).sets).toEqual([['c'], ['m']]);
+		expect(rolesOf(d, 'm')).toEqual(['confounder']);
+		expect(rolesOf(d, 'c')).toEqual(['confounder', 'common-cause']);
+	});
+	it('with c unmeasured, m is still a confounder (roles count every variable as adjustable)', () => {
+		const d = diagram({ arrows: ['c->x', 'c->m', 'm->y', 'x->y'], exposures: ['x'], outcomes: ['y'], unmeasured: ['c'] });
+		expect(rolesOf(d, 'm')).toEqual(['confounder']);
+	});
+	it('a common cause that no minimal set needs: c→a→x, c→b→y, a→y, x→y (only {a} is minimal)', () => {
+		const d = diagram({ arrows: ['c->a', 'a->x', 'c->b', 'b->y', 'a->y', 'x->y'], exposures: ['x'], outcomes: ['y'] });
+		expect(adjustmentSets(d).sets).toEqual([['a']]);
+		expect(rolesOf(d, 'c')).toEqual(['common-cause']);
+		expect(rolesOf(d, 'a')).toEqual(['confounder', 'common-cause']);
+	});
+});
+
 describe('Butterfly bias (Ding & Miratrix, J Causal Inference 2015)', () => {
 	// A→X, A→C←B, B→Y, C→X, C→Y, X→Y: C is a confounder and a collider at once.
 	const arrows = ['A->X', 'A->C', 'B->C', 'B->Y', 'C->X', 'C->Y', 'X->Y'];
@@ -173,7 +193,11 @@ describe('Butterfly bias (Ding & Miratrix, J Causal Inference 2015)', () => {
 			['A', 'C'],
 			['B', 'C']
 		]);
-		expect(rolesOf(d, 'C')).toEqual(['confounder', 'collider']);
+		expect(rolesOf(d, 'C')).toEqual(['confounder', 'common-cause', 'collider']);
+		// C's minimal sets are {A, C} and {B, C}: it must be adjusted with one of them.
+		const c2 = variableRoles(d).find((r) => r.id === 'C')!;
+		expect([['A'], ['B']]).toContainEqual(c2.adjustWith);
+		expect(rolesText(c2)).toMatch(/^confounder · common cause · collider: adjust together with [AB]$/);
 	});
 
 	it('Ding & Miratrix: with A and B unmeasured, no adjustment set exists', () => {
@@ -244,9 +268,9 @@ describe('Demo study: cycling to work and hypertension (static/demo, our own sce
 		expect(rolesOf(d, 'distance')).toEqual(['instrument-like']);
 		expect(rolesOf(d, 'bikeability')).toEqual(['instrument-like']);
 		expect(rolesOf(d, 'family_history')).toEqual(['precision']);
-		expect(rolesOf(d, 'age')).toEqual(['confounder']);
-		expect(rolesOf(d, 'income')).toEqual(['confounder']);
-		expect(rolesOf(d, 'health_consciousness')).toEqual(['confounder']);
+		expect(rolesOf(d, 'age')).toEqual(['confounder', 'common-cause']);
+		expect(rolesOf(d, 'income')).toEqual(['confounder', 'common-cause']);
+		expect(rolesOf(d, 'health_consciousness')).toEqual(['confounder', 'common-cause']);
 	});
 
 	it('analyse() gives the same answers at once', () => {
@@ -256,5 +280,24 @@ describe('Demo study: cycling to work and hypertension (static/demo, our own sce
 		expect(a.sets?.sets).toEqual([['age', 'diet', 'income']]);
 		expect(a.check?.valid).toBe(true);
 		expect(a.paths?.paths.some((p) => p.nodes.join('-') === 'cycling-app_panel-hypertension' && !p.open)).toBe(true);
+	});
+});
+
+describe('Why the efficiency-optimal set is missing', () => {
+	it('no causal path from exposure to outcome, everything measured: says so', () => {
+		const d = diagram({ arrows: ['c->x', 'c->y'], exposures: ['x'], outcomes: ['y'] });
+		const s = adjustmentSets(d);
+		expect(s.optimalGap).toEqual({ why: 'no-causal-path' });
+		expect(optimalSetSentence(s, (ids) => `{${ids.join(', ')}}`)).toMatch(/no causal path from the exposure to the outcome/);
+	});
+	it('an unmeasured parent of the outcome: names it', () => {
+		const d = diagram({ arrows: ['c->x', 'c->y', 'x->y', 'u->y'], exposures: ['x'], outcomes: ['y'], unmeasured: ['u'] });
+		const s = adjustmentSets(d);
+		expect(s.optimal).toBeNull();
+		expect(s.optimalGap).toEqual({ why: 'unmeasured', unmeasured: ['u'] });
+	});
+	it('present when it exists', () => {
+		const d = diagram({ arrows: ['c->x', 'c->y', 'x->y'], exposures: ['x'], outcomes: ['y'] });
+		expect(adjustmentSets(d).optimalGap).toBeUndefined();
 	});
 });

@@ -27,7 +27,7 @@ describe('CSV tables', () => {
 		});
 		const byId = new Map(table.slice(1).map((r) => [r[0], r[3].split(';')]));
 		expect(byId.get('cycling')).toEqual(['exposure']);
-		expect(byId.get('age')).toEqual(['confounder', 'adjusted']);
+		expect(byId.get('age')).toEqual(['confounder', 'common-cause', 'adjusted']);
 		expect(byId.get('fitness')).toEqual(['mediator']);
 		expect(byId.get('family_history')).toEqual(['precision']);
 	});

@@ -209,7 +209,7 @@ describe('oracle: paths and roles', () => {
 		const of = (id: string) => roles[ix(id)[0]];
 		expect(of('x')).toEqual(['exposure']);
 		expect(of('y')).toEqual(['outcome']);
-		expect(of('c')).toEqual(['confounder']);
+		expect(of('c')).toEqual(['confounder', 'common-cause']);
 		expect(of('m')).toEqual(['mediator']);
 		expect(of('k')).toEqual(['collider', 'descendant-of-outcome', 'descendant-of-exposure']);
 		// d descends from y, hence also from x through x→m→y→d
@@ -221,7 +221,7 @@ describe('oracle: paths and roles', () => {
 	});
 	it('an ancestor of x that also reaches y around x is a confounder, not instrument-like', () => {
 		const { g, ix } = graph(['x', 'y', 'a'], ['a->x', 'a->y', 'x->y']);
-		expect(rolesOracle(g, ix('x'), ix('y'))[ix('a')[0]]).toEqual(['confounder']);
+		expect(rolesOracle(g, ix('x'), ix('y'))[ix('a')[0]]).toEqual(['confounder', 'common-cause']);
 	});
 });
 

@@ -503,6 +503,7 @@ export const ROLE_ORDER: readonly Role[] = [
 	'outcome',
 	'mediator',
 	'confounder',
+	'common-cause',
 	'collider',
 	'descendant-of-outcome',
 	'descendant-of-exposure',
@@ -535,13 +536,15 @@ export function rolesOracle(g: CompiledDag, xs: readonly number[], ys: readonly 
 	const deYproper = properDescendantsOf(ys);
 	const deXinclusive = new Set([...deXproper, ...xs]);
 	const noArrowsOutOfX = withoutArrows(g, (a) => xset.has(a));
+	const confounders = new Set(minimalPreExposureSetsOracle(g, xs, ys).flat());
 
 	return Array.from({ length: g.n }, (_, v): Role[] => {
 		if (xset.has(v)) return ['exposure'];
 		if (yset.has(v)) return ['outcome'];
 		const roles: Role[] = [];
 		if (mediators.has(v)) roles.push('mediator');
-		if (reachesAvoiding(g, v, xs, yset) && reachesAvoiding(g, v, ys, xset)) roles.push('confounder');
+		if (confounders.has(v)) roles.push('confounder');
+		if (reachesAvoiding(g, v, xs, yset) && reachesAvoiding(g, v, ys, xset)) roles.push('common-cause');
 		if (colliders.has(v)) roles.push('collider');
 		if (deYproper.has(v)) roles.push('descendant-of-outcome');
 		if (deXproper.has(v) && !mediators.has(v)) roles.push('descendant-of-exposure');
@@ -564,4 +567,22 @@ export function rolesOracle(g: CompiledDag, xs: readonly number[], ys: readonly 
 		if (roles.length === 0) roles.push('unrelated');
 		return roles;
 	});
+}
+
+/**
+ * VanderWeele & Shpitser (Annals of Statistics 41, 2013), by definition: every minimal
+ * sufficient set of pre-exposure variables, found by trying every subset of
+ * R = V \ (X ∪ Y ∪ De(X)) — measured or not, as roles describe the structure — against the
+ * adjustment criterion judged path by path (for pre-exposure sets and one exposure this is
+ * Pearl's back-door criterion; Shpitser, VanderWeele & Robins 2010). Exponential by design.
+ */
+export function minimalPreExposureSetsOracle(g: CompiledDag, xs: readonly number[], ys: readonly number[]): number[][] {
+	const { properNonCausal } = adjustmentOracle(g, xs, ys);
+	const xset = new Set(xs);
+	const yset = new Set(ys);
+	const belowX = new Set<number>();
+	for (const x of xs) for (const d of descendantsOf(g, x)) belowX.add(d);
+	const candidates = maskOf(Array.from({ length: g.n }, (_, v) => v).filter((v) => !xset.has(v) && !yset.has(v) && !belowX.has(v)));
+	const signatures = signaturesOf(g, properNonCausal);
+	return minimalMasks(candidates, (z) => !anyOpen(signatures, z)).map(membersOf);
 }
