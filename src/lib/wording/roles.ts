@@ -33,8 +33,9 @@ const BADGE: Partial<Record<Role, string>> = {
 
 export const BADGE_ORDER: readonly Role[] = ['exposure', 'outcome', 'confounder', 'common-cause', 'mediator', 'collider', 'descendant-of-outcome', 'instrument-like', 'precision'];
 
+/** Badges of a variable; "common cause" only when it is not also a confounder (less clutter). */
 export function badges(roles: readonly Role[]): string[] {
-	return BADGE_ORDER.filter((r) => roles.includes(r)).map((r) => BADGE[r]!);
+	return BADGE_ORDER.filter((r) => roles.includes(r) && !(r === 'common-cause' && roles.includes('confounder'))).map((r) => BADGE[r]!);
 }
 
 /** What each badge means, for the legend. */
