@@ -6,9 +6,10 @@
  * arrow, O(n) or O(n log n) each.
  */
 import type { Diagram } from '../graph/diagram';
-import { associate, StatsError, type Column, type TestResult } from '../stats';
+import { associate, completeRows, StatsError, type Column, type TestResult } from '../stats';
 import { pictureData } from './pictures';
-import type { ArrowCheck, ArrowChecks, ArrowSupport, VariableMapping } from './types';
+import { twoWayTable, type TwoWayTable } from './two-way';
+import type { ArrowCheck, ArrowChecks, ArrowSupport, ReadMeasure, VariableMapping } from './types';
 
 /** Cohen (1988): r = 0.1 is a "small" correlation (common practice). */
 export const SMALL_STRENGTH = 0.1;
@@ -37,10 +38,61 @@ export function associationStrength(tests: readonly TestResult[]): { value: numb
 	return null;
 }
 
-export function supportOf(p: number, strength: number | null, alpha: number): ArrowSupport {
+/**
+ * The verdict. "weak" is decided in the measure the user reads, never on Cramér's V alone when
+ * an odds ratio is shown: |r|, ρ or the correlation ratio below 0.1 and |d| below 0.2 are
+ * Cohen's (1988) "small" (rules of thumb); an odds ratio has no such cut — a small V can hide
+ * an odds ratio of 1.6 when the outcome is rare — so a detected odds ratio is "supported" and
+ * its size is shown. `strength` is the old 0…1 scale, used when no measure is given.
+ */
+export function supportOf(p: number, strength: number | null, alpha: number, measure?: ReadMeasure | null): ArrowSupport {
 	if (!Number.isFinite(p)) return 'untested';
 	if (p >= alpha) return 'absent';
+	if (measure) return measure.smallBelow !== null && Math.abs(measure.value) < measure.smallBelow ? 'weak' : 'supported';
 	return strength !== null && strength < SMALL_STRENGTH ? 'weak' : 'supported';
+}
+
+/** Cohen's d: difference in means of the numeric column between the binary one's levels, over the pooled SD. O(n). */
+function standardizedDifference(group: Column, numeric: Column): number {
+	if (group.kind === 'continuous' || numeric.kind !== 'continuous') return NaN;
+	const rows = completeRows([group, numeric]);
+	const sum = [0, 0];
+	const sq = [0, 0];
+	const count = [0, 0];
+	for (const r of rows) {
+		const g = group.codes[r];
+		const v = numeric.values[r];
+		sum[g] += v;
+		sq[g] += v * v;
+		count[g]++;
+	}
+	const mean = sum.map((s, g) => s / count[g]);
+	const ss = sq.map((q, g) => q - count[g] * mean[g] * mean[g]);
+	const sd = Math.sqrt((ss[0] + ss[1]) / (count[0] + count[1] - 2));
+	return (mean[1] - mean[0]) / sd;
+}
+
+/** The measure a practitioner reads for the pair, with Cohen's small size where one applies. O(n). */
+export function readMeasure(a: Column, b: Column, main: TestResult, table: TwoWayTable | null): ReadMeasure | null {
+	const ors = table?.levelOddsRatios;
+	if (ors && ors.levels.length > 0) {
+		const strongest = ors.levels.reduce((m, l) => (Math.abs(Math.log(l.oddsRatio)) > Math.abs(Math.log(m.oddsRatio)) ? l : m));
+		const name = ors.levels.length === 1 ? 'odds ratio' : `odds ratio, ${ors.variable} = ${strongest.level} vs ${ors.reference.level}`;
+		return { name, value: strongest.oddsRatio, ci: strongest.ci, smallBelow: null };
+	}
+	if (table) {
+		const v = main.effects.find((e) => e.name === "Cramér's V");
+		return v ? { name: "Cramér's V", value: v.value, smallBelow: SMALL_STRENGTH } : null;
+	}
+	const binary = a.kind === 'binary' && b.kind === 'continuous' ? [a, b] : b.kind === 'binary' && a.kind === 'continuous' ? [b, a] : null;
+	if (binary) {
+		const d = standardizedDifference(binary[0], binary[1]);
+		if (Number.isFinite(d)) return { name: `standardized difference d (${binary[1].name})`, value: d, smallBelow: 0.2 };
+	}
+	const s = associationStrength([main]);
+	if (!s) return null;
+	const e = main.effects[0];
+	return { name: s.name, value: e && /(^| )r$|rho$/.test(e.name) ? e.value : s.value, ...(e?.ci && /(^| )r$/.test(e.name) ? { ci: e.ci } : {}), smallBelow: SMALL_STRENGTH };
 }
 
 export function checkArrows(diagram: Diagram, columnOf: (name: string) => Column, mapping: VariableMapping, options: ArrowCheckOptions = {}): ArrowChecks {
@@ -62,9 +114,14 @@ export function checkArrows(diagram: Diagram, columnOf: (name: string) => Column
 		try {
 			const r = associate(tail, head);
 			const strength = associationStrength([r.main, ...r.others]);
+			const table = tail.kind !== 'continuous' && head.kind !== 'continuous' ? twoWayTable(tail, head) : null;
+			const measure = readMeasure(tail, head, r.main, table);
 			checks.push({
 				...base,
-				support: supportOf(r.main.pValue, strength?.value ?? null, alpha),
+				kinds: [tail.kind, head.kind],
+				support: supportOf(r.main.pValue, strength?.value ?? null, alpha, measure),
+				measure,
+				table,
 				main: r.main,
 				others: r.others,
 				strength: strength?.value ?? null,
@@ -74,7 +131,7 @@ export function checkArrows(diagram: Diagram, columnOf: (name: string) => Column
 			});
 		} catch (e) {
 			if (!(e instanceof StatsError)) throw e;
-			checks.push({ ...base, support: 'untested', main: null, others: [], strength: null, strengthName: null, message: e.message });
+			checks.push({ ...base, kinds: [tail.kind, head.kind], support: 'untested', main: null, others: [], strength: null, strengthName: null, measure: null, table: null, message: e.message });
 		}
 	});
 	return { alpha, checks, skipped };

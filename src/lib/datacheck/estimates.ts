@@ -12,7 +12,7 @@ import type { Diagram } from '../graph/diagram';
 import { InputError } from '../graph/errors';
 import { adjustmentSets, checkAdjustment, compareSets, sortIds } from '../causal';
 import type { AdjustmentSets } from '../causal';
-import { completeRows, estimateExposureEffect, eValue, numericValues, StatsError, type Column, type ExposureEffect } from '../stats';
+import { completeRows, estimateExposureEffect, eValue, numericValues, standardize, StatsError, type Column, type ExposureEffect } from '../stats';
 import type { EstimateRole, EstimateRow, Estimates, EValueSummary, VariableMapping } from './types';
 
 export interface EstimateOptions {
@@ -109,6 +109,32 @@ export function separationWarning(effect: ExposureEffect): string | null {
 	return `Likely separation (an outcome level predicted perfectly): the estimate for ${suspicious.join(', ')} has no finite maximum-likelihood value and its interval is meaningless; consider fewer or coarser covariates, or penalized (Firth) regression.`;
 }
 
+/**
+ * Marginal risk difference, risk ratio and odds ratio by standardization (g-computation,
+ * stats/standardization) for a binary exposure and outcome, with the split of the change in
+ * the odds ratio into confounding (crude → marginal) and non-collapsibility (marginal →
+ * conditional). Null for other kinds. One more logistic fit.
+ */
+function standardizedRow(outcome: Column, exposure: Column, used: readonly Column[], crudeSameRows: number | null): EstimateRow['standardized'] {
+	if (outcome.kind !== 'binary' || exposure.kind !== 'binary') return null;
+	try {
+		const g = standardize(outcome, exposure, used);
+		return {
+			risk1: g.risk1.estimate,
+			risk0: g.risk0.estimate,
+			riskDifference: g.riskDifference,
+			riskRatio: g.riskRatio,
+			marginalOddsRatio: g.marginalOddsRatio,
+			conditionalOddsRatio: g.conditionalOddsRatio.estimate,
+			crudeOddsRatio: crudeSameRows,
+			method: 'delta'
+		};
+	} catch (e) {
+		if (!(e instanceof StatsError)) throw e;
+		return null;
+	}
+}
+
 export function estimateEffects(seen: Diagram, columnOf: (name: string) => Column, mapping: VariableMapping, options: EstimateOptions = {}): EstimatesOutcome {
 	const question = estimateQuestion(seen, mapping.columns, 'has no column in the data');
 	if ('message' in question) return { estimates: null, message: question.message };
@@ -129,7 +155,7 @@ export function estimateEffects(seen: Diagram, columnOf: (name: string) => Colum
 	const warnings = new Set<string>();
 	for (const w of wanted) {
 		const label = rowLabel(w.roles, w.set);
-		const blank = { roles: w.roles, label, adjustedFor: w.set, n: 0, term: exposure.name, estimate: NaN, ci: [NaN, NaN] as [number, number], pValue: NaN, crudeSameRows: null, changePercent: null, changeMarked: false, warnings: [] };
+		const blank = { roles: w.roles, label, adjustedFor: w.set, n: 0, term: exposure.name, estimate: NaN, ci: [NaN, NaN] as [number, number], pValue: NaN, crudeSameRows: null, crudeSameRowsCi: null, changePercent: null, changeMarked: false, standardized: null, warnings: [] };
 		const noData = w.set.filter((id) => mapping.columns[id] === undefined);
 		if (noData.length > 0) {
 			rows.push({ ...blank, sufficient: false, message: `Not estimated: no column for ${noData.map((id) => `"${id}"`).join(', ')}.` });
@@ -155,6 +181,8 @@ export function estimateEffects(seen: Diagram, columnOf: (name: string) => Colum
 				ci: a.ci,
 				pValue: a.pValue,
 				crudeSameRows: isCrude ? null : r.crude[0].estimate,
+				crudeSameRowsCi: isCrude ? null : r.crude[0].ci,
+				standardized: standardizedRow(outcome, exposure, used, isCrude ? null : r.crude[0].estimate),
 				changePercent: isCrude ? null : r.change[0].percent,
 				changeMarked: isCrude ? false : r.change[0].atLeastTenPercent,
 				warnings: rowWarnings

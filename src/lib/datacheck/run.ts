@@ -12,9 +12,10 @@
 import type { Diagram } from '../graph/diagram';
 import { InputError } from '../graph/errors';
 import { validateDiagram } from '../graph/validate';
-import type { Column, Table } from '../stats';
+import { categoryCodeValues, type Column, type Table } from '../stats';
 import { checkArrows } from './arrow-checks';
 import { checkClaims } from './claim-checks';
+import { checkConfounders } from './confounding';
 import { estimateEffects } from './estimates';
 import { dataDiagram, mapVariables } from './mapping';
 import { retypeTable } from './retype';
@@ -78,6 +79,11 @@ export function runDataChecks(diagram: Diagram, table: Table, options: DataCheck
 		: { alpha, checks: [], noTestableClaim: [], tested: 0, contradicted: 0, truncated: false };
 	if (parts.estimates) options.onProgress?.({ stage: 'estimates', fraction: 0 });
 	const est = parts.estimates ? estimateEffects(seen, columnOf, mapping, { planned: options.planned, maxSets: options.maxSets }) : { estimates: null, message: 'Not computed.' };
+	const confounders = parts.estimates ? checkConfounders(seen, columnOf, mapping) : null;
+	const categoryCodes = t.columns.flatMap((c) => {
+		const values = categoryCodeValues(c);
+		return values ? [{ column: c.name, values }] : [];
+	});
 	const skippedColumns = t.skipped.map((s) => s.message);
 	return {
 		mapping,
@@ -85,6 +91,8 @@ export function runDataChecks(diagram: Diagram, table: Table, options: DataCheck
 		claims,
 		estimates: est.estimates,
 		estimatesMessage: est.message,
+		confounders,
+		categoryCodes,
 		rowCount: t.rowCount,
 		notes: [...mapping.notes, ...skippedColumns]
 	};

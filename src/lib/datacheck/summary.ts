@@ -18,7 +18,7 @@ import Papa from 'papaparse';
 import type { Diagram } from '../graph/diagram';
 import { adjustmentSets, checkAdjustment, impliedClaims } from '../causal';
 import { linearRegressionFromSummary, partialCorrelationFromSummary, StatsError, type SummaryStatistics } from '../stats';
-import { associationStrength, DEFAULT_ALPHA, supportOf } from './arrow-checks';
+import { associationStrength, DEFAULT_ALPHA, SMALL_STRENGTH, supportOf } from './arrow-checks';
 import { claimFamily } from './claim-checks';
 import { estimateQuestion, rowLabel, setsToEstimate, type EstimatesOutcome } from './estimates';
 import { dataDiagram, mapVariables } from './mapping';
@@ -95,7 +95,7 @@ function summaryEstimates(seen: Diagram, s: SummaryStatistics, columns: Record<s
 	const notes = ['From a summary matrix: linear regression on the second moments (every variable taken as continuous); no per-row checks (separation, missing values) are possible.'];
 	if (s.type === 'correlation' && !s.sds) notes.push('Correlations without SDs: standardized coefficients.');
 	const rows: EstimateRow[] = wanted.map((w) => {
-		const blank = { roles: w.roles, label: rowLabel(w.roles, w.set), adjustedFor: w.set, n: s.n, term: columns[x], estimate: NaN, ci: [NaN, NaN] as [number, number], pValue: NaN, crudeSameRows: null, changePercent: null, changeMarked: false, sufficient: false, warnings: [] };
+		const blank = { roles: w.roles, label: rowLabel(w.roles, w.set), adjustedFor: w.set, n: s.n, term: columns[x], estimate: NaN, ci: [NaN, NaN] as [number, number], pValue: NaN, crudeSameRows: null, crudeSameRowsCi: null, changePercent: null, changeMarked: false, standardized: null, sufficient: false, warnings: [] };
 		const missing = w.set.filter((id) => columns[id] === undefined);
 		if (missing.length > 0) return { ...blank, message: `Not estimated: ${missing.map((id) => `"${id}"`).join(', ')} not in the matrix.` };
 		const sufficient = checkAdjustment(seen, { adjusted: w.set }).valid;
@@ -104,7 +104,7 @@ function summaryEstimates(seen: Diagram, s: SummaryStatistics, columns: Record<s
 			if (!c) throw new StatsError('the exposure has no coefficient');
 			const isCrude = w.set.length === 0;
 			const change = !isCrude && crude ? (100 * (c.estimate - crude.estimate)) / crude.estimate : null;
-			return { ...blank, sufficient, estimate: c.estimate, ci: c.ci, pValue: c.pValue, crudeSameRows: isCrude || !crude ? null : crude.estimate, changePercent: change, changeMarked: change !== null && Math.abs(change) >= 10 };
+			return { ...blank, sufficient, estimate: c.estimate, ci: c.ci, pValue: c.pValue, crudeSameRows: isCrude || !crude ? null : crude.estimate, crudeSameRowsCi: isCrude || !crude ? null : crude.ci, changePercent: change, changeMarked: change !== null && Math.abs(change) >= 10 };
 		} catch (e) {
 			if (!(e instanceof StatsError)) throw e;
 			return { ...blank, sufficient, message: `Not estimated: ${e.message}` };
@@ -133,7 +133,9 @@ export function runSummaryChecks(diagram: Diagram, s: SummaryStatistics, options
 		main.test = "Pearson correlation, Fisher's z test (from the summary matrix)";
 		main.effects[0] = { ...main.effects[0], name: 'Pearson r' };
 		const strength = associationStrength([main]);
-		checks.push({ from: a.from, to: a.to, columns: [cols[a.from], cols[a.to]], support: supportOf(main.pValue, strength?.value ?? null, alpha), main, others: [], strength: strength?.value ?? null, strengthName: strength?.name ?? null, message: null });
+		const e = main.effects[0];
+		const measure = { name: 'Pearson r', value: e.value, ...(e.ci ? { ci: e.ci } : {}), smallBelow: SMALL_STRENGTH };
+		checks.push({ from: a.from, to: a.to, columns: [cols[a.from], cols[a.to]], kinds: ['continuous', 'continuous'], support: supportOf(main.pValue, strength?.value ?? null, alpha, measure), measure, table: null, main, others: [], strength: strength?.value ?? null, strengthName: strength?.name ?? null, message: null });
 	}
 	const listed = impliedClaims(seen, { max: options.maxClaims === undefined ? undefined : options.maxClaims + 1 });
 	const truncated = options.maxClaims !== undefined && listed.length > options.maxClaims;
@@ -151,6 +153,8 @@ export function runSummaryChecks(diagram: Diagram, s: SummaryStatistics, options
 		claims,
 		estimates: est.estimates,
 		estimatesMessage: est.message,
+		confounders: null,
+		categoryCodes: [],
 		rowCount: s.n,
 		notes: [`Summary ${s.type} matrix of ${s.names.length} variables, n = ${s.n}.`, ...mapping.notes]
 	};

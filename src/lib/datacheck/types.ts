@@ -3,8 +3,24 @@
  * estimate`), what the data worker sends to the app, and what benchmarks time. Plain data
  * (numbers, strings, arrays), so it can be posted to a worker and written as JSON.
  */
+import type { Role } from '../causal';
 import type { ColumnKind, TestResult } from '../stats';
 import type { PictureData } from './pictures';
+import type { TwoWayTable } from './two-way';
+export type { TwoWayTable } from './two-way';
+
+/**
+ * The size of an association in the measure a practitioner reads: an odds ratio (per level
+ * against the reference, the strongest shown), a standardized difference d, a correlation,
+ * or Cramér's V for tables without a binary variable. `smallBelow` is Cohen's (1988) "small"
+ * for that measure (a rule of thumb), or null where none is used (odds ratios).
+ */
+export interface ReadMeasure {
+	name: string;
+	value: number;
+	ci?: readonly [number, number];
+	smallBelow: number | null;
+}
 
 /** How the diagram's variables meet the table's columns. */
 export interface VariableMapping {
@@ -46,7 +62,13 @@ export interface ArrowCheck {
 	to: string;
 	/** Column names used. */
 	columns: [string, string];
+	/** The kind each column was analysed as (stated beside the result). */
+	kinds: [ColumnKind, ColumnKind];
 	support: ArrowSupport;
+	/** The size in the measure the user reads; the verdict's "weak" is decided on it. */
+	measure: ReadMeasure | null;
+	/** Two discrete columns: counts, row proportions, X², df, odds ratios per level. */
+	table: TwoWayTable | null;
 	/** The test to read first (null when untested). */
 	main: TestResult | null;
 	others: TestResult[];
@@ -109,11 +131,29 @@ export interface EstimateRow {
 	estimate: number;
 	ci: [number, number];
 	pValue: number;
-	/** Crude estimate on the same complete cases, and the change from it in percent. */
+	/** Crude estimate on the same complete cases (with its CI), and the change from it in percent. */
 	crudeSameRows: number | null;
+	crudeSameRowsCi: [number, number] | null;
 	changePercent: number | null;
 	/** |change| ≥ 10 % (common-practice marker). */
 	changeMarked: boolean;
+	/**
+	 * Binary exposure and outcome: standardized (marginal) risks over the sample's covariate
+	 * distribution (g-computation), risk difference, risk ratio and marginal odds ratio with
+	 * delta-method 95 % intervals, beside the model's conditional odds ratio and the crude odds
+	 * ratio on the same rows (crude → marginal is confounding, marginal → conditional is
+	 * non-collapsibility).
+	 */
+	standardized: {
+		risk1: number;
+		risk0: number;
+		riskDifference: EstimateWithCi;
+		riskRatio: EstimateWithCi;
+		marginalOddsRatio: EstimateWithCi;
+		conditionalOddsRatio: number;
+		crudeOddsRatio: number | null;
+		method: 'delta';
+	} | null;
 	/** Whether the diagram says this set is sufficient (planned set only may be false). */
 	sufficient: boolean;
 	warnings: string[];
@@ -148,7 +188,70 @@ export interface DataCheckReport {
 	claims: ClaimChecks;
 	/** Null with a reason when no estimate can be made. */
 	estimates: Estimates | null;
+	/** The confounder check of every candidate (one exposure and one outcome with data). */
+	confounders: ConfounderChecks | null;
+	/** Numeric columns whose values look like category codes (3–10 whole numbers), with them. */
+	categoryCodes: { column: string; values: number[] }[];
 	estimatesMessage: string | null;
 	rowCount: number;
 	notes: string[];
+}
+
+/** One association of the confounder check (candidate × exposure, or × outcome). */
+export interface PairSummary {
+	columns: [string, string];
+	test: string;
+	statisticName: string;
+	statistic: number;
+	df: number[];
+	pValue: number;
+	n: number;
+	measure: ReadMeasure | null;
+	table: TwoWayTable | null;
+	message: string | null;
+}
+
+export interface EstimateWithCi {
+	estimate: number;
+	ci: [number, number];
+}
+
+export interface CandidateCheck {
+	id: string;
+	column: string;
+	/** The kind the column was analysed as; `codeValues` when it looks like category codes. */
+	kind: ColumnKind;
+	codeValues: number[] | null;
+	/** Roles in the diagram as the data see it; a confounder is a member of some minimal sufficient set. */
+	roles: Role[];
+	adjustWith?: string[];
+	/** False for mediators and descendants of the exposure or outcome: not candidates. */
+	preExposure: boolean;
+	withExposure: PairSummary | null;
+	withOutcome: PairSummary | null;
+	/** The exposure's estimate crude and adjusted for this candidate alone, on the same rows. */
+	change: { measure: 'odds ratio' | 'difference'; n: number; crude: EstimateWithCi; adjusted: EstimateWithCi; percent: number } | { message: string } | null;
+	/** Binary exposure and outcome: Mantel–Haenszel over the candidate's levels or fifths. */
+	stratified:
+		| {
+				by: 'levels' | 'fifths';
+				strata: string[];
+				n: number;
+				oddsRatio: number;
+				ci: [number, number];
+				pValue: number;
+				/** Breslow–Day with Tarone's correction. */
+				homogeneity: { statistic: number; df: number; pValue: number; strataUsed: number } | null;
+				homogeneityMessage: string | null;
+		  }
+		| { message: string }
+		| null;
+}
+
+export interface ConfounderChecks {
+	exposure: string;
+	outcome: string;
+	exposureKind: ColumnKind;
+	outcomeKind: ColumnKind;
+	candidates: CandidateCheck[];
 }
