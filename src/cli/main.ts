@@ -4,7 +4,7 @@
  * exit 0 = done, 1 = negative verdict (`check`), 2 = bad usage or bad input, with one line on
  * stderr and no stack trace.
  */
-import { adjustTogetherText, optimalSetSentence } from '../lib/wording';
+import { adjustTogetherText, CONFOUNDER_UNDECIDED, optimalSetSentence } from '../lib/wording';
 import { readFile, writeFile } from 'node:fs/promises';
 import { parseArgs } from 'node:util';
 import type { Diagram } from '../lib/graph/diagram';
@@ -204,7 +204,8 @@ ${QUESTION_HELP}`,
 				return 0;
 			}
 			const width = Math.max(...roles.map((r) => r.id.length), 1);
-			for (const r of roles) ctx.print(`${r.id.padEnd(width)}  ${r.roles.map((x) => ROLE_TEXT[x]).join(', ')}${adjustTogetherText(r)}`);
+			for (const r of roles)
+				ctx.print(`${r.id.padEnd(width)}  ${r.roles.map((x) => ROLE_TEXT[x]).join(', ')}${adjustTogetherText(r)}${r.confounderUndecided ? `; ${CONFOUNDER_UNDECIDED}` : ''}`);
 			return 0;
 		}
 	},

@@ -86,7 +86,12 @@ export function dSeparation(d: Diagram, from: readonly string[], to: readonly st
 /** Roles of every variable for the question, in the diagram's order. */
 export function variableRoles(d: Diagram, opts: QuestionOptions = {}): VariableRoles[] {
 	const { g, X, Y } = prepare(d, opts);
-	return variableRoleDetailsIdx(g, X, Y).map((r, i) => (r.adjustWith === null ? { id: g.ids[i], roles: r.roles } : { id: g.ids[i], roles: r.roles, adjustWith: sortIds(r.adjustWith.map((w) => g.ids[w])) }));
+	return variableRoleDetailsIdx(g, X, Y).map((r, i) => {
+		const out: VariableRoles = { id: g.ids[i], roles: r.roles };
+		if (r.adjustWith !== null) out.adjustWith = sortIds(r.adjustWith.map((w) => g.ids[w]));
+		if (r.undecided) out.confounderUndecided = true;
+		return out;
+	});
 }
 
 function reasonById(g: CompiledDag, r: NodeStatus): PathNodeReason {

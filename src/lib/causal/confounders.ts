@@ -8,40 +8,54 @@
  * the sufficient sets of pre-exposure variables are the X–Y separators Z ⊆ R in the proper
  * back-door graph, R = V \ (X ∪ Y ∪ De(X)); every minimal one lies in An(X ∪ Y), where
  * d-separation is vertex separation in the moral graph H of An(X ∪ Y) with X contracted to a
- * source and Y to a sink (moral-graph.ts). A separator S ⊆ R of H is minimal iff the source's
- * and the sink's components of H − S are both full (every s ∈ S has a neighbour in each).
+ * source s and Y to a sink t (moral-graph.ts). Each connected set of non-removable vertices
+ * is then replaced by a clique on its removable neighbours (merged into s or t when it touches
+ * them), which keeps s–t reachability for every Z ⊆ R: in the reduced graph every vertex but
+ * s and t is removable, and the minimal separators are the same sets.
  *
- * Membership (our construction on that characterization): v is in some minimal separator iff
- * there is a connected vertex set A ∋ source, closed under non-removable neighbours, with
- * v ∈ N(A) and v adjacent to the sink's component C of H − N[A]; then N(C) is a minimal
- * separator containing v — it is closeSeparator(A) of separators.ts, the one nearest the
- * sink with A on the source side. (If S ∋ v is minimal, its source component is such an A.)
- * So every member of closeSeparator({source}) and closeSeparator({sink}) is settled at once,
- * in O(n + m); the others by a depth-first search that grows A one neighbour at a time while
- * A stays outside N[v] and v stays in the sink's component (C only shrinks as A grows, so a
- * branch is cut as soon as either fails). That search is exponential in the worst case —
- * deciding whether a vertex lies on an induced source–sink path is NP-complete in general
- * graphs (Bienstock 1991, from memory), and this is that question — so after BUDGET grown
- * sets it gives way to the polynomial-delay listing of all minimal separators
- * (separators.ts), which is exact. On random diagrams of up to 2,000 variables the close
- * separators and the search settle every variable (tests/unit/causal/confounders.test.ts).
+ * Membership: v lies in some minimal s–t separator iff some induced s–t path passes through
+ * v. (If S ∋ v is minimal, v has a neighbour a in the full component of s and b in that of t;
+ * shortest paths inside each component give an induced path s…a v b…t. Conversely, for an
+ * induced path with prefix P = s…a, the sink's component C of H − N[P] contains b…t, and N(C)
+ * is a minimal separator through v — closeSeparator(P) of separators.ts.) Deciding whether
+ * an induced path joins two vertices through a third is NP-complete in general graphs
+ * (Bienstock, Discrete Mathematics 90, 1991, from memory), so membership is decided in three
+ * steps, cheapest first:
+ *  1. no: v lies on no simple s–t path at all (two vertex-disjoint paths from v to s and t,
+ *     a unit-capacity flow; Menger's theorem), O(n + m);
+ *  2. yes: a shortest path from s to a neighbour a of v that avoids v's other neighbours
+ *     (chordless by choice of a's predecessor), with a neighbour of v left in the sink's
+ *     component; and the same from t. O(deg(v) (n + m));
+ *  3. either: a depth-first search over chordless paths from s that stop at the first
+ *     neighbour of v, cut as soon as t can no longer reach a neighbour of v or the path's tip
+ *     can no longer reach one (both only get worse as the path grows), nearest to v first.
+ *     Exact when it ends; stopped after SEARCH_BUDGET paths per variable (exponential in the
+ *     worst case, as the hardness above says it must be).
+ * Variables the search could not settle are decided by listing all minimal separators
+ * (separators.ts, polynomial delay) when that listing ends within LISTING_CAP sets; those
+ * still open are reported as undecided rather than guessed.
  */
 import type { CompiledDag } from '../graph/compiled';
 import { contractedMoralGraph, type ContractedMoralGraph } from './moral-graph';
 import { properBackDoorGraph, properCausalStructure } from './proper-causal';
-import { descendantsOf, maskOf } from './reach';
-import { closeSeparator, componentOf, listMinimalSeparators } from './separators';
+import { descendantsOf } from './reach';
+import { listMinimalSeparators } from './separators';
 
 export interface ConfounderMembership {
 	/** 1 when the variable is in some minimal sufficient set of pre-exposure variables. */
 	member: Uint8Array;
 	/** For each member, one minimal sufficient set containing it (sorted indices). */
 	witness: (number[] | null)[];
-	/** Variables the search could not settle and the full listing decided (for tests). */
+	/** 1 when neither the search nor the capped listing could decide (large, dense diagrams). */
+	undecided: Uint8Array;
+	/** Variables the search left to the full listing (for tests and benchmarks). */
 	settledByListing: number;
 }
 
-const BUDGET = 20_000;
+/** Chordless paths tried per variable in step 3. */
+export const SEARCH_BUDGET = 400;
+/** Step 3's leftovers are decided by the full listing only when it has at most this many sets. */
+export const LISTING_CAP = 5_000;
 
 /** The graph H and the removable (pre-exposure, non-X, non-Y) vertices. O(n + Σ indeg²). */
 export function preExposureSeparationGraph(g: CompiledDag, X: readonly number[], Y: readonly number[]): ContractedMoralGraph {
@@ -52,91 +66,299 @@ export function preExposureSeparationGraph(g: CompiledDag, X: readonly number[],
 	return contractedMoralGraph(properBackDoorGraph(g, s), X, Y, allowed);
 }
 
-/** A grown by u and every non-removable vertex reachable from u through non-removables. */
-function grow(h: ContractedMoralGraph, inA: Uint8Array, u: number): number[] {
-	const added = [u];
-	inA[u] = 1;
-	for (let i = 0; i < added.length; i++)
-		for (const w of h.adjacency[added[i]])
-			if (!inA[w] && !h.removable[w]) {
-				inA[w] = 1;
-				added.push(w);
-			}
-	return added;
+/** H with every connected set of non-removable vertices replaced by a clique on its border. */
+interface ReducedGraph {
+	size: number;
+	source: number;
+	sink: number;
+	adjacency: number[][];
 }
 
 /**
- * One minimal separator containing v by the search described above, or null when there is
- * none, or 'exhausted' past the budget. A is grown along a path from the source: each step
- * adds a removable neighbour u of the last step's vertices that touches no earlier path vertex
- * (a shortest path inside any valid A, closed under non-removable neighbours, is again a valid
- * A; shortest paths have no chords), nearest to v first.
+ * The reduction described above, or null when non-removable vertices join s and t (then no
+ * separator exists). O(n + m + Σ |border|²).
  */
-function searchFor(h: ContractedMoralGraph, v: number, distanceToV: Int32Array, budget: { left: number }): number[] | null | 'exhausted' {
-	const inA = new Uint8Array(h.size);
-	const onPath = new Uint8Array(h.size);
-	const start = grow(h, inA, h.source);
-	if (start.some((w) => w === h.sink || w === v)) return null;
-	let exhausted = false;
-	const visit = (tip: readonly number[]): number[] | null => {
-		if (--budget.left < 0) {
-			exhausted = true;
-			return null;
+export function reduceToRemovable(h: ContractedMoralGraph): ReducedGraph | null {
+	const { size, source, sink, adjacency, removable } = h;
+	// Component of each non-removable vertex; source and sink seed their own.
+	const comp = new Int32Array(size).fill(-1);
+	const borders: number[][] = [];
+	const label = (start: number, id: number) => {
+		const stack = [start];
+		comp[start] = id;
+		const border = new Set<number>();
+		while (stack.length > 0) {
+			const u = stack.pop()!;
+			for (const w of adjacency[u]) {
+				if (removable[w]) border.add(w);
+				else if (comp[w] === -1) {
+					comp[w] = id;
+					stack.push(w);
+				}
+			}
 		}
-		const boundary = new Uint8Array(h.size);
-		for (let a = 0; a < h.size; a++) {
-			if (!inA[a]) continue;
-			for (const w of h.adjacency[a]) if (!inA[w]) boundary[w] = 1;
-		}
-		if (boundary[h.sink]) return null;
-		const blocked = new Uint8Array(h.size);
-		for (let a = 0; a < h.size; a++) blocked[a] = inA[a] | boundary[a];
-		const sinkSide = componentOf(h, h.sink, blocked);
-		if (boundary[v]) {
-			if (!h.adjacency[v].some((w) => sinkSide[w])) return null;
-			const members: number[] = [];
-			for (let a = 0; a < h.size; a++) if (inA[a]) members.push(a);
-			return closeSeparator(h, members);
-		}
-		// v must stay reachable from the sink outside N[A] (the sink's side only shrinks).
-		if (!sinkSide[v]) return null;
-		const next = new Set<number>();
-		for (const t of tip) for (const u of h.adjacency[t]) if (u !== v && h.removable[u] && !inA[u]) next.add(u);
-		const order = [...next].filter((u) => !h.adjacency[u].some((w) => onPath[w] && !tip.includes(w))).sort((p, q) => distanceToV[p] - distanceToV[q]);
-		for (const u of order) {
-			const added = grow(h, inA, u);
-			onPath[u] = 1;
-			const found = added.some((w) => w === v || w === h.sink) ? null : visit(added);
-			onPath[u] = 0;
-			for (const w of added) inA[w] = 0;
-			if (found) return found;
-			if (exhausted) return null;
-		}
-		return null;
+		borders[id] = [...border];
 	};
-	const found = visit(start);
-	return found ?? (exhausted ? 'exhausted' : null);
+	label(source, 0);
+	if (comp[sink] === 0) return null;
+	label(sink, 1);
+	let next = 2;
+	for (let u = 0; u < size; u++) if (!removable[u] && comp[u] === -1 && adjacency[u].length > 0) label(u, next++);
+	const neighbours: Set<number>[] = Array.from({ length: size }, () => new Set<number>());
+	const link = (a: number, b: number) => {
+		if (a === b) return;
+		neighbours[a].add(b);
+		neighbours[b].add(a);
+	};
+	for (let u = 0; u < size; u++) {
+		if (!removable[u]) continue;
+		for (const w of adjacency[u]) if (removable[w]) link(u, w);
+	}
+	for (const w of borders[0]) link(source, w);
+	for (const w of borders[1]) link(sink, w);
+	for (let id = 2; id < next; id++) {
+		const b = borders[id];
+		for (let i = 0; i < b.length; i++) for (let j = i + 1; j < b.length; j++) link(b[i], b[j]);
+	}
+	return { size, source, sink, adjacency: neighbours.map((s) => [...s]) };
 }
 
-/** Breadth-first distances from v in H (unreached: n + 2). O(n + m). */
-function distancesFrom(h: ContractedMoralGraph, v: number): Int32Array {
-	const d = new Int32Array(h.size).fill(h.size);
+/** Vertices reachable from `start` without entering `blocked`. O(n + m). */
+function reach(r: ReducedGraph, start: number, blocked: Uint8Array): Uint8Array {
+	const seen = new Uint8Array(r.size);
+	if (blocked[start]) return seen;
+	const stack = [start];
+	seen[start] = 1;
+	while (stack.length > 0) {
+		const u = stack.pop()!;
+		for (const w of r.adjacency[u]) {
+			if (seen[w] || blocked[w]) continue;
+			seen[w] = 1;
+			stack.push(w);
+		}
+	}
+	return seen;
+}
+
+/** The vertices outside C adjacent to it: a minimal separator when C is full. Sorted. */
+function borderOf(r: ReducedGraph, C: Uint8Array): number[] {
+	const out = new Uint8Array(r.size);
+	const list: number[] = [];
+	for (let u = 0; u < r.size; u++) {
+		if (!C[u]) continue;
+		for (const w of r.adjacency[u])
+			if (!C[w] && !out[w]) {
+				out[w] = 1;
+				list.push(w);
+			}
+	}
+	return list.sort((p, q) => p - q);
+}
+
+/** Step 1: two vertex-disjoint paths from v, one to s and one to t (unit flow). O(n + m). */
+function onSomeSimplePath(r: ReducedGraph, v: number): boolean {
+	const n = r.size;
+	// u_in = 2u, u_out = 2u + 1; the super-sink is 2n.
+	const superSink = 2 * n;
+	const head = new Int32Array(superSink + 1).fill(-1);
+	const to: number[] = [];
+	const cap: number[] = [];
+	const next: number[] = [];
+	const arc = (a: number, b: number) => {
+		to.push(b); cap.push(1); next.push(head[a]); head[a] = to.length - 1;
+		to.push(a); cap.push(0); next.push(head[b]); head[b] = to.length - 1;
+	};
+	for (let u = 0; u < n; u++) {
+		if (u !== v) arc(2 * u, 2 * u + 1);
+		for (const w of r.adjacency[u]) arc(2 * u + 1, 2 * w);
+	}
+	arc(2 * r.source + 1, superSink);
+	arc(2 * r.sink + 1, superSink);
+	// v's own split arc is left out: both units leave from v_out, start there with capacity 2.
+	const start = 2 * v + 1;
+	const via = new Int32Array(superSink + 1);
+	for (let flow = 0; flow < 2; flow++) {
+		const seen = new Uint8Array(superSink + 1);
+		const queue = [start];
+		seen[start] = 1;
+		let reached = false;
+		for (let i = 0; i < queue.length && !reached; i++) {
+			const a = queue[i];
+			for (let e = head[a]; e !== -1; e = next[e]) {
+				const b = to[e];
+				if (seen[b] || cap[e] <= 0 || b === 2 * v) continue;
+				seen[b] = 1;
+				via[b] = e;
+				if (b === superSink) {
+					reached = true;
+					break;
+				}
+				queue.push(b);
+			}
+		}
+		if (!reached) return false;
+		for (let b = superSink; b !== start; b = to[via[b] ^ 1]) {
+			cap[via[b]] -= 1;
+			cap[via[b] ^ 1] += 1;
+		}
+	}
+	return true;
+}
+
+/**
+ * With P a chordless path from `from` whose only vertex next to v is its last, the separator
+ * N(C) for C the component of `to` in H − N[P], when C reaches a neighbour of v; else null.
+ */
+function separatorAfter(r: ReducedGraph, v: number, path: readonly number[], to: number): number[] | null {
+	const blocked = new Uint8Array(r.size);
+	for (const p of path) {
+		blocked[p] = 1;
+		for (const w of r.adjacency[p]) blocked[w] = 1;
+	}
+	if (blocked[to]) return null;
+	const C = reach(r, to, blocked);
+	if (!r.adjacency[v].some((b) => C[b])) return null;
+	return borderOf(r, C);
+}
+
+/** Step 2 from one side: shortest chordless paths from `from` to each neighbour of v. */
+function greedyFrom(r: ReducedGraph, v: number, from: number, to: number): number[] | null {
+	const nearV = new Uint8Array(r.size);
+	nearV[v] = 1;
+	for (const w of r.adjacency[v]) nearV[w] = 1;
+	if (nearV[from]) return separatorAfter(r, v, [from], to);
+	// A path through a neighbour of `to` leaves `to` no component of its own.
+	const nearTo = new Uint8Array(r.size);
+	for (const w of r.adjacency[to]) nearTo[w] = 1;
+	const dist = new Int32Array(r.size).fill(-1);
+	const parent = new Int32Array(r.size).fill(-1);
+	dist[from] = 0;
+	const queue = [from];
+	for (let i = 0; i < queue.length; i++) {
+		const u = queue[i];
+		for (const w of r.adjacency[u]) {
+			if (dist[w] !== -1 || nearV[w] || nearTo[w] || w === to) continue;
+			dist[w] = dist[u] + 1;
+			parent[w] = u;
+			queue.push(w);
+		}
+	}
+	const ends: { a: number; p: number; d: number }[] = [];
+	for (const a of r.adjacency[v]) {
+		if (a === to || nearTo[a]) continue;
+		let best = -1;
+		for (const p of r.adjacency[a]) if (dist[p] !== -1 && (best === -1 || dist[p] < dist[best])) best = p;
+		if (best !== -1) ends.push({ a, p: best, d: dist[best] });
+	}
+	ends.sort((x, y) => x.d - y.d);
+	for (const { a, p } of ends) {
+		const path = [a];
+		for (let u = p; u !== -1; u = parent[u]) path.push(u);
+		const found = separatorAfter(r, v, path, to);
+		if (found) return found;
+	}
+	return null;
+}
+
+/** Breadth-first distances from v (unreached: size). O(n + m). */
+function distancesFrom(r: ReducedGraph, v: number): Int32Array {
+	const d = new Int32Array(r.size).fill(r.size);
 	d[v] = 0;
 	const queue = [v];
 	for (let i = 0; i < queue.length; i++)
-		for (const w of h.adjacency[queue[i]])
-			if (d[w] === h.size) {
+		for (const w of r.adjacency[queue[i]])
+			if (d[w] === r.size) {
 				d[w] = d[queue[i]] + 1;
 				queue.push(w);
 			}
 	return d;
 }
 
-export function confounderMembershipIdx(g: CompiledDag, X: readonly number[], Y: readonly number[]): ConfounderMembership {
+/** Step 3: exact search over chordless paths from s, or 'stopped' past the budget. */
+function searchFor(r: ReducedGraph, v: number, budget: number): number[] | null | 'stopped' {
+	const { source: s, sink: t, size } = r;
+	const nearV = new Uint8Array(size);
+	for (const w of r.adjacency[v]) nearV[w] = 1;
+	const nearT = new Uint8Array(size);
+	for (const w of r.adjacency[t]) nearT[w] = 1;
+	const distV = distancesFrom(r, v);
+	/** How many path vertices (tip included) have w in their closed neighbourhood. */
+	const covered = new Int32Array(size);
+	const cover = (u: number, by: number) => {
+		covered[u] += by;
+		for (const w of r.adjacency[u]) covered[w] += by;
+	};
+	const path: number[] = [];
+	let left = budget;
+	let stopped = false;
+
+	// Can t still reach a neighbour of v outside N[path], avoiding v?
+	const sinkStillReaches = (): boolean => {
+		const blocked = new Uint8Array(size);
+		for (let w = 0; w < size; w++) if (covered[w] > 0) blocked[w] = 1;
+		blocked[v] = 1;
+		if (blocked[t]) return false;
+		const C = reach(r, t, blocked);
+		return r.adjacency[v].some((b) => C[b]);
+	};
+	// Can the tip reach a neighbour of v through vertices outside N[path without the tip]?
+	const tipStillReaches = (tip: number): boolean => {
+		cover(tip, -1);
+		const blocked = new Uint8Array(size);
+		for (let w = 0; w < size; w++) if (covered[w] > 0) blocked[w] = 1;
+		cover(tip, 1);
+		blocked[v] = 1;
+		blocked[t] = 1;
+		const seen = reach(r, tip, blocked);
+		return r.adjacency[v].some((a) => seen[a]);
+	};
+
+	const visit = (tip: number): number[] | null => {
+		// A next vertex touches the tip and no earlier path vertex: covered once, by the tip.
+		const candidates = r.adjacency[tip]
+			.filter((u) => u !== t && u !== v && !nearT[u] && covered[u] === 1)
+			.sort((p, q) => distV[p] - distV[q]);
+		for (const u of candidates) {
+			if (--left < 0) {
+				stopped = true;
+				return null;
+			}
+			path.push(u);
+			cover(u, 1);
+			let found: number[] | null = null;
+			if (nearV[u]) found = separatorAfter(r, v, path, t);
+			else if (sinkStillReaches() && tipStillReaches(u)) found = visit(u);
+			cover(u, -1);
+			path.pop();
+			if (found || stopped) return found;
+		}
+		return null;
+	};
+
+	if (nearV[s]) return separatorAfter(r, v, [s], t);
+	path.push(s);
+	cover(s, 1);
+	const found = visit(s);
+	return found ?? (stopped ? 'stopped' : null);
+}
+
+/**
+ * Membership of every variable, with a witness set for each member. O(n (n + m)) for steps 1
+ * and 2; step 3 and the listing are bounded by SEARCH_BUDGET and LISTING_CAP.
+ */
+export function confounderMembershipIdx(
+	g: CompiledDag,
+	X: readonly number[],
+	Y: readonly number[],
+	limits: { searchBudget?: number; listingCap?: number } = {}
+): ConfounderMembership {
 	const n = g.n;
 	const member = new Uint8Array(n);
+	const undecided = new Uint8Array(n);
 	const witness: (number[] | null)[] = Array.from({ length: n }, () => null);
 	const h = preExposureSeparationGraph(g, X, Y);
+	const r = reduceToRemovable(h);
+	if (r === null || r.adjacency[r.source].includes(r.sink)) return { member, witness, undecided, settledByListing: 0 };
 	const record = (set: number[] | null) => {
 		if (!set) return;
 		for (const v of set)
@@ -145,22 +367,31 @@ export function confounderMembershipIdx(g: CompiledDag, X: readonly number[], Y:
 				witness[v] = set;
 			}
 	};
-	const first = closeSeparator(h, [h.source]);
-	if (first === null) return { member, witness, settledByListing: 0 };
-	record(first);
-	record(closeSeparator({ ...h, source: h.sink, sink: h.source }, [h.sink]));
+	// Outside the component of s and t no vertex lies on an s–t path; when t is not in it,
+	// the empty set is the only minimal separator.
+	const joined = reach(r, r.source, new Uint8Array(r.size));
+	if (!joined[r.sink]) return { member, witness, undecided, settledByListing: 0 };
 	const open: number[] = [];
-	const inXY = maskOf(n, [...X, ...Y]);
 	for (let v = 0; v < n; v++) {
-		if (member[v] || inXY[v] || !h.removable[v]) continue;
-		const found = searchFor(h, v, distancesFrom(h, v), { left: BUDGET });
-		if (found === 'exhausted') open.push(v);
+		if (member[v] || !h.removable[v] || !joined[v]) continue;
+		if (!onSomeSimplePath(r, v)) continue;
+		const quick = greedyFrom(r, v, r.source, r.sink) ?? greedyFrom(r, v, r.sink, r.source);
+		if (quick) {
+			record(quick);
+			continue;
+		}
+		const found = searchFor(r, v, limits.searchBudget ?? SEARCH_BUDGET);
+		if (found === 'stopped') open.push(v);
 		else record(found);
 	}
 	let settledByListing = 0;
-	if (open.some((v) => !member[v])) {
-		for (const set of listMinimalSeparators(h).sets) record(set);
-		settledByListing = open.length;
+	const stillOpen = open.filter((v) => !member[v]);
+	if (stillOpen.length > 0) {
+		const listing = listMinimalSeparators(h, limits.listingCap ?? LISTING_CAP);
+		for (const set of listing.sets) record(set);
+		if (listing.truncated) {
+			for (const v of stillOpen) if (!member[v]) undecided[v] = 1;
+		} else settledByListing = stillOpen.length;
 	}
-	return { member, witness, settledByListing };
+	return { member, witness, undecided, settledByListing };
 }

@@ -25,67 +25,87 @@ import { confounderMembershipIdx } from './confounders';
 import { dSeparated } from './dsep';
 import { ancestorsOf, descendantsOf, maskOf, withoutArrows, type Mask } from './reach';
 
-/** True when v is a collider on some simple path between X and Y (interior avoiding X ∪ Y). */
-export function isColliderBetween(g: CompiledDag, v: number, inX: Mask, inY: Mask): boolean {
-	if (g.parentStart[v + 1] - g.parentStart[v] < 2) return false;
+/**
+ * Tests "is v a collider on some simple path between X and Y (interior avoiding X ∪ Y)?" for
+ * many v over one flow network, built once: two vertex-disjoint paths, one from X and one
+ * from Y, ending at two different parents of v, found by a unit-capacity maximum flow of value
+ * 2 (Menger's theorem) on the vertex-split graph. Per query the capacities are reset by one
+ * typed-array copy and v is left out; its parents lead to the sink. O(n + m) per query.
+ */
+export function colliderTester(g: CompiledDag, inX: Mask, inY: Mask): (v: number) => boolean {
 	const n = g.n;
 	// Nodes: u_in = 2u, u_out = 2u + 1; source, hubs and sink after them.
 	const source = 2 * n;
 	const xHub = source + 1;
 	const yHub = source + 2;
 	const sink = source + 3;
-	const head = new Int32Array(sink + 1).fill(-1);
+	const nodes = sink + 1;
+	const head = new Int32Array(nodes).fill(-1);
 	const to: number[] = [];
-	const cap: number[] = [];
+	const base: number[] = [];
 	const next: number[] = [];
 	const arc = (a: number, b: number) => {
-		to.push(b); cap.push(1); next.push(head[a]); head[a] = to.length - 1;
-		to.push(a); cap.push(0); next.push(head[b]); head[b] = to.length - 1;
+		to.push(b); base.push(1); next.push(head[a]); head[a] = to.length - 1;
+		to.push(a); base.push(0); next.push(head[b]); head[b] = to.length - 1;
 	};
 	arc(source, xHub);
 	arc(source, yHub);
 	for (let u = 0; u < n; u++) {
-		if (u === v) continue;
 		arc(2 * u, 2 * u + 1);
 		if (inX[u]) arc(xHub, 2 * u);
 		if (inY[u]) arc(yHub, 2 * u);
 		for (let k = g.childStart[u]; k < g.childStart[u + 1]; k++) {
 			const w = g.childList[k];
-			if (w === v) continue;
 			if (!inX[w] && !inY[w]) arc(2 * u + 1, 2 * w);
 			if (!inX[u] && !inY[u]) arc(2 * w + 1, 2 * u);
 		}
 	}
-	for (let k = g.parentStart[v]; k < g.parentStart[v + 1]; k++) arc(2 * g.parentList[k] + 1, sink);
-	const via = new Int32Array(sink + 1);
-	let flow = 0;
-	while (flow < 2) {
-		const seen = new Uint8Array(sink + 1);
-		const queue = [source];
-		seen[source] = 1;
-		let reached = false;
-		for (let i = 0; i < queue.length && !reached; i++) {
-			const a = queue[i];
-			for (let e = head[a]; e !== -1; e = next[e]) {
-				const b = to[e];
-				if (seen[b] || cap[e] <= 0) continue;
-				seen[b] = 1;
-				via[b] = e;
-				if (b === sink) {
-					reached = true;
+	const toNode = Int32Array.from(to);
+	const nextArc = Int32Array.from(next);
+	const baseCap = Int8Array.from(base);
+	const cap = new Int8Array(baseCap.length);
+	const via = new Int32Array(nodes);
+	const seen = new Uint8Array(nodes);
+	const parentOfV = new Uint8Array(n);
+	const queue = new Int32Array(nodes);
+	return (v: number): boolean => {
+		if (g.parentStart[v + 1] - g.parentStart[v] < 2) return false;
+		cap.set(baseCap);
+		for (let k = g.parentStart[v]; k < g.parentStart[v + 1]; k++) parentOfV[g.parentList[k]] = 1;
+		// Each parent reaches the sink through its out-node once (a unit per parent).
+		const usedParent = new Uint8Array(n);
+		let flow = 0;
+		while (flow < 2) {
+			seen.fill(0);
+			let tail = 0;
+			queue[tail++] = source;
+			seen[source] = 1;
+			let end = -1;
+			for (let i = 0; i < tail && end === -1; i++) {
+				const a = queue[i];
+				if (a < 2 * n && (a & 1) === 1 && parentOfV[a >> 1] && !usedParent[a >> 1]) {
+					end = a;
 					break;
 				}
-				queue.push(b);
+				for (let e = head[a]; e !== -1; e = nextArc[e]) {
+					const b = toNode[e];
+					if (seen[b] || cap[e] <= 0 || b >> 1 === v) continue;
+					seen[b] = 1;
+					via[b] = e;
+					queue[tail++] = b;
+				}
 			}
+			if (end === -1) break;
+			usedParent[end >> 1] = 1;
+			for (let b = end; b !== source; b = toNode[via[b] ^ 1]) {
+				cap[via[b]] -= 1;
+				cap[via[b] ^ 1] += 1;
+			}
+			flow++;
 		}
-		if (!reached) break;
-		for (let b = sink; b !== source; b = to[via[b] ^ 1]) {
-			cap[via[b]] -= 1;
-			cap[via[b] ^ 1] += 1;
-		}
-		flow++;
-	}
-	return flow === 2;
+		for (let k = g.parentStart[v]; k < g.parentStart[v + 1]; k++) parentOfV[g.parentList[k]] = 0;
+		return flow === 2;
+	};
 }
 
 export function variableRolesIdx(g: CompiledDag, X: readonly number[], Y: readonly number[]): Role[][] {
@@ -93,10 +113,14 @@ export function variableRolesIdx(g: CompiledDag, X: readonly number[], Y: readon
 }
 
 /** Roles, and for each confounder the rest of one minimal sufficient set containing it. */
-export function variableRoleDetailsIdx(g: CompiledDag, X: readonly number[], Y: readonly number[]): { roles: Role[]; adjustWith: number[] | null }[] {
+export function variableRoleDetailsIdx(g: CompiledDag, X: readonly number[], Y: readonly number[]): { roles: Role[]; adjustWith: number[] | null; undecided: boolean }[] {
 	const membership = confounderMembershipIdx(g, X, Y);
 	const roles = rolesWithout(g, X, Y, membership.member);
-	return roles.map((r, v) => ({ roles: r, adjustWith: membership.member[v] ? (membership.witness[v] ?? []).filter((w) => w !== v) : null }));
+	return roles.map((r, v) => ({
+		roles: r,
+		adjustWith: membership.member[v] ? (membership.witness[v] ?? []).filter((w) => w !== v) : null,
+		undecided: membership.undecided[v] === 1
+	}));
 }
 
 function rolesWithout(g: CompiledDag, X: readonly number[], Y: readonly number[], confounder: Uint8Array): Role[][] {
@@ -113,6 +137,7 @@ function rolesWithout(g: CompiledDag, X: readonly number[], Y: readonly number[]
 	const belowY = descendantsOf(g, Y);
 	const aboveX = ancestorsOf(g, X);
 	const cutOutOfX = withoutArrows(g, (from) => inX[from] === 1);
+	const isCollider = colliderTester(g, inX, inY);
 
 	return Array.from({ length: n }, (_, v): Role[] => {
 		if (inX[v]) return ['exposure'];
@@ -122,7 +147,7 @@ function rolesWithout(g: CompiledDag, X: readonly number[], Y: readonly number[]
 		if (mediator) roles.push('mediator');
 		if (confounder[v]) roles.push('confounder');
 		if (toXAvoidingY[v] && toYAvoidingX[v]) roles.push('common-cause');
-		if (isColliderBetween(g, v, inX, inY)) roles.push('collider');
+		if (isCollider(v)) roles.push('collider');
 		if (belowY[v]) roles.push('descendant-of-outcome');
 		if (belowX[v] && !mediator) roles.push('descendant-of-exposure');
 		if (!belowX[v] && aboveX[v] && !toYAvoidingX[v] && dSeparated(cutOutOfX, [v], Y, []).separated) roles.push('instrument-like');

@@ -72,6 +72,12 @@ export interface VariableRoles {
 	 * suffices alone) — what it must be adjusted together with, e.g. when it is also a collider.
 	 */
 	adjustWith?: string[];
+	/**
+	 * Set when the engine could not decide whether the variable is a confounder: the search
+	 * for a minimal sufficient set containing it stopped at its budget on a large, dense
+	 * diagram (confounders.ts). It is then not listed as a confounder, and says so.
+	 */
+	confounderUndecided?: true;
 }
 
 /** Why a path is blocked (first blocking node) or what keeps it open. */

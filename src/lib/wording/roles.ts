@@ -60,7 +60,11 @@ export function adjustTogetherText(r: { roles: readonly Role[]; adjustWith?: rea
 	return `: adjust together with ${r.adjustWith.map(labelOf).join(' and ')}`;
 }
 
+/** Said of a variable whose confounder status the engine could not decide. */
+export const CONFOUNDER_UNDECIDED = 'confounder: not decided (the search for a minimal sufficient set containing it stopped at its limit on this large diagram)';
+
 /** A variable's roles joined with "·", with adjustTogetherText after them. */
-export function rolesText(r: { roles: readonly Role[]; adjustWith?: readonly string[] }, labelOf: (id: string) => string = (id) => id): string {
-	return r.roles.map((x) => ROLE_NAME[x]).join(' · ') + adjustTogetherText(r, labelOf);
+export function rolesText(r: { roles: readonly Role[]; adjustWith?: readonly string[]; confounderUndecided?: true }, labelOf: (id: string) => string = (id) => id): string {
+	const text = r.roles.map((x) => ROLE_NAME[x]).join(' · ') + adjustTogetherText(r, labelOf);
+	return r.confounderUndecided ? `${text} · ${CONFOUNDER_UNDECIDED}` : text;
 }
