@@ -4,7 +4,7 @@
 // whole section works from the keyboard.
 import { expect, test, type Page } from '@playwright/test';
 import { readFileSync } from 'node:fs';
-import { counts } from './helpers';
+import { counts, openSection } from './helpers';
 
 /** First visit: the app opens the demo study diagram. */
 async function openDemo(page: Page) {
@@ -20,6 +20,7 @@ async function openDemo(page: Page) {
 const data = (page: Page) => page.locator('section[data-section="data"]');
 
 async function loadDemoData(page: Page) {
+	await openSection(page, 'data');
 	await data(page).getByRole('button', { name: 'Load demo data' }).click();
 	await expect(data(page).getByTestId('data-source')).toContainText('5,000 rows, 12 columns', { timeout: 20_000 });
 	await expect(data(page).getByTestId('estimates-table')).toBeVisible({ timeout: 20_000 });
@@ -140,6 +141,11 @@ test('a bad CSV gives one clear message and leaves the earlier data and results'
 test('keyboard only: load the demo data, change a column link, pin an arrow check', async ({ page }) => {
 	await openDemo(page);
 	const section = data(page);
+	// The Data section starts closed and loads its code when opened: by keyboard here.
+	await page.locator('#data-heading button').focus();
+	await page.keyboard.press('Enter');
+	await expect(page.locator('#data-heading button')).toHaveAttribute('aria-expanded', 'true');
+	await expect(page.locator('#data-heading button')).toBeFocused();
 	await section.getByRole('button', { name: 'Load demo data' }).focus();
 	await page.keyboard.press('Enter');
 	await expect(section.getByTestId('estimates-table')).toBeVisible({ timeout: 20_000 });

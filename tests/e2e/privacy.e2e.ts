@@ -7,7 +7,7 @@
 import { readdirSync, readFileSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 import { expect, test, type Page } from '@playwright/test';
-import { addVariableByMouse, counts } from './helpers';
+import { addVariableByMouse, counts, openSection } from './helpers';
 
 const MARKER = 'privacy-marker-4711';
 
@@ -53,6 +53,7 @@ test('no request leaves the origin while loading, editing, opening, loading data
 	// Load data: the demo data, then a CSV file of the user's with a marker value.
 	const data = page.locator('section[data-section="data"]');
 	if ((await data.count()) > 0) {
+		await openSection(page, 'data');
 		await data.getByRole('button', { name: 'Load demo data' }).click();
 		await expect(data.getByTestId('data-source')).toContainText('5,000 rows', { timeout: 30_000 });
 		const csv = readFileSync('static/demo/cycling-hypertension.csv', 'utf8').split('\n').slice(0, 400);

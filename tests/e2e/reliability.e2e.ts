@@ -12,7 +12,7 @@ import { createHash } from 'node:crypto';
 import { execFileSync } from 'node:child_process';
 import { join } from 'node:path';
 import { expect, test, type Page } from '@playwright/test';
-import { addVariableByMouse, counts, message, openEmpty, watchPage } from './helpers';
+import { addVariableByMouse, counts, message, openEmpty, openSection, watchPage } from './helpers';
 import { largeInputs } from '../fixtures/bad/large';
 
 interface Expectation {
@@ -250,6 +250,7 @@ test('the built app carries a CSP that allows only its own scripts, and no code 
 	);
 	await page.goto('/');
 	const dataSection = page.locator('section[data-section="data"]');
+	await openSection(page, 'data');
 	await dataSection.getByRole('button', { name: 'Load demo data' }).click();
 	await expect(dataSection.getByTestId('estimates-table')).toBeVisible({ timeout: 30_000 });
 	expect(violations).toEqual([]);

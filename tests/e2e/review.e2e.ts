@@ -7,12 +7,15 @@
 import { test, expect, type Page } from '@playwright/test';
 import { readFileSync } from 'node:fs';
 import { adjustmentSets } from '../../src/lib/causal/analysis';
+import { openSection, verdict } from './helpers';
 import type { Diagram } from '../../src/lib/graph/diagram';
 
 const DEMO = JSON.parse(readFileSync('static/demo/cycling-hypertension.causeway.json', 'utf8'));
 
 async function openDemo(page: Page) {
 	await page.goto('/');
+	await expect(verdict(page)).toBeVisible({ timeout: 15_000 });
+	await openSection(page, 'review');
 	await expect(page.getByTestId('review-verdict')).toBeVisible({ timeout: 15_000 });
 	// Close the other analysis sections so the Review section is in view.
 	for (const id of ['adjustment', 'paths', 'claims']) await page.locator(`#${id}-heading button`).click();
