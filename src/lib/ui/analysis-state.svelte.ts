@@ -1,6 +1,6 @@
 /**
- * The analysis shown in the column: the latest result, partial results while the claims are
- * listed, progress, and cancel/retry. Wraps the AnalysisRunner (main thread or worker).
+ * The analysis shown in the column: the latest result (its parts arrive one by one for large
+ * diagrams), progress, and cancel/retry. Wraps the AnalysisRunner (main thread or workers).
  */
 import type { Diagram } from '../graph/diagram';
 import type { Role } from '../causal';
@@ -9,6 +9,8 @@ import type { AnalysisProgress, AppAnalysis } from '../workers/analysis-steps';
 
 export type AnalysisStatus = 'idle' | 'working' | 'cancelled' | 'failed';
 
+const NO_ROLES: ReadonlyMap<string, readonly Role[]> = new Map();
+
 export class AnalysisState {
 	analysis = $state.raw<AppAnalysis | null>(null);
 	status = $state<AnalysisStatus>('idle');
@@ -16,32 +18,32 @@ export class AnalysisState {
 	error = $state<string | null>(null);
 	where = $state<'main' | 'worker' | null>(null);
 	lastMs = $state(0);
-	/** The diagram the shown analysis belongs to. */
-	analysed = $state.raw<Diagram | null>(null);
 
-	readonly roles: ReadonlyMap<string, readonly Role[]> = $derived(new Map((this.analysis?.roles ?? []).map((r) => [r.id, r.roles])));
+	/**
+	 * Roles for the canvas badges: the latest computed, kept while the roles of a changed
+	 * structure are still being computed (the badges do not blink off and on at every edit;
+	 * the Adjustment section says the sets are being updated meanwhile).
+	 */
+	roles = $state.raw<ReadonlyMap<string, readonly Role[]>>(NO_ROLES);
 
 	#runner: AnalysisRunner;
-	#pending: Diagram | null = null;
 
 	constructor(opts: RunnerOptions = {}) {
 		this.#runner = new AnalysisRunner(
 			{
 				result: (a, info) => {
 					this.analysis = a;
-					this.analysed = this.#pending;
-					this.status = 'idle';
-					this.progress = null;
+					if (!a.ready) this.roles = NO_ROLES;
+					else if (!a.setsPending) this.roles = new Map(a.roles.map((r) => [r.id, r.roles]));
+					this.status = info.busy ? 'working' : 'idle';
+					if (!info.busy) this.progress = null;
 					this.error = null;
 					this.where = info.where;
 					this.lastMs = info.ms;
 				},
-				partial: (a) => {
-					this.analysis = a;
-					this.analysed = this.#pending;
-				},
 				progress: (p) => {
 					this.progress = p;
+					this.status = 'working';
 				},
 				failed: (message) => {
 					this.status = 'failed';
@@ -58,18 +60,10 @@ export class AnalysisState {
 	}
 
 	request(d: Diagram): void {
-		const previous = this.#pending;
-		this.#pending = d;
-		const worker = this.#runner.usesWorker(d);
-		if (this.#runner.request(d)) {
-			if (worker) {
-				this.status = 'working';
-				this.progress = { stage: 'Starting', fraction: 0 };
-				this.where = 'worker';
-			}
-		} else {
-			// Same analysis as before: the results stand for the new diagram too.
-			if (this.analysed === previous) this.analysed = d;
+		if (this.#runner.request(d) && this.#runner.usesWorker(d) && this.#runner.busy) {
+			this.status = 'working';
+			this.progress ??= { stage: 'Starting', fraction: 0 };
+			this.where = 'worker';
 		}
 	}
 
@@ -80,6 +74,7 @@ export class AnalysisState {
 	retry(): void {
 		this.status = 'working';
 		this.#runner.retry();
+		if (!this.#runner.busy && this.status === 'working') this.status = 'idle';
 	}
 
 	dispose(): void {

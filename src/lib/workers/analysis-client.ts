@@ -1,18 +1,36 @@
 /**
- * Runs the analysis for the app: small diagrams on the main thread (results within the same
- * frame, no messaging), larger ones in a Web Worker with progress, partial results and
- * cancellation. A newer request supersedes an older one; a worker still busy with a stale
- * diagram is terminated and replaced, since a running computation cannot be interrupted.
+ * Runs the app's analysis: small diagrams on the main thread (results within the same frame,
+ * no messaging), larger ones in three Web Workers, one per part (analysis-steps.ts), so that
+ * the verdict on a planned-set edit is never queued behind the sets or the claims.
+ *
+ * Each part is cached by the key of what it depends on and recomputed only when that key
+ * changes: a planned-set edit recomputes the verdict alone, a question edit the verdict and
+ * the sets, a structural edit all three. Results of a part started for an earlier diagram are
+ * dropped; a worker still busy with a part that is no longer wanted is terminated and
+ * replaced (a running computation cannot be interrupted otherwise). Nothing computed is sent
+ * back to a worker: the claims stay on the page.
  */
 import type { Diagram } from '../graph/diagram';
-import { analysisKey, claimsKey, DEFAULT_LIMITS, runAnalysis, type AnalysisLimits, type AnalysisProgress, type AppAnalysis } from './analysis-steps';
-import type { AnalyseRequest, WorkerReply } from './protocol';
+import {
+	analyseSets,
+	analyseVerdict,
+	analysisKeys,
+	combine,
+	DEFAULT_LIMITS,
+	listClaims,
+	type AnalysisLimits,
+	type AnalysisPart,
+	type AnalysisProgress,
+	type AppAnalysis,
+	type ClaimsPart,
+	type SetsPart,
+	type VerdictPart
+} from './analysis-steps';
+import type { PartRequest, WorkerReply } from './protocol';
 
 export interface RunnerEvents {
-	/** A finished analysis for the latest request. */
-	result(a: AppAnalysis, info: { where: 'main' | 'worker'; ms: number }): void;
-	/** The question-dependent part, while the claims are still being listed. */
-	partial(a: AppAnalysis): void;
+	/** The analysis of the latest diagram, each time a part of it arrives. */
+	result(a: AppAnalysis, info: { where: 'main' | 'worker'; ms: number; busy: boolean }): void;
 	progress(p: AnalysisProgress): void;
 	failed(message: string): void;
 	cancelled(): void;
@@ -25,41 +43,97 @@ export interface RunnerOptions {
 	createWorker?: () => Worker;
 }
 
-/** Main-thread runs slower than this move diagrams of that size to the worker. */
+/** Main-thread runs slower than this move diagrams of that size to the workers. */
 const SLOW_MAIN_MS = 30;
+
+const PARTS: readonly AnalysisPart[] = ['verdict', 'sets', 'claims'];
+
+const STAGE: Record<AnalysisPart, string> = {
+	verdict: 'Verdict and paths',
+	sets: 'Adjustment sets and roles',
+	claims: 'Listing the claims'
+};
 
 function defaultWorker(): Worker {
 	return new Worker(new URL('./analysis.worker.ts', import.meta.url), { type: 'module' });
+}
+
+type Cached = { verdict: { key: string; value: VerdictPart } | null; sets: { key: string; value: SetsPart } | null; claims: { key: string; value: ClaimsPart } | null };
+
+/** One worker computing one part at a time. */
+class PartChannel {
+	worker: Worker | null = null;
+	/** Key of the part being computed, null when idle. */
+	busyKey: string | null = null;
+	id = 0;
+	fraction = 0;
+
+	constructor(
+		readonly part: AnalysisPart,
+		private readonly create: () => Worker,
+		private readonly onReply: (channel: PartChannel, reply: WorkerReply) => void,
+		private readonly onCrash: (channel: PartChannel, message: string) => void
+	) {}
+
+	start(d: Diagram, key: string, limits: AnalysisLimits): void {
+		if (this.busyKey !== null) this.stop();
+		if (!this.worker) {
+			const worker = this.create();
+			worker.onmessage = (e: MessageEvent<WorkerReply>) => this.onReply(this, e.data);
+			worker.onerror = (e: ErrorEvent) => this.onCrash(this, e.message || 'the worker failed');
+			this.worker = worker;
+		}
+		this.busyKey = key;
+		this.fraction = 0;
+		const request: PartRequest = { id: ++this.id, part: this.part, diagram: d, limits };
+		this.worker.postMessage(request);
+	}
+
+	stop(): void {
+		this.worker?.terminate();
+		this.worker = null;
+		this.busyKey = null;
+		this.id++;
+	}
 }
 
 export class AnalysisRunner {
 	#events: RunnerEvents;
 	#mainLimit: number;
 	#limits: AnalysisLimits;
-	#createWorker: () => Worker;
-	#worker: Worker | null = null;
-	#busy = false;
-	#latest = 0;
-	#lastDiagram: Diagram | null = null;
+	#channels: Record<AnalysisPart, PartChannel>;
+	#cache: Cached = { verdict: null, sets: null, claims: null };
+	#latest: { diagram: Diagram; keys: Record<AnalysisPart, string> } | null = null;
 	/** Smallest variable count whose main-thread run proved slow. */
 	#slowFrom = Infinity;
-	/** Key of the diagram last analysed or being analysed; a repeat request is skipped. */
-	#lastKey: string | null = null;
-	/** Claims of the last complete result, by structure. */
-	#claimsCache: { key: string; claims: AppAnalysis['claims']; truncated: boolean } | null = null;
-	#pendingClaimsKey = '';
 
 	constructor(events: RunnerEvents, opts: RunnerOptions = {}) {
 		this.#events = events;
 		this.#mainLimit = opts.mainThreadVariables ?? 20;
 		this.#limits = opts.limits ?? DEFAULT_LIMITS;
-		this.#createWorker = opts.createWorker ?? defaultWorker;
+		const create = opts.createWorker ?? defaultWorker;
+		const channel = (part: AnalysisPart) =>
+			new PartChannel(
+				part,
+				create,
+				(c, reply) => this.#onReply(c, reply),
+				(c, message) => {
+					c.stop();
+					this.#events.failed(`The analysis stopped: ${message}`);
+				}
+			);
+		this.#channels = { verdict: channel('verdict'), sets: channel('sets'), claims: channel('claims') };
 	}
 
-	/** True when a diagram of this size is analysed in the worker. */
+	/** True when a diagram of this size is analysed in the workers. */
 	usesWorker(d: Diagram): boolean {
 		const n = d.variables.length;
 		return n > this.#mainLimit || d.arrows.length > 2 * this.#mainLimit || n >= this.#slowFrom;
+	}
+
+	/** True while some part of the latest diagram's analysis is being computed. */
+	get busy(): boolean {
+		return PARTS.some((p) => this.#channels[p].busyKey !== null && this.#channels[p].busyKey === this.#latest?.keys[p]);
 	}
 
 	/**
@@ -67,93 +141,102 @@ export class AnalysisRunner {
 	 * (positions, labels, notes, title). Returns false when skipped.
 	 */
 	request(d: Diagram, force = false): boolean {
-		const key = analysisKey(d);
-		if (!force && key === this.#lastKey) return false;
-		this.#lastKey = key;
-		this.#lastDiagram = d;
-		const id = ++this.#latest;
-		const cKey = claimsKey(d);
-		this.#pendingClaimsKey = cKey;
-		const known = this.#claimsCache?.key === cKey ? { claims: this.#claimsCache.claims, truncated: this.#claimsCache.truncated } : undefined;
+		const keys = analysisKeys(d);
+		if (!force && this.#latest?.keys.verdict === keys.verdict) {
+			this.#latest = { diagram: d, keys };
+			return false;
+		}
+		this.#latest = { diagram: d, keys };
+		const needed = PARTS.filter((p) => this.#cache[p]?.key !== keys[p]);
 		if (!this.usesWorker(d)) {
-			if (this.#busy) this.#stopWorker();
-			const started = performance.now();
-			try {
-				const a = runAnalysis(d, this.#limits, undefined, known);
-				this.#claimsCache = { key: cKey, claims: a.claims, truncated: a.claimsTruncated };
-				const ms = performance.now() - started;
-				if (ms > SLOW_MAIN_MS) this.#slowFrom = Math.min(this.#slowFrom, d.variables.length);
-				this.#events.result(a, { where: 'main', ms });
-			} catch (e) {
-				this.#events.failed(e instanceof Error ? e.message : String(e));
-			}
+			for (const p of PARTS) if (this.#channels[p].busyKey !== null) this.#channels[p].stop();
+			this.#runOnMainThread(d, needed);
 			return true;
 		}
-		if (this.#busy) this.#stopWorker();
-		const worker = this.#ensureWorker();
-		this.#busy = true;
-		const message: AnalyseRequest = { id, diagram: d, limits: this.#limits, knownClaims: known };
-		worker.postMessage(message);
+		for (const p of PARTS) {
+			const channel = this.#channels[p];
+			if (needed.includes(p)) {
+				if (channel.busyKey !== keys[p]) channel.start(d, keys[p], this.#limits);
+			} else if (channel.busyKey !== null) channel.stop(); // working on something no longer wanted
+		}
+		if (!needed.includes('verdict')) this.#emit('worker', 0);
+		else this.#reportProgress();
 		return true;
 	}
 
-	/** Runs the last diagram again (after a cancel). */
+	/** Runs the missing parts of the last diagram again (after a cancel or a failure). */
 	retry(): void {
-		if (this.#lastDiagram) this.request(this.#lastDiagram, true);
+		if (this.#latest) this.request(this.#latest.diagram, true);
 	}
 
-	/** Stops a running analysis; the last results stay on screen. */
+	/** Stops the running parts; what is already computed stays on screen. */
 	cancel(): void {
-		if (!this.#busy) return;
-		this.#stopWorker();
-		this.#latest++;
-		this.#lastKey = null;
+		if (!this.busy) return;
+		for (const p of PARTS) if (this.#channels[p].busyKey !== null) this.#channels[p].stop();
 		this.#events.cancelled();
 	}
 
-	get busy(): boolean {
-		return this.#busy;
-	}
-
 	dispose(): void {
-		this.#stopWorker();
+		for (const p of PARTS) this.#channels[p].stop();
 	}
 
-	#ensureWorker(): Worker {
-		if (this.#worker) return this.#worker;
-		const worker = this.#createWorker();
-		worker.onmessage = (e: MessageEvent<WorkerReply>) => this.#onReply(e.data);
-		worker.onerror = (e: ErrorEvent) => {
-			this.#busy = false;
-			this.#events.failed(`The analysis stopped: ${e.message || 'the worker failed'}`);
-			this.#stopWorker();
-		};
-		this.#worker = worker;
-		return worker;
+	#runOnMainThread(d: Diagram, needed: readonly AnalysisPart[]): void {
+		const keys = analysisKeys(d);
+		const started = performance.now();
+		try {
+			if (needed.includes('verdict')) this.#cache.verdict = { key: keys.verdict, value: analyseVerdict(d, this.#limits) };
+			if (needed.includes('sets')) this.#cache.sets = { key: keys.sets, value: analyseSets(d, this.#limits) };
+			if (needed.includes('claims')) this.#cache.claims = { key: keys.claims, value: listClaims(d, this.#limits.maxClaims) };
+		} catch (e) {
+			this.#events.failed(e instanceof Error ? e.message : String(e));
+			return;
+		}
+		const ms = performance.now() - started;
+		if (ms > SLOW_MAIN_MS) this.#slowFrom = Math.min(this.#slowFrom, d.variables.length);
+		this.#emit('main', ms);
 	}
 
-	#stopWorker(): void {
-		this.#worker?.terminate();
-		this.#worker = null;
-		this.#busy = false;
-	}
-
-	#onReply(reply: WorkerReply): void {
-		if (reply.id !== this.#latest) return; // a stale run's message
+	#onReply(channel: PartChannel, reply: WorkerReply): void {
+		if (reply.id !== channel.id || channel.busyKey === null) return; // a stale run's message
+		const key = channel.busyKey;
 		switch (reply.kind) {
 			case 'progress':
-				if (reply.partial) this.#events.partial(reply.partial);
-				this.#events.progress(reply.progress);
+				channel.fraction = reply.fraction;
+				this.#reportProgress();
 				break;
 			case 'done':
-				this.#busy = false;
-				this.#claimsCache = { key: this.#pendingClaimsKey, claims: reply.analysis.claims, truncated: reply.analysis.claimsTruncated };
-				this.#events.result(reply.analysis, { where: 'worker', ms: reply.ms });
+				channel.busyKey = null;
+				if (reply.part === 'verdict') this.#cache.verdict = { key, value: reply.value };
+				else if (reply.part === 'sets') this.#cache.sets = { key, value: reply.value };
+				else this.#cache.claims = { key, value: reply.value };
+				if (this.#latest?.keys[reply.part] === key) this.#emit('worker', reply.ms);
 				break;
 			case 'failed':
-				this.#busy = false;
+				channel.busyKey = null;
 				this.#events.failed(reply.message);
 				break;
 		}
+	}
+
+	/** The analysis of the latest diagram from the cached parts, once its verdict is known. */
+	#emit(where: 'main' | 'worker', ms: number): void {
+		const latest = this.#latest;
+		if (!latest) return;
+		const { verdict, sets, claims } = this.#cache;
+		if (verdict?.key !== latest.keys.verdict) return;
+		const a = combine(verdict.value, sets?.key === latest.keys.sets ? sets.value : null, claims?.key === latest.keys.claims ? claims.value : null);
+		const busy = this.busy;
+		this.#events.result(a, { where, ms, busy });
+		if (busy) this.#reportProgress();
+	}
+
+	#reportProgress(): void {
+		const latest = this.#latest;
+		if (!latest) return;
+		const running = PARTS.filter((p) => this.#channels[p].busyKey !== null && this.#channels[p].busyKey === latest.keys[p]);
+		if (running.length === 0) return;
+		// The first part still running names the stage; the claims give a fraction.
+		const part = running[0];
+		this.#events.progress({ stage: STAGE[part], fraction: part === 'claims' ? this.#channels.claims.fraction : 0 });
 	}
 }

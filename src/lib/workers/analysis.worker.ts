@@ -1,28 +1,43 @@
 /**
- * The analysis worker: runs the engine off the main thread so the canvas never waits for it.
- * One request at a time; the app cancels a run by terminating the worker and starting a new
- * one (a running computation cannot be interrupted otherwise).
+ * An analysis worker: computes one part of the analysis (verdict, sets or claims; see
+ * analysis-steps.ts) off the main thread, so the canvas never waits for it. The app runs one
+ * worker per part, so a planned-set edit is answered while the sets or the claims of the same
+ * structure are still being computed next to it; a worker still busy with a stale request is
+ * terminated and replaced, since a running computation cannot be interrupted otherwise.
  */
-import { runAnalysis } from './analysis-steps';
-import type { AnalyseRequest, WorkerReply } from './protocol';
+import { analyseSets, analyseVerdict, listClaims } from './analysis-steps';
+import type { PartRequest, PartResult, WorkerReply } from './protocol';
 
 const post = (reply: WorkerReply) => (self as unknown as Worker).postMessage(reply);
 
-self.onmessage = (event: MessageEvent<AnalyseRequest>) => {
-	const { id, diagram, limits, knownClaims } = event.data;
+function compute(request: PartRequest): PartResult {
+	const { id, part, diagram, limits } = request;
+	switch (part) {
+		case 'verdict':
+			return { part, value: analyseVerdict(diagram, limits) };
+		case 'sets':
+			return { part, value: analyseSets(diagram, limits) };
+		case 'claims': {
+			let lastPost = 0;
+			const value = listClaims(diagram, limits.maxClaims, (fraction) => {
+				// Progress at most every 100 ms.
+				const now = performance.now();
+				if (now - lastPost > 100) {
+					lastPost = now;
+					post({ id, kind: 'progress', fraction });
+				}
+			});
+			return { part, value };
+		}
+	}
+}
+
+self.onmessage = (event: MessageEvent<PartRequest>) => {
 	const started = performance.now();
-	let lastPost = 0;
 	try {
-		const analysis = runAnalysis(diagram, limits, (progress, partial) => {
-			// Partial results always go out; bare progress at most every 100 ms.
-			const now = performance.now();
-			if (partial || now - lastPost > 100) {
-				lastPost = now;
-				post({ id, kind: 'progress', progress, partial });
-			}
-		}, knownClaims);
-		post({ id, kind: 'done', analysis, ms: performance.now() - started });
+		const result = compute(event.data);
+		post({ id: event.data.id, kind: 'done', ms: performance.now() - started, ...result });
 	} catch (e) {
-		post({ id, kind: 'failed', message: e instanceof Error ? e.message : String(e) });
+		post({ id: event.data.id, kind: 'failed', message: e instanceof Error ? e.message : String(e) });
 	}
 };

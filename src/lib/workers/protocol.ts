@@ -1,17 +1,16 @@
-/** Messages between the app and the analysis worker. Plain data (structured clone). */
+/** Messages between the app and the analysis workers. Plain data (structured clone). */
 import type { Diagram } from '../graph/diagram';
-import type { Claim } from '../causal';
-import type { AnalysisLimits, AnalysisProgress, AppAnalysis } from './analysis-steps';
+import type { AnalysisLimits, ClaimsPart, SetsPart, VerdictPart } from './analysis-steps';
 
-export interface AnalyseRequest {
-	id: number;
-	diagram: Diagram;
-	limits: AnalysisLimits;
-	/** Claims already listed for this structure (see claimsKey), so the worker skips them. */
-	knownClaims?: { claims: Claim[]; truncated: boolean };
-}
+/** One part of the analysis for one diagram; each worker computes one part at a time. */
+export type PartRequest = { id: number; part: 'verdict' | 'sets' | 'claims'; diagram: Diagram; limits: AnalysisLimits };
+
+export type PartResult =
+	| { part: 'verdict'; value: VerdictPart }
+	| { part: 'sets'; value: SetsPart }
+	| { part: 'claims'; value: ClaimsPart };
 
 export type WorkerReply =
-	| { id: number; kind: 'progress'; progress: AnalysisProgress; partial: AppAnalysis | null }
-	| { id: number; kind: 'done'; analysis: AppAnalysis; ms: number }
+	| { id: number; kind: 'progress'; fraction: number }
+	| ({ id: number; kind: 'done'; ms: number } & PartResult)
 	| { id: number; kind: 'failed'; message: string };

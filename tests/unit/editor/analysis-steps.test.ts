@@ -1,19 +1,20 @@
 /**
- * The app runs the analysis in steps (to report progress); its result must be exactly what
- * the engine façade's `analyse` returns for the same diagram and limits.
+ * The app runs the analysis in three parts (verdict, sets, claims), each cached by what it
+ * depends on; put together, they must be exactly what the engine façade's `analyse` returns
+ * for the same diagram and limits, and each key must change when (and only when) its part can.
  */
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { readFileSync } from 'node:fs';
 import { analyse } from '../../../src/lib/causal/analysis';
-import { DEFAULT_LIMITS, runAnalysis, type AppAnalysis } from '../../../src/lib/workers/analysis-steps';
+import { analyseSets, analyseVerdict, analysisKeys, combine, DEFAULT_LIMITS, listClaims, runAnalysis, type AppAnalysis } from '../../../src/lib/workers/analysis-steps';
 import type { Diagram } from '../../../src/lib/graph/diagram';
 import { parseDiagramJson } from '../../../src/lib/graph/native-json';
 
 const demo = parseDiagramJson(readFileSync('static/demo/cycling-hypertension.causeway.json', 'utf8'));
 
 function engineView(a: AppAnalysis) {
-	const { claimsTruncated: _t, complete: _c, ...rest } = a;
+	const { claimsTruncated: _t, complete: _c, setsPending: _p, ...rest } = a;
 	return rest;
 }
 
@@ -61,11 +62,27 @@ describe('stepwise analysis equals the engine façade', () => {
 		);
 	});
 
-	it('reports the partial result before the claims and progress within them', () => {
-		const seen: string[] = [];
-		runAnalysis(demo, DEFAULT_LIMITS, (p, partial) => seen.push(`${p.stage}${partial ? ' +partial' : ''}`));
-		expect(seen[0]).toBe('Adjustment sets, verdict, roles and paths');
-		expect(seen[1]).toBe('Listing the claims +partial');
+	it('parts computed for another diagram are left out, as pending', () => {
+		const edited: Diagram = { ...demo, arrows: demo.arrows.slice(1) };
+		const a = combine(analyseVerdict(edited), null, null);
+		expect(a.setsPending).toBe(true);
+		expect(a.sets).toBeNull();
+		expect(a.complete).toBe(false);
+		expect(a.check).toEqual(runAnalysis(edited).check);
+		const b = combine(analyseVerdict(edited), analyseSets(edited), listClaims(edited, DEFAULT_LIMITS.maxClaims));
+		expect(b).toEqual(runAnalysis(edited));
+	});
+
+	it('keys: the planned set changes the verdict only; the question also the sets; measured and arrows everything', () => {
+		const k = analysisKeys(demo);
+		const planned = analysisKeys({ ...demo, adjusted: [...demo.adjusted, 'bmi'] });
+		expect([planned.verdict !== k.verdict, planned.sets !== k.sets, planned.claims !== k.claims]).toEqual([true, false, false]);
+		const question = analysisKeys({ ...demo, outcomes: ['fitness'] });
+		expect([question.verdict !== k.verdict, question.sets !== k.sets, question.claims !== k.claims]).toEqual([true, true, false]);
+		const measured = analysisKeys({ ...demo, variables: demo.variables.map((v, i) => (i === 0 ? { ...v, measured: !v.measured } : v)) });
+		expect([measured.verdict !== k.verdict, measured.sets !== k.sets, measured.claims !== k.claims]).toEqual([true, true, true]);
+		const moved = analysisKeys({ ...demo, title: 'x', variables: demo.variables.map((v) => ({ ...v, x: (v.x ?? 0) + 5, label: `${v.label}!` })) });
+		expect(moved).toEqual(k);
 	});
 
 	it('cuts the claims at the limit and says so', () => {

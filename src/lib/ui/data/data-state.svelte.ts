@@ -9,13 +9,13 @@ import type { ColumnKind, ParseProgress, SummaryStatistics, TableError } from '.
 import { parseSummaryMatrix, runSummaryChecks, type DataCheckProgress, type DataCheckReport, type TableInfo } from '../../datacheck';
 import { DataRunner } from '../../workers/data-client';
 import type { DataPart, DataSource } from '../../workers/data-protocol';
-import { claimsKey } from '../../workers/analysis-steps';
+import { structureKey } from '../../workers/analysis-steps';
 
 export type DataStatus = 'empty' | 'loading' | 'checking' | 'ready';
 
 /** What the checks depend on in the diagram: structure, labels (name matching) and the question. */
 export function dataKey(d: Diagram): string {
-	return JSON.stringify([claimsKey(d), d.variables.map((v) => v.label), d.exposures, d.outcomes, d.adjusted]);
+	return JSON.stringify([structureKey(d), d.variables.map((v) => v.label), d.exposures, d.outcomes, d.adjusted]);
 }
 
 export function describeTableError(e: TableError): string {
@@ -224,6 +224,6 @@ export class DataState {
 		}
 		if (this.status !== 'loading') this.status = 'checking';
 		this.checkProgress = { stage: 'arrows', fraction: 0 };
-		this.#runner.check({ diagram: $state.snapshot(d) as Diagram, mapping: { ...mapping }, types: { ...this.types } });
+		this.#runner.check({ diagram: d, mapping: { ...mapping }, types: { ...this.types } });
 	}
 }
