@@ -106,3 +106,58 @@ test('an arrow that would close a cycle is refused on the spot, naming the cycle
 	await page.keyboard.press('Control+z');
 	expect((await counts(page)).arrows).toBe(1);
 });
+
+test('selection by mouse: click, Shift+click, Shift+drag a box; dragging one of several selected variables moves them all', async ({ page }) => {
+	await page.goto('/');
+	await expect(verdict(page)).toBeVisible();
+	const marks = (id: string) => page.evaluate((v) => window.__causewayCanvas.nodeClasses(v), id);
+	const centre = async (id: string) => {
+		const b = (await page.evaluate((v) => window.__causewayCanvas.nodeBox(v), id))!;
+		return { x: b.x + b.width / 2, y: b.y + b.height / 2 };
+	};
+	const click = async (id: string, modifiers: ('Shift' | 'Control')[] = []) => {
+		const c = await centre(id);
+		for (const m of modifiers) await page.keyboard.down(m);
+		await page.mouse.click(c.x, c.y);
+		for (const m of modifiers) await page.keyboard.up(m);
+		await page.waitForTimeout(400); // two clicks in a row would be a double click (rename)
+	};
+
+	await click('age');
+	expect(await marks('age')).toContain('selected');
+	await click('income', ['Shift']);
+	expect(await marks('age')).toContain('selected');
+	expect(await marks('income')).toContain('selected');
+	await click('income', ['Control']);
+	expect(await marks('income')).not.toContain('selected');
+	await click('income', ['Shift']);
+
+	// Dragging Age moves Household income by the same amount, in one undoable step.
+	const [a0, i0] = [await centre('age'), await centre('income')];
+	await page.mouse.move(a0.x, a0.y);
+	await page.mouse.down();
+	await page.mouse.move(a0.x + 30, a0.y + 40, { steps: 6 });
+	await page.mouse.up();
+	await expect(message(page)).toContainText('Move 2 variables');
+	const [a1, i1] = [await centre('age'), await centre('income')];
+	expect(Math.round(a1.x - a0.x)).toBe(Math.round(i1.x - i0.x));
+	expect(Math.round(a1.y - a0.y)).toBe(Math.round(i1.y - i0.y));
+	expect(Math.abs(a1.y - a0.y)).toBeGreaterThan(20);
+
+	// A click on the background clears the selection; Shift+drag draws a selection box.
+	const area = (await canvas(page).boundingBox())!;
+	await page.mouse.click(area.x + 8, area.y + area.height - 60);
+	await page.waitForTimeout(400);
+	expect(await marks('age')).not.toContain('selected');
+	const lo = { x: Math.min(a1.x, i1.x) - 70, y: Math.min(a1.y, i1.y) - 30 };
+	const hi = { x: Math.max(a1.x, i1.x) + 70, y: Math.max(a1.y, i1.y) + 30 };
+	await page.keyboard.down('Shift');
+	await page.mouse.move(lo.x, lo.y);
+	await page.mouse.down();
+	await page.mouse.move(hi.x, hi.y, { steps: 8 });
+	await page.mouse.up();
+	await page.keyboard.up('Shift');
+	await expect.poll(() => marks('income')).toContain('selected');
+	expect(await marks('age')).toContain('selected');
+	expect(await marks('cycling')).not.toContain('selected');
+});

@@ -67,8 +67,7 @@ export function nodeLook(v: Variable, roles: readonly Role[], q: Question, measu
 	const classes = [
 		q.exposures.has(v.id) ? 'exposure' : '',
 		q.outcomes.has(v.id) ? 'outcome' : '',
-		v.measured ? '' : 'unmeasured',
-		q.adjusted.has(v.id) ? 'planned' : ''
+		v.measured ? '' : 'unmeasured'
 	]
 		.filter(Boolean)
 		.join(' ');
@@ -80,7 +79,8 @@ export function nodeLook(v: Variable, roles: readonly Role[], q: Question, measu
 	};
 }
 
-const LOOK_CLASSES = ['exposure', 'outcome', 'unmeasured', 'planned'];
+// The planned set's box is drawn by canvas/overlay.ts, not styled here.
+const LOOK_CLASSES = ['exposure', 'outcome', 'unmeasured'];
 
 export function nodeDefinition(v: Variable, look: NodeLook): ElementDefinition {
 	return {
@@ -135,7 +135,7 @@ export function syncElements(
 				node.data({ text: look.text, w: look.w, h: look.h });
 			}
 			if (LOOK_CLASSES.filter((c) => node.hasClass(c)).join(' ') !== look.classes) {
-				node.removeClass('exposure outcome unmeasured planned').addClass(look.classes);
+				node.removeClass('exposure outcome unmeasured').addClass(look.classes);
 			}
 			const p = node.position();
 			const x = v.x ?? 0;

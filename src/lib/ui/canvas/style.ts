@@ -53,18 +53,6 @@ export const canvasStyle: StylesheetJson = [
 	},
 	{ selector: 'node.unmeasured.exposure, node.unmeasured.outcome', style: { color: COLOURS.unmeasuredOnFill } },
 	{
-		// The square box around an adjusted ("conditioned") variable.
-		selector: 'node.planned',
-		style: {
-			shape: 'rectangle',
-			'border-width': 2.5,
-			'outline-width': 2.5,
-			'outline-color': COLOURS.ink,
-			'outline-offset': 4,
-			'outline-style': 'solid'
-		}
-	},
-	{
 		selector: 'edge',
 		style: {
 			width: 2,
@@ -74,14 +62,6 @@ export const canvasStyle: StylesheetJson = [
 			'target-arrow-shape': 'triangle',
 			'arrow-scale': 1.3
 		}
-	},
-	{
-		selector: 'node:selected',
-		style: { 'underlay-color': COLOURS.selection, 'underlay-opacity': 0.55, 'underlay-padding': 9, 'underlay-shape': 'round-rectangle' }
-	},
-	{
-		selector: 'edge:selected',
-		style: { 'underlay-color': COLOURS.selection, 'underlay-opacity': 0.6, 'underlay-padding': 7, width: 3 }
 	},
 	// Data verdicts on arrows (Data section): a text tag always, a dashed line when no
 	// association was found. Before the highlights, which take precedence while shown.
@@ -101,35 +81,8 @@ export const canvasStyle: StylesheetJson = [
 	{ selector: 'edge.data-supported', style: { color: '#005a8c' } },
 	{ selector: 'edge.data-absent', style: { 'line-style': 'dashed', 'line-dash-pattern': [5, 4], color: '#8a3a00' } },
 	{ selector: 'edge.data-untested', style: { color: COLOURS.unmeasuredInk } },
-	// Highlights from the analysis column.
-	{ selector: '.faded', style: { opacity: 0.28 } },
-	{
-		selector: 'edge.hl-causal',
-		style: { 'line-color': COLOURS.causal, 'target-arrow-color': COLOURS.causal, width: 5, 'line-style': 'solid', opacity: 1 }
-	},
-	{
-		selector: 'edge.hl-open',
-		style: { 'line-color': COLOURS.biasing, 'target-arrow-color': COLOURS.biasing, width: 5, 'line-style': 'dashed', 'line-dash-pattern': [10, 5], opacity: 1 }
-	},
-	{
-		selector: 'edge.hl-blocked',
-		style: { 'line-color': COLOURS.blocked, 'target-arrow-color': COLOURS.blocked, width: 2, 'line-style': 'dotted', opacity: 1 }
-	},
-	{
-		selector: 'node.hl-node',
-		style: { opacity: 1, 'underlay-color': COLOURS.biasing, 'underlay-opacity': 0.35, 'underlay-padding': 10, 'underlay-shape': 'round-rectangle' }
-	},
-	{ selector: 'node.hl-on-path', style: { opacity: 1 } },
-	{
-		// A refused arrow's cycle, shown briefly.
-		selector: 'edge.hl-cycle',
-		style: { 'line-color': COLOURS.biasing, 'target-arrow-color': COLOURS.biasing, width: 5, 'line-style': 'dashed', opacity: 1 }
-	},
-	// Keyboard arrow drawing: the candidate target.
-	{
-		selector: 'node.kbd-target',
-		style: { 'underlay-color': COLOURS.causal, 'underlay-opacity': 0.4, 'underlay-padding': 10 }
-	},
+	// Selection, highlights, a refused cycle and the keyboard's arrow target are not styles:
+	// canvas/overlay.ts draws them over the scene, so changing them never restyles elements.
 	// Edge-drawing gesture (cytoscape-edgehandles classes).
 	{ selector: '.eh-ghost-edge, edge.eh-preview', style: { 'line-color': COLOURS.causal, 'target-arrow-color': COLOURS.causal, width: 3, 'line-style': 'dashed' } },
 	{ selector: 'edge.eh-preview.refused', style: { 'line-color': COLOURS.biasing, 'target-arrow-color': COLOURS.biasing, 'target-arrow-shape': 'tee' } },
