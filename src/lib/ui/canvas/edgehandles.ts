@@ -2,8 +2,7 @@
  * Typed access to cytoscape-edgehandles 4 (the gesture that draws an arrow from one node to
  * another, with snapping and a preview). The package has no type declarations.
  */
-import cytoscape, { type Core, type NodeSingular, type Position } from 'cytoscape';
-import edgehandles from 'cytoscape-edgehandles';
+import type { Core, NodeSingular, Position } from 'cytoscape';
 
 export interface EdgeHandles {
 	start(node: NodeSingular): void;
@@ -25,12 +24,7 @@ export interface EdgeHandlesOptions {
 	disableBrowserGestures: boolean;
 }
 
-let registered = false;
-
+/** The extension is registered with Cytoscape by load-cytoscape.ts. */
 export function attachEdgeHandles(cy: Core, options: EdgeHandlesOptions): EdgeHandles {
-	if (!registered) {
-		cytoscape.use(edgehandles);
-		registered = true;
-	}
 	return (cy as unknown as { edgehandles(o: EdgeHandlesOptions): EdgeHandles }).edgehandles(options);
 }
