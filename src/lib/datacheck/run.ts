@@ -19,7 +19,7 @@ import { checkConfounders } from './confounding';
 import { estimateEffects } from './estimates';
 import { dataDiagram, mapVariables } from './mapping';
 import { retypeTable } from './retype';
-import type { ArrowChecks, ClaimChecks, DataCheckReport, MappingOverrides, TypeOverrides, VariableMapping } from './types';
+import type { AnalysedColumn, ArrowChecks, ClaimChecks, DataCheckReport, MappingOverrides, TypeOverrides, VariableMapping } from './types';
 
 export interface DataCheckOptions {
 	/** Variable id → column name (null: leave the variable without data); the rest is matched by name. */
@@ -61,6 +61,23 @@ export function prepareTable(table: Table, types: TypeOverrides = {}): { table: 
 	};
 }
 
+/** Whether every value of the column as read from the file is a number. O(levels). */
+function numbersInFile(c: Column): boolean {
+	return c.kind === 'continuous' || c.levels.every((l) => l.trim() !== '' && Number.isFinite(Number(l)));
+}
+
+/** The linked columns as analysed, in diagram order. O(variables + rows of code-like columns). */
+export function analysedColumns(diagram: Diagram, mapping: VariableMapping, columnOf: (name: string) => Column, original: Table): AnalysedColumn[] {
+	const read = new Map(original.columns.map((c) => [c.name, c]));
+	return diagram.variables.flatMap((v) => {
+		const name = mapping.columns[v.id];
+		if (name === undefined) return [];
+		const c = columnOf(name);
+		const file = read.get(name) ?? c;
+		return [{ variable: v.id, column: name, kind: c.kind, levels: c.kind === 'continuous' ? [] : [...c.levels], numbersInFile: numbersInFile(file), codeValues: categoryCodeValues(c) }];
+	});
+}
+
 export function runDataChecks(diagram: Diagram, table: Table, options: DataCheckOptions = {}): DataCheckReport {
 	const structural = validateDiagram(diagram).find((i) => STRUCTURAL.has(i.code));
 	if (structural) throw new InputError(structural.message);
@@ -84,6 +101,7 @@ export function runDataChecks(diagram: Diagram, table: Table, options: DataCheck
 		const values = categoryCodeValues(c);
 		return values ? [{ column: c.name, values }] : [];
 	});
+	const columns = analysedColumns(diagram, mapping, columnOf, table);
 	const skippedColumns = t.skipped.map((s) => s.message);
 	return {
 		mapping,
@@ -93,6 +111,8 @@ export function runDataChecks(diagram: Diagram, table: Table, options: DataCheck
 		estimatesMessage: est.message,
 		confounders,
 		categoryCodes,
+		columns,
+		format: { ...t.format },
 		rowCount: t.rowCount,
 		notes: [...mapping.notes, ...skippedColumns]
 	};
