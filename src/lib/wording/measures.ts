@@ -37,7 +37,7 @@ export function codeList(values: readonly number[]): string {
  * The kind beside a result: "numbers", "numbers — look like category codes 0, 1, 2 and 3",
  * "binary (reference 0)", "categories, 4 levels (reference 0-5yrs)".
  */
-export function kindText(c: Pick<AnalysedColumn, 'kind' | 'levels' | 'codeValues'>): string {
+export function kindText(c: { kind: ColumnKind; levels: readonly string[]; codeValues?: readonly number[] | null }): string {
 	if (c.kind === 'continuous') return c.codeValues ? `numbers — look like category codes ${codeList(c.codeValues)}` : 'numbers';
 	const reference = c.levels[0] === undefined ? '' : `reference ${c.levels[0]}`;
 	if (c.kind === 'binary') return `binary${reference ? ` (${reference})` : ''}`;
