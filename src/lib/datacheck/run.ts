@@ -30,8 +30,8 @@ export interface DataCheckOptions {
 	alpha?: number;
 	/** The planned set for the estimates (default: the diagram's). */
 	planned?: readonly string[];
-	/** Which parts to compute (default all). */
-	parts?: { arrows?: boolean; claims?: boolean; estimates?: boolean };
+	/** Which parts to compute (default all); the confounder check comes with the estimates unless `confounders` is false. */
+	parts?: { arrows?: boolean; claims?: boolean; estimates?: boolean; confounders?: boolean };
 	/** Include the numbers for the pictures beside each arrow check. */
 	pictures?: boolean;
 	maxClaims?: number;
@@ -88,7 +88,7 @@ export function runDataChecks(diagram: Diagram, table: Table, options: DataCheck
 		options.mapping
 	);
 	const seen = dataDiagram(diagram, mapping);
-	const parts = { arrows: true, claims: true, estimates: true, ...options.parts };
+	const parts = { arrows: true, claims: true, estimates: true, confounders: true, ...options.parts };
 	const alpha = options.alpha ?? 0.05;
 	const arrows: ArrowChecks = parts.arrows ? checkArrows(diagram, columnOf, mapping, { alpha, pictures: options.pictures, onProgress: (d, t) => options.onProgress?.({ stage: 'arrows', fraction: d / t }) }) : { alpha, checks: [], skipped: [] };
 	const claims: ClaimChecks = parts.claims
@@ -96,7 +96,7 @@ export function runDataChecks(diagram: Diagram, table: Table, options: DataCheck
 		: { alpha, checks: [], noTestableClaim: [], tested: 0, contradicted: 0, truncated: false };
 	if (parts.estimates) options.onProgress?.({ stage: 'estimates', fraction: 0 });
 	const est = parts.estimates ? estimateEffects(seen, columnOf, mapping, { planned: options.planned, maxSets: options.maxSets }) : { estimates: null, message: 'Not computed.' };
-	const confounders = parts.estimates ? checkConfounders(seen, columnOf, mapping) : null;
+	const confounders = parts.estimates && parts.confounders ? checkConfounders(seen, columnOf, mapping) : null;
 	const categoryCodes = t.columns.flatMap((c) => {
 		const values = categoryCodeValues(c);
 		return values ? [{ column: c.name, values }] : [];

@@ -13,3 +13,5 @@ export * from './data';
 export * from './review';
 export * from './confounding';
 export * from './measures';
+export * from './two-way';
+export * from './analysis-code';

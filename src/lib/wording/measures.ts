@@ -9,7 +9,7 @@
 import type { AnalysedColumn, ReadMeasure } from '../datacheck';
 import type { ColumnKind } from '../stats';
 import type { LabelOf } from './names';
-import { formatCi, formatCount, formatNumber } from './numbers';
+import { formatCi, formatCount, formatNumber, pText } from './numbers';
 
 /** The kind a column is analysed as, in one or two words. */
 export const KIND_WORD: Readonly<Record<ColumnKind, string>> = {
@@ -113,4 +113,9 @@ export function measureText(m: ReadMeasure, name: LabelOf = (c) => c): string {
 export function smallSizeRule(m: ReadMeasure | null): string {
 	if (!m || m.smallBelow === null) return 'odds ratios are never called weak: their size is shown as it is';
 	return `weak means below Cohen's (1988) "small", |${measureSymbol(m)}| < ${formatNumber(m.smallBelow)} (a rule of thumb)`;
+}
+
+/** A result in the measure read: "odds ratio 1.77 (95 % CI …): odds of …; p < 0.001, n = 5,000". */
+export function resultText(m: ReadMeasure | null, pValue: number, n: number, name: LabelOf = (c) => c): string {
+	return `${m ? `${measureText(m, name)}; ` : ''}${pText(pValue)}, n = ${formatCount(n)}`;
 }
