@@ -119,3 +119,17 @@ export function smallSizeRule(m: ReadMeasure | null): string {
 export function resultText(m: ReadMeasure | null, pValue: number, n: number, name: LabelOf = (c) => c): string {
 	return `${m ? `${measureText(m, name)}; ` : ''}${pText(pValue)}, n = ${formatCount(n)}`;
 }
+
+/**
+ * The kinds of a set's columns, grouped: "numbers: Age, Diet quality; binary (reference 0):
+ * Family history". Columns that look like category codes are marked "(look like codes)". O(k).
+ */
+export function kindsSummary(items: readonly { label: string; kind: ColumnKind; levels: readonly string[]; codeValues?: readonly number[] | null }[]): string {
+	const groups = new Map<string, string[]>();
+	for (const it of items) {
+		const key = it.kind === 'continuous' ? 'numbers' : kindText(it);
+		const name = it.codeValues ? `${it.label} (look like category codes)` : it.label;
+		groups.set(key, [...(groups.get(key) ?? []), name]);
+	}
+	return [...groups].map(([kind, names]) => `${kind}: ${names.join(', ')}`).join('; ');
+}
