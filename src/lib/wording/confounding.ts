@@ -40,8 +40,8 @@ export function notCandidateReason(roles: readonly Role[]): string | null {
  * The notice for a numeric column whose values look like category codes, naming the column;
  * `how` says where its kind is changed (the app's Columns table, or --type on the command line).
  */
-export function categoryCodeNotice(column: string, values: readonly number[], how: 'app' | 'cli'): string {
-	const change = how === 'app' ? 'set its kind to categories under Columns' : `run again with --type ${column}=categorical`;
+export function categoryCodeNotice(column: string, values: readonly number[], how: 'app' | 'cli' | 'report'): string {
+	const change = how === 'app' ? 'set its kind to categories under Columns' : how === 'cli' ? `run again with --type ${column}=categorical` : 'declare it categorical and repeat the analysis';
 	return `Column '${column}' holds only the whole numbers ${codeList(values)}: it looks like category codes. It is analysed as numbers, so a model that adjusts for it fits ${KIND_IN_MODEL.continuous} across the codes (equal steps between them), which leaves residual confounding if the codes label categories. If they do, ${change}.`;
 }
 
@@ -110,7 +110,7 @@ const step = (from: number, to: number) => formatPercent((to / from - 1) * 100);
  * all — and is not bias. The risk difference and the risk ratio are collapsible. Null when
  * the row has no crude odds ratio on its rows.
  */
-export function collapsibilitySentence(s: Standardized): string | null {
+export function collapsibilitySentence(s: Pick<Standardized, 'marginalOddsRatio' | 'conditionalOddsRatio' | 'crudeOddsRatio'>): string | null {
 	if (s.crudeOddsRatio === null) return null;
 	const crude = s.crudeOddsRatio;
 	const marginal = s.marginalOddsRatio.estimate;
