@@ -89,6 +89,8 @@ test('every candidate at once, a two-way table, standardized estimates and the c
 	await expect(standardized).toContainText('0.637 to 0.79');
 	await expect(section.getByTestId('collapsibility')).toContainText('crude 0.474 → standardized marginal 0.63 → conditional (the model\'s) 0.609');
 	await expect(section.getByTestId('collapsibility')).toContainText('is non-collapsibility');
+	// Nothing in the Data section is wider than the analysis column.
+	expect(await page.locator('#analysis-column').evaluate((el) => el.scrollWidth - el.clientWidth)).toBeLessThanOrEqual(0);
 	await section.getByTestId('standardized-table').scrollIntoViewIfNeeded();
 	await page.screenshot({ path: 'test-results/confounder-estimates.png', clip: column });
 });
