@@ -27,6 +27,7 @@ import { braces, pathText, problemText, reasonText, ROLE_TEXT } from '../lib/wor
 import { estimateCommand } from './commands/estimate';
 import { testCommand } from './commands/test';
 import { exportCommand } from './commands/export';
+import { codeCommand } from './commands/code';
 import { review, robust, diff, instruments } from './commands/reviewer';
 
 export type { CliIo } from './io';
@@ -230,6 +231,7 @@ OUT's extension (.json, .dot or .gv). "-o -" writes native JSON to standard outp
 	test: testCommand,
 	estimate: estimateCommand,
 	export: exportCommand,
+	code: codeCommand,
 	review, robust, diff, instruments
 };
 

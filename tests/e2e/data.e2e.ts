@@ -33,7 +33,7 @@ test('demo data: arrow checks with pictures and canvas marks, claims (a contradi
 	// Arrow checks: the exposure's arrow to fitness is supported, with its n and a picture.
 	const fitness = section.locator('li[data-arrow="cycling>fitness"]');
 	await expect(fitness).toContainText('supported');
-	await expect(fitness).toContainText('n = 5000');
+	await expect(fitness).toContainText('n = 5,000');
 	await expect(fitness.getByRole('img')).toHaveAttribute('aria-label', /Box plots of VO2max|Box plots of Fitness|Box plots of/);
 	// The weak income → hypertension association is reported, not hidden.
 	await expect(section.locator('li[data-arrow="income>hypertension"]')).toContainText('not found');

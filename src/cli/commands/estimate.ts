@@ -5,9 +5,10 @@
  * Same pipeline as the app's data pane.
  */
 import { braces } from '../../lib/datacheck';
-import { formatCi, formatNumber, formatPercent } from '../../lib/wording';
+import { formatCi, formatCount, formatNumber, formatPercent } from '../../lib/wording';
 import { QUESTION, QUESTION_HELP } from '../command';
-import { COMMON_DATA_PRINT, type Command } from './data-print';
+import { printConfounderCheck, printStandardized } from './confounder-print';
+import { COMMON_DATA_PRINT, kindOf, type Command } from './data-print';
 import { CAUTION, DATA_HELP, DATA_OPTIONS, reportJson, runOnData } from './data-input';
 
 const USAGE = 'causeway estimate DIAGRAM DATA.csv [--adjust a,b] [--exposure x] [--outcome y] [--map …] [--type …] [--max N] [--summary] [--json]';
@@ -22,6 +23,15 @@ each minimal sufficient set, the efficiency-optimal set and the planned set (the
 rows (a 10 % change is marked: a common-practice rule of thumb, not a test of confounding),
 warnings (separation, collinearity, fewer than about 10 events per variable — Peduzzi et al.
 1996, a rule of thumb) and the E-value of the planned estimate (VanderWeele & Ding 2017).
+Each adjusted row shows the crude estimate on its own complete cases beside the crude one on
+all rows, and the kind each adjusted column is analysed as. For a binary exposure and outcome:
+standardized (marginal) risk difference, risk ratio and odds ratio by g-computation with
+delta-method intervals, and which part of the odds ratio's change is confounding (crude →
+marginal) and which is non-collapsibility (marginal → conditional; Greenland, Robins & Pearl
+1999). Then the confounder check of every candidate: its association with the exposure and
+with the outcome in the measure read (two-way tables for discrete pairs), the estimate crude
+and adjusted for it alone on the same rows, and the Mantel–Haenszel odds ratio over its
+levels (fifths of a numeric one) with the Breslow–Day test, Tarone's correction.
 ${DATA_HELP}
   --adjust a,b    the planned set, replacing the file's (use --adjust "" for none)
   --max N         show at most N minimal sets (default 20)
@@ -30,8 +40,8 @@ ${QUESTION_HELP}`,
 	async run(ctx) {
 		const { report, dataName } = await runOnData(ctx, USAGE, { planned: ctx.list('adjust'), maxSets: ctx.count('max'), parts: { arrows: false, claims: false } });
 		if (ctx.json) {
-			const { mapping, estimates, estimatesMessage, rowCount, notes } = reportJson(report);
-			ctx.printJson({ mapping, estimates, estimatesMessage, rowCount, notes });
+			const { mapping, estimates, estimatesMessage, confounders, categoryCodes, columns, format, rowCount, notes } = reportJson(report);
+			ctx.printJson({ mapping, estimates, estimatesMessage, confounders, categoryCodes, columns, format, rowCount, notes });
 			return 0;
 		}
 		COMMON_DATA_PRINT.header(ctx, report, dataName);
@@ -40,6 +50,8 @@ ${QUESTION_HELP}`,
 			ctx.print(`\n${report.estimatesMessage}`);
 			return 0;
 		}
+		const kind = kindOf(report);
+		const columnOf = (id: string) => report.mapping.columns[id] ?? id;
 		ctx.print(`\nEffect of ${e.exposure} on ${e.outcome}: ${e.measure} (${e.model} regression), 95 % CI`);
 		const width = Math.max(...e.rows.map((r) => r.label.length));
 		for (const r of e.rows) {
@@ -47,10 +59,15 @@ ${QUESTION_HELP}`,
 				ctx.print(`  ${r.label.padEnd(width)}  ${r.message}`);
 				continue;
 			}
-			const change = r.changePercent === null ? '' : `  ${formatPercent(r.changePercent)} vs crude${r.changeMarked ? ' (≥ 10 %*)' : ''}`;
+			const crude = r.crudeSameRows === null ? '' : `; crude on the same rows ${formatNumber(r.crudeSameRows)}${r.crudeSameRowsCi ? ` (${formatCi(r.crudeSameRowsCi)})` : ''}`;
+			const change = r.changePercent === null ? '' : `, change ${formatPercent(r.changePercent)}${r.changeMarked ? ' (≥ 10 %*)' : ''}`;
 			const verdict = r.sufficient ? '' : r.roles.includes('crude') && r.roles.length === 1 ? '' : '  [not sufficient under the diagram]';
-			ctx.print(`  ${r.label.padEnd(width)}  ${formatNumber(r.estimate)} (${formatCi(r.ci)}), n = ${r.n}${change}${verdict}`);
+			ctx.print(`  ${r.label.padEnd(width)}  ${formatNumber(r.estimate)} (${formatCi(r.ci)}), n = ${formatCount(r.n)}${crude}${change}${verdict}`);
+			if (r.adjustedFor.length) ctx.print(`  ${' '.repeat(width)}  kinds: ${r.adjustedFor.map((id) => `${id} ${kind(columnOf(id))}`).join('; ')}`);
 		}
+		const exposureColumn = report.columns.find((c) => c.variable === e.exposure);
+		const levels = exposureColumn && exposureColumn.levels.length === 2 ? { exposed: exposureColumn.levels[1], unexposed: exposureColumn.levels[0] } : { exposed: '1', unexposed: '0' };
+		printStandardized(ctx, e, levels);
 		if (e.eValue)
 			ctx.print(
 				`E-value of the planned estimate: ${formatNumber(e.eValue.point)}${e.eValue.ciBound === null ? '' : ` (for the CI limit nearer the null: ${formatNumber(e.eValue.ciBound)})`} — ${e.eValue.notes.join(' ')}`
@@ -60,6 +77,7 @@ ${QUESTION_HELP}`,
 		if (e.rows.some((r) => r.changeMarked)) ctx.print('* A 10 % change from crude is a common-practice marker, not a test of confounding: the diagram decides what to adjust for.');
 		const planned = e.rows.find((r) => r.roles.includes('planned'));
 		if (planned) ctx.print(`Planned set ${braces(planned.adjustedFor)}: ${planned.sufficient ? 'sufficient' : 'NOT sufficient'} under the diagram.`);
+		if (report.confounders) printConfounderCheck(ctx, report.confounders, kind);
 		ctx.print(`\n${CAUTION}`);
 		return 0;
 	}

@@ -146,7 +146,7 @@ ${QUESTION_HELP}`,
 				const e = parsed.error;
 				throw new InputError(`${path}: ${e.message}${e.row !== undefined ? ` (row ${e.row}${e.column ? `, column "${e.column}"` : ''})` : ''}`);
 			}
-			data = reportDataFromChecks(runDataChecks(d, parsed.table), labelLookup(d), path.replace(/^.*[/\\]/, ''));
+			data = reportDataFromChecks(runDataChecks(d, parsed.table), labelLookup(d), path.replace(/^.*[/\\]/, ''), d);
 		}
 		const question = d.exposures.length > 0 && d.outcomes.length > 0;
 		const analysis = question || EXPORT_FORMATS[format].needsQuestion ? reportAnalysis(d) : { sets: null, check: null, roles: [] };

@@ -78,21 +78,43 @@ export function readMeasure(a: Column, b: Column, main: TestResult, table: TwoWa
 	if (ors && ors.levels.length > 0) {
 		const strongest = ors.levels.reduce((m, l) => (Math.abs(Math.log(l.oddsRatio)) > Math.abs(Math.log(m.oddsRatio)) ? l : m));
 		const name = ors.levels.length === 1 ? 'odds ratio' : `odds ratio, ${ors.variable} = ${strongest.level} vs ${ors.reference.level}`;
-		return { name, value: strongest.oddsRatio, ci: strongest.ci, smallBelow: null };
+		return {
+			name,
+			type: 'odds-ratio',
+			value: strongest.oddsRatio,
+			ci: strongest.ci,
+			smallBelow: null,
+			contrast: { variable: ors.variable, level: strongest.level, reference: ors.reference.level, of: { variable: ors.outcome, level: ors.outcomeLevel } }
+		};
 	}
 	if (table) {
 		const v = main.effects.find((e) => e.name === "Cramér's V");
-		return v ? { name: "Cramér's V", value: v.value, smallBelow: SMALL_STRENGTH } : null;
+		return v ? { name: "Cramér's V", type: 'cramers-v', value: v.value, smallBelow: SMALL_STRENGTH } : null;
 	}
-	const binary = a.kind === 'binary' && b.kind === 'continuous' ? [a, b] : b.kind === 'binary' && a.kind === 'continuous' ? [b, a] : null;
+	const binary = a.kind === 'binary' && b.kind === 'continuous' ? ([a, b] as const) : b.kind === 'binary' && a.kind === 'continuous' ? ([b, a] as const) : null;
 	if (binary) {
 		const d = standardizedDifference(binary[0], binary[1]);
-		if (Number.isFinite(d)) return { name: `standardized difference d (${binary[1].name})`, value: d, smallBelow: 0.2 };
+		const [group, numeric] = binary;
+		if (Number.isFinite(d) && group.kind === 'binary')
+			return {
+				name: `standardized difference d (${numeric.name})`,
+				type: 'standardized-difference',
+				value: d,
+				smallBelow: 0.2,
+				contrast: { variable: group.name, level: group.levels[1], reference: group.levels[0], of: { variable: numeric.name, level: null } }
+			};
 	}
 	const s = associationStrength([main]);
 	if (!s) return null;
 	const e = main.effects[0];
-	return { name: s.name, value: e && /(^| )r$|rho$/.test(e.name) ? e.value : s.value, ...(e?.ci && /(^| )r$/.test(e.name) ? { ci: e.ci } : {}), smallBelow: SMALL_STRENGTH };
+	const isCorrelation = !!e && /(^| )r$|rho$/.test(e.name);
+	return {
+		name: s.name,
+		type: isCorrelation ? 'correlation' : s.name === "Cramér's V" ? 'cramers-v' : 'correlation-ratio',
+		value: isCorrelation ? e.value : s.value,
+		...(e?.ci && /(^| )r$/.test(e.name) ? { ci: e.ci } : {}),
+		smallBelow: SMALL_STRENGTH
+	};
 }
 
 export function checkArrows(diagram: Diagram, columnOf: (name: string) => Column, mapping: VariableMapping, options: ArrowCheckOptions = {}): ArrowChecks {

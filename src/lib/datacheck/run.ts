@@ -19,7 +19,7 @@ import { checkConfounders } from './confounding';
 import { estimateEffects } from './estimates';
 import { dataDiagram, mapVariables } from './mapping';
 import { retypeTable } from './retype';
-import type { ArrowChecks, ClaimChecks, DataCheckReport, MappingOverrides, TypeOverrides, VariableMapping } from './types';
+import type { AnalysedColumn, ArrowChecks, ClaimChecks, DataCheckReport, MappingOverrides, TypeOverrides, VariableMapping } from './types';
 
 export interface DataCheckOptions {
 	/** Variable id → column name (null: leave the variable without data); the rest is matched by name. */
@@ -30,8 +30,8 @@ export interface DataCheckOptions {
 	alpha?: number;
 	/** The planned set for the estimates (default: the diagram's). */
 	planned?: readonly string[];
-	/** Which parts to compute (default all). */
-	parts?: { arrows?: boolean; claims?: boolean; estimates?: boolean };
+	/** Which parts to compute (default all); the confounder check comes with the estimates unless `confounders` is false. */
+	parts?: { arrows?: boolean; claims?: boolean; estimates?: boolean; confounders?: boolean };
 	/** Include the numbers for the pictures beside each arrow check. */
 	pictures?: boolean;
 	maxClaims?: number;
@@ -61,6 +61,23 @@ export function prepareTable(table: Table, types: TypeOverrides = {}): { table: 
 	};
 }
 
+/** Whether every value of the column as read from the file is a number. O(levels). */
+function numbersInFile(c: Column): boolean {
+	return c.kind === 'continuous' || c.levels.every((l) => l.trim() !== '' && Number.isFinite(Number(l)));
+}
+
+/** The linked columns as analysed, in diagram order. O(variables + rows of code-like columns). */
+export function analysedColumns(diagram: Diagram, mapping: VariableMapping, columnOf: (name: string) => Column, original: Table): AnalysedColumn[] {
+	const read = new Map(original.columns.map((c) => [c.name, c]));
+	return diagram.variables.flatMap((v) => {
+		const name = mapping.columns[v.id];
+		if (name === undefined) return [];
+		const c = columnOf(name);
+		const file = read.get(name) ?? c;
+		return [{ variable: v.id, column: name, kind: c.kind, levels: c.kind === 'continuous' ? [] : [...c.levels], numbersInFile: numbersInFile(file), codeValues: categoryCodeValues(c) }];
+	});
+}
+
 export function runDataChecks(diagram: Diagram, table: Table, options: DataCheckOptions = {}): DataCheckReport {
 	const structural = validateDiagram(diagram).find((i) => STRUCTURAL.has(i.code));
 	if (structural) throw new InputError(structural.message);
@@ -71,7 +88,7 @@ export function runDataChecks(diagram: Diagram, table: Table, options: DataCheck
 		options.mapping
 	);
 	const seen = dataDiagram(diagram, mapping);
-	const parts = { arrows: true, claims: true, estimates: true, ...options.parts };
+	const parts = { arrows: true, claims: true, estimates: true, confounders: true, ...options.parts };
 	const alpha = options.alpha ?? 0.05;
 	const arrows: ArrowChecks = parts.arrows ? checkArrows(diagram, columnOf, mapping, { alpha, pictures: options.pictures, onProgress: (d, t) => options.onProgress?.({ stage: 'arrows', fraction: d / t }) }) : { alpha, checks: [], skipped: [] };
 	const claims: ClaimChecks = parts.claims
@@ -79,11 +96,12 @@ export function runDataChecks(diagram: Diagram, table: Table, options: DataCheck
 		: { alpha, checks: [], noTestableClaim: [], tested: 0, contradicted: 0, truncated: false };
 	if (parts.estimates) options.onProgress?.({ stage: 'estimates', fraction: 0 });
 	const est = parts.estimates ? estimateEffects(seen, columnOf, mapping, { planned: options.planned, maxSets: options.maxSets }) : { estimates: null, message: 'Not computed.' };
-	const confounders = parts.estimates ? checkConfounders(seen, columnOf, mapping) : null;
+	const confounders = parts.estimates && parts.confounders ? checkConfounders(seen, columnOf, mapping) : null;
 	const categoryCodes = t.columns.flatMap((c) => {
 		const values = categoryCodeValues(c);
 		return values ? [{ column: c.name, values }] : [];
 	});
+	const columns = analysedColumns(diagram, mapping, columnOf, table);
 	const skippedColumns = t.skipped.map((s) => s.message);
 	return {
 		mapping,
@@ -93,6 +111,8 @@ export function runDataChecks(diagram: Diagram, table: Table, options: DataCheck
 		estimatesMessage: est.message,
 		confounders,
 		categoryCodes,
+		columns,
+		format: { ...t.format },
 		rowCount: t.rowCount,
 		notes: [...mapping.notes, ...skippedColumns]
 	};

@@ -134,7 +134,7 @@ export function runSummaryChecks(diagram: Diagram, s: SummaryStatistics, options
 		main.effects[0] = { ...main.effects[0], name: 'Pearson r' };
 		const strength = associationStrength([main]);
 		const e = main.effects[0];
-		const measure = { name: 'Pearson r', value: e.value, ...(e.ci ? { ci: e.ci } : {}), smallBelow: SMALL_STRENGTH };
+		const measure = { name: 'Pearson r', type: 'correlation' as const, value: e.value, ...(e.ci ? { ci: e.ci } : {}), smallBelow: SMALL_STRENGTH };
 		checks.push({ from: a.from, to: a.to, columns: [cols[a.from], cols[a.to]], kinds: ['continuous', 'continuous'], support: supportOf(main.pValue, strength?.value ?? null, alpha, measure), measure, table: null, main, others: [], strength: strength?.value ?? null, strengthName: strength?.name ?? null, message: null });
 	}
 	const listed = impliedClaims(seen, { max: options.maxClaims === undefined ? undefined : options.maxClaims + 1 });
@@ -155,6 +155,8 @@ export function runSummaryChecks(diagram: Diagram, s: SummaryStatistics, options
 		estimatesMessage: est.message,
 		confounders: null,
 		categoryCodes: [],
+		columns: Object.entries(mapping.columns).map(([variable, column]) => ({ variable, column, kind: 'continuous' as const, levels: [], numbersInFile: true, codeValues: null })),
+		format: null,
 		rowCount: s.n,
 		notes: [`Summary ${s.type} matrix of ${s.names.length} variables, n = ${s.n}.`, ...mapping.notes]
 	};

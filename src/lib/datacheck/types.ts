@@ -4,7 +4,7 @@
  * (numbers, strings, arrays), so it can be posted to a worker and written as JSON.
  */
 import type { Role } from '../causal';
-import type { ColumnKind, TestResult } from '../stats';
+import type { ColumnKind, TableFormat, TestResult } from '../stats';
 import type { PictureData } from './pictures';
 import type { TwoWayTable } from './two-way';
 export type { TwoWayTable } from './two-way';
@@ -17,9 +17,34 @@ export type { TwoWayTable } from './two-way';
  */
 export interface ReadMeasure {
 	name: string;
+	/** Which measure, for the wording: an odds ratio, Cohen's d, a correlation (r or ρ), Cramér's V, or √η² / √ε². */
+	type: 'odds-ratio' | 'standardized-difference' | 'correlation' | 'cramers-v' | 'correlation-ratio';
 	value: number;
 	ci?: readonly [number, number];
 	smallBelow: number | null;
+	/**
+	 * Odds ratio: `level` against `reference` of `variable`, for the odds of `of` (the binary
+	 * column at its second level). d: the group column's `level` against its `reference`, for
+	 * the means of `of.variable`.
+	 */
+	contrast?: { variable: string; level: string; reference: string; of: { variable: string; level: string | null } };
+}
+
+/**
+ * How a linked column was analysed, for stating the kind beside every result and for the
+ * analysis code: its kind, its levels (first = the reference level) and whether the file
+ * holds numbers there (so code reading the file sees numbers, not text).
+ */
+export interface AnalysedColumn {
+	variable: string;
+	column: string;
+	kind: ColumnKind;
+	/** Level labels of a coded column, first = the reference; empty for numbers. */
+	levels: string[];
+	/** True when every value in the file is a number (read as numbers by R, pandas, Stata, SAS). */
+	numbersInFile: boolean;
+	/** Whole numbers 3–10 distinct values analysed as numbers: they look like category codes. */
+	codeValues: number[] | null;
 }
 
 /** How the diagram's variables meet the table's columns. */
@@ -192,6 +217,10 @@ export interface DataCheckReport {
 	confounders: ConfounderChecks | null;
 	/** Numeric columns whose values look like category codes (3–10 whole numbers), with them. */
 	categoryCodes: { column: string; values: number[] }[];
+	/** Each linked column as analysed (diagram order), for kinds beside results and the analysis code. */
+	columns: AnalysedColumn[];
+	/** How the file was read (delimiter, decimal comma); null for a summary matrix. */
+	format: TableFormat | null;
 	estimatesMessage: string | null;
 	rowCount: number;
 	notes: string[];

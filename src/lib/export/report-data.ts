@@ -13,6 +13,77 @@ export interface ReportDataResults {
 	estimates?: ReportEstimate[];
 	/** Free-text remarks shown under the tables (e.g. missing data handling). */
 	notes?: string[];
+	/** Notices shown first, e.g. a column whose values look like category codes. */
+	notices?: string[];
+	/** Arrow checks into and out of the exposure and the outcome, with two-way tables. */
+	arrowChecks?: ReportArrowCheck[];
+	/** The confounder check of each candidate, as text cells. */
+	confounders?: { intro?: string; rows: ReportConfounderRow[]; notes?: string[] };
+	/** Standardized (marginal) estimates of a binary exposure on a binary outcome. */
+	standardized?: ReportStandardized[];
+	/** Analysis code for the planned set, printed as an appendix. */
+	code?: ReportCode[];
+}
+
+/** A table already in words: caption, header and rows of text. */
+export interface ReportTextTable {
+	caption: string;
+	head: string[];
+	rows: string[][];
+}
+
+export interface ReportArrowCheck {
+	/** "Age → Commutes by bicycle". */
+	arrow: string;
+	/** The kind of each column, e.g. "numbers; binary (reference 0)". */
+	kinds: string;
+	/** The size in the measure read, with p and n. */
+	result: string;
+	verdict: string;
+	/** Two discrete columns: counts with row %, then the X² line, then per-level odds ratios. */
+	table?: ReportTextTable & { tests: string[]; oddsRatios?: ReportTextTable };
+}
+
+export interface ReportConfounderRow {
+	candidate: string;
+	kind: string;
+	roles: string;
+	withExposure: string;
+	withOutcome: string;
+	/** Crude → adjusted for the candidate alone, on the same rows. */
+	change: string;
+	/** Mantel–Haenszel odds ratio with its interval, or "". */
+	stratified: string;
+	/** Breslow–Day–Tarone, or "". */
+	homogeneity: string;
+}
+
+export interface ReportStandardized {
+	label: string;
+	adjustedFor: string[];
+	/** Standardized risks with the exposure at its second and first level. */
+	risk1: number;
+	risk0: number;
+	riskDifference: number;
+	rdLower: number;
+	rdUpper: number;
+	riskRatio: number;
+	rrLower: number;
+	rrUpper: number;
+	marginalOddsRatio: number;
+	orLower: number;
+	orUpper: number;
+	/** The model's conditional odds ratio and the crude one on the same rows. */
+	conditionalOddsRatio: number;
+	crudeOddsRatio?: number | null;
+}
+
+export interface ReportCode {
+	/** "R (glm)", "Stata", … */
+	language: string;
+	/** Fence tag for Markdown: r, stata, sas, python. */
+	tag: string;
+	text: string;
 }
 
 export interface ReportDataCheck {
@@ -46,6 +117,13 @@ export interface ReportEstimate {
 	/** Rows used. */
 	n?: number;
 	note?: string;
+	/** The crude estimate on the same rows (with its interval), and the change from it in percent. */
+	crudeSameRows?: number | null;
+	crudeLower?: number | null;
+	crudeUpper?: number | null;
+	changePercent?: number | null;
+	/** The kinds of the adjusted columns, in words. */
+	kinds?: string;
 }
 
 type Json = unknown;
@@ -99,10 +177,62 @@ export function checkReportData(value: Json): ReportDataResults {
 			needString(e, 'measure', p);
 			if (!Array.isArray(e.adjustedFor) || e.adjustedFor.some((x: Json) => typeof x !== 'string')) fail(`${p}.adjustedFor`, 'a list of variable ids', e.adjustedFor);
 			if (typeof e.estimate !== 'number' || !Number.isFinite(e.estimate)) fail(`${p}.estimate`, 'a number', e.estimate);
-			for (const k of ['lower', 'upper', 'level', 'n']) optNumber(e, k, p);
+			for (const k of ['lower', 'upper', 'level', 'n', 'crudeSameRows', 'crudeLower', 'crudeUpper', 'changePercent']) optNumber(e, k, p);
 			needString(e, 'note', p, true);
+			needString(e, 'kinds', p, true);
 		});
 	}
-	if (value.notes !== undefined && (!Array.isArray(value.notes) || value.notes.some((x: Json) => typeof x !== 'string'))) fail('notes', 'a list of texts', value.notes);
+	for (const key of ['notes', 'notices'])
+		if (value[key] !== undefined && (!Array.isArray(value[key]) || (value[key] as Json[]).some((x: Json) => typeof x !== 'string'))) fail(key, 'a list of texts', value[key]);
+	checkNewParts(value);
 	return value as ReportDataResults;
+}
+
+function listOf(value: Json, path: string, each: (item: Record<string, Json>, path: string) => void): void {
+	if (value === undefined) return;
+	if (!Array.isArray(value)) fail(path, 'a list', value);
+	value.forEach((item: Json, i: number) => {
+		const p = `${path}[${i}]`;
+		if (!isObject(item)) fail(p, 'an object', item);
+		each(item, p);
+	});
+}
+
+function textTable(t: Json, path: string): void {
+	if (!isObject(t)) fail(path, 'an object', t);
+	needString(t, 'caption', path);
+	if (!Array.isArray(t.head) || t.head.some((x: Json) => typeof x !== 'string')) fail(`${path}.head`, 'a list of texts', t.head);
+	if (!Array.isArray(t.rows) || t.rows.some((r: Json) => !Array.isArray(r) || r.some((x: Json) => typeof x !== 'string'))) fail(`${path}.rows`, 'a list of rows of texts', t.rows);
+}
+
+/** The parts added for the confounder check: arrow checks, confounders, standardized estimates, code. O(size). */
+function checkNewParts(value: Record<string, Json>): void {
+	listOf(value.arrowChecks, 'arrowChecks', (a, p) => {
+		for (const k of ['arrow', 'kinds', 'result', 'verdict']) needString(a, k, p);
+		if (a.table !== undefined) {
+			textTable(a.table, `${p}.table`);
+			const t = a.table as Record<string, Json>;
+			if (!Array.isArray(t.tests) || t.tests.some((x: Json) => typeof x !== 'string')) fail(`${p}.table.tests`, 'a list of texts', t.tests);
+			if (t.oddsRatios !== undefined) textTable(t.oddsRatios, `${p}.table.oddsRatios`);
+		}
+	});
+	if (value.confounders !== undefined) {
+		if (!isObject(value.confounders)) fail('confounders', 'an object', value.confounders);
+		needString(value.confounders, 'intro', 'confounders', true);
+		listOf(value.confounders.rows, 'confounders.rows', (r, p) => {
+			for (const k of ['candidate', 'kind', 'roles', 'withExposure', 'withOutcome', 'change', 'stratified', 'homogeneity']) needString(r, k, p);
+		});
+		if (!Array.isArray(value.confounders.rows)) fail('confounders.rows', 'a list', value.confounders.rows);
+	}
+	listOf(value.standardized, 'standardized', (s, p) => {
+		needString(s, 'label', p);
+		for (const k of ['risk1', 'risk0', 'riskDifference', 'rdLower', 'rdUpper', 'riskRatio', 'rrLower', 'rrUpper', 'marginalOddsRatio', 'orLower', 'orUpper', 'conditionalOddsRatio']) {
+			if (typeof s[k] !== 'number' || !Number.isFinite(s[k])) fail(`${p}.${k}`, 'a number', s[k]);
+		}
+		optNumber(s, 'crudeOddsRatio', p);
+		if (!Array.isArray(s.adjustedFor) || s.adjustedFor.some((x: Json) => typeof x !== 'string')) fail(`${p}.adjustedFor`, 'a list of variable ids', s.adjustedFor);
+	});
+	listOf(value.code, 'code', (c, p) => {
+		for (const k of ['language', 'tag', 'text']) needString(c, k, p);
+	});
 }

@@ -29,6 +29,8 @@ th, td { text-align: left; vertical-align: top; padding: 0.35rem 0.5rem; border-
 thead th { border-bottom: 1.5px solid #1a1a1a; font-weight: 700; }
 td.num, th.num { text-align: right; font-variant-numeric: tabular-nums; white-space: nowrap; }
 table.facts th { width: 12rem; font-weight: 700; }
+caption { text-align: left; font-style: italic; color: #333; padding-bottom: 0.3rem; }
+pre.code { font: 0.78rem/1.4 "DejaVu Sans Mono", Menlo, Consolas, monospace; background: #f7f7f4; border: 1px solid #d6d6d0; padding: 0.7rem 0.9rem; overflow-x: auto; white-space: pre; }
 figure { margin: 1rem -2rem; text-align: center; break-inside: avoid; page-break-inside: avoid; }
 figcaption { margin-left: 2rem; margin-right: 2rem; }
 figure svg { max-width: 100%; height: auto; }
@@ -46,6 +48,7 @@ footer { margin-top: 2rem; font: 0.8rem Arial, "Liberation Sans", Helvetica, san
   main { margin: 0; padding: 0; border: 0; max-width: none; }
   h2, h3 { break-after: avoid; page-break-after: avoid; }
   tr, li, .verdict { break-inside: avoid; page-break-inside: avoid; }
+  pre.code { white-space: pre-wrap; overflow-wrap: anywhere; }
   .draft { border-style: solid; }
   figure { margin: 0.8rem 0; }
   figcaption { margin-left: 0; margin-right: 0; }
@@ -73,6 +76,8 @@ function blockHtml(b: Block): string {
 				.split(/\n\s*\n/)
 				.map((p) => `<p>${h(p).replace(/\n/g, '<br>')}</p>`)
 				.join('')}</div>`;
+		case 'code':
+			return `<pre class="code" aria-label="${h(b.language)} code"><code>${h(b.text)}</code></pre>`;
 		case 'figure':
 			return `<figure>${inlineSvg(b.svg)}<figcaption>${h(b.caption)}</figcaption></figure>`;
 		case 'table': {
@@ -80,7 +85,7 @@ function blockHtml(b: Block): string {
 			if (b.head.every((x) => x === '')) {
 				return `<table class="facts"><tbody>${b.rows.map((r) => `<tr><th scope="row">${h(r[0])}</th>${r.slice(1).map((c) => `<td>${h(c)}</td>`).join('')}</tr>`).join('')}</tbody></table>`;
 			}
-			return `<table><thead><tr>${b.head.map((c, i) => `<th scope="col"${num(i)}>${h(c)}</th>`).join('')}</tr></thead><tbody>${b.rows
+			return `<table>${b.caption ? `<caption>${h(b.caption)}</caption>` : ''}<thead><tr>${b.head.map((c, i) => `<th scope="col"${num(i)}>${h(c)}</th>`).join('')}</tr></thead><tbody>${b.rows
 				.map((r) => `<tr>${r.map((c, i) => `<td${num(i)}>${h(c)}</td>`).join('')}</tr>`)
 				.join('')}</tbody></table>`;
 		}

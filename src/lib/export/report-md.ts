@@ -37,7 +37,14 @@ function blockMd(b: Block, opts: MarkdownOptions): string {
 		case 'table': {
 			if (b.head.every((h) => h === '')) return b.rows.map((r) => `- **${escapeMarkdown(r[0])}:** ${escapeMarkdown(r.slice(1).join(' '))}`).join('\n');
 			const align = b.head.map((_, i) => (b.numeric?.[i] ? '---:' : '---'));
-			return [`| ${b.head.map(cell).join(' | ')} |`, `| ${align.join(' | ')} |`, ...b.rows.map((r) => `| ${r.map(cell).join(' | ')} |`)].join('\n');
+			const table = [`| ${b.head.map(cell).join(' | ')} |`, `| ${align.join(' | ')} |`, ...b.rows.map((r) => `| ${r.map(cell).join(' | ')} |`)].join('\n');
+			return b.caption ? `*${escapeMarkdown(b.caption)}*\n\n${table}` : table;
+		}
+		case 'code': {
+			// A fence longer than any run of backticks in the code, so the code cannot close it.
+			const longest = Math.max(2, ...(b.text.match(/`+/g) ?? []).map((r) => r.length));
+			const fence = '`'.repeat(longest + 1);
+			return `${fence}${b.tag}\n${b.text.replace(/\n$/, '')}\n${fence}`;
 		}
 	}
 }

@@ -14,13 +14,15 @@ import { ROLE_NAME } from '../wording';
 import { BADGE_MEANING, labelLookup, listNames, optimalSetSentence, pathText, problemText, setText, verdictSentence, type LabelOf } from '../wording';
 import { criticalAbsentArrows, withPlannedReasons, type AbsentArrowReport } from '../causal';
 import type { ReportDataResults } from './report-data';
+import { codeBlocks, dataBlocks } from './report-data-blocks';
 import { writeSvg } from './svg';
 import { SOFTWARE_NAME, SOFTWARE_VERSION } from './version';
 
 export type Block =
 	| { kind: 'paragraph'; text: string }
 	| { kind: 'list'; items: string[] }
-	| { kind: 'table'; head: string[]; rows: string[][]; numeric?: boolean[] }
+	| { kind: 'table'; head: string[]; rows: string[][]; numeric?: boolean[]; caption?: string }
+	| { kind: 'code'; language: string; tag: string; text: string }
 	| { kind: 'figure'; svg: string; caption: string }
 	| { kind: 'subheading'; text: string }
 	| { kind: 'verdict'; valid: boolean; text: string }
@@ -84,16 +86,7 @@ const ROLE_WORD: Record<Role, string> = { ...ROLE_NAME, unrelated: 'unrelated to
 export const isoDate = (date: Date) =>
 	`${date.getFullYear()}-${String(date.getMonth() + 1).padStart(2, '0')}-${String(date.getDate()).padStart(2, '0')}`;
 
-/** Numbers for display: three significant digits, p-values below 0.001 as "< 0.001". */
-export function formatNumber(x: number | null | undefined): string {
-	if (x === null || x === undefined || !Number.isFinite(x)) return '–';
-	if (x !== 0 && Math.abs(x) < 1e-4) return x.toExponential(1);
-	return String(Number(x.toPrecision(3)));
-}
-export function formatP(p: number | null | undefined): string {
-	if (p === null || p === undefined || !Number.isFinite(p)) return '–';
-	return p < 0.001 ? '< 0.001' : p.toFixed(3);
-}
+export { formatNumber, formatP } from './report-data-blocks';
 
 const rolesOf = (id: string, roles: readonly VariableRoles[]) => roles.find((r) => r.id === id)?.roles ?? [];
 
@@ -334,57 +327,7 @@ export function buildReport(input: ReportInput): ReportModel {
 		heading: 'Software',
 		blocks: [{ kind: 'paragraph', text: `Made with ${SOFTWARE_NAME} ${SOFTWARE_VERSION} on ${isoDate(date)}. ${METHODS}` }]
 	});
+	// 11. Appendix: the analysis code for the planned set
+	if (input.data?.code?.length) sections.push({ id: 'code', heading: 'Appendix: analysis code', blocks: codeBlocks(input.data.code) });
 	return { title, meta: `${SOFTWARE_NAME} ${SOFTWARE_VERSION} · ${isoDate(date)}`, sections };
-}
-
-function dataBlocks(data: ReportDataResults, label: LabelOf): Block[] {
-	const blocks: Block[] = [];
-	const s = data.source;
-	if (s && (s.name || s.rows !== undefined)) {
-		const parts = [s.name ? `Data: ${s.name}` : 'Data', s.rows !== undefined ? `${s.rows} rows` : '', s.columns !== undefined ? `${s.columns} columns` : ''].filter(Boolean);
-		blocks.push({ kind: 'paragraph', text: `${parts.join(', ')}.` });
-	}
-	if (data.checks?.length) {
-		blocks.push({ kind: 'subheading', text: 'Checks of the independencies the diagram implies' });
-		blocks.push({
-			kind: 'paragraph',
-			text: 'Each row tests one independence that the diagram implies. "Not consistent" means the data contradict it, which points to a missing arrow or another wrong assumption; "consistent" does not prove the diagram right.'
-		});
-		const adjusted = data.checks.some((c) => c.adjustedP !== undefined && c.adjustedP !== null);
-		blocks.push({
-			kind: 'table',
-			head: ['Implied independence', 'Test', 'Statistic', 'df', 'p', ...(adjusted ? ['Adjusted p'] : []), 'Data'],
-			numeric: [false, false, true, true, true, ...(adjusted ? [true] : []), false],
-			rows: data.checks.map((c) => [
-				c.statement,
-				c.test,
-				formatNumber(c.statistic),
-				c.df === null || c.df === undefined ? '–' : Array.isArray(c.df) ? c.df.join(', ') : String(c.df),
-				formatP(c.pValue),
-				...(adjusted ? [formatP(c.adjustedP)] : []),
-				(c.verdict === 'consistent' ? 'consistent' : c.verdict === 'inconsistent' ? 'not consistent' : 'not tested') + (c.detail ? ` (${c.detail})` : '')
-			])
-		});
-	}
-	if (data.estimates?.length) {
-		blocks.push({ kind: 'subheading', text: 'Effect estimates' });
-		blocks.push({
-			kind: 'table',
-			head: ['Estimate', 'Adjusted for', 'Measure', 'Value', 'Interval', 'Rows'],
-			numeric: [false, false, false, true, true, true],
-			rows: data.estimates.map((e) => [
-				e.label + (e.note ? ` (${e.note})` : ''),
-				e.adjustedFor.length ? listNames(e.adjustedFor.map(label)) : 'nothing',
-				e.measure,
-				formatNumber(e.estimate),
-				e.lower !== undefined && e.lower !== null && e.upper !== undefined && e.upper !== null
-					? `${formatNumber(e.lower)} to ${formatNumber(e.upper)} (${Math.round((e.level ?? 0.95) * 100)} %)`
-					: '–',
-				e.n === undefined ? '–' : String(e.n)
-			])
-		});
-	}
-	for (const note of data.notes ?? []) blocks.push({ kind: 'paragraph', text: note });
-	if (blocks.length === 0) blocks.push({ kind: 'paragraph', text: 'Data were loaded, but no checks or estimates were made.' });
-	return blocks;
 }

@@ -10,7 +10,7 @@ export const SUPPORT_TEXT: Record<ArrowSupport, string> = {
 
 export const SUPPORT_EXPLAIN: Record<ArrowSupport, string> = {
 	supported: 'the data show an association of at least small size (p below the level)',
-	weak: 'detectable but smaller than a small association (strength under 0.1)',
+	weak: 'detectable, but below Cohen\'s (1988) "small" size in the measure shown (|r| or V under 0.1, |d| under 0.2; a rule of thumb); odds ratios are never called weak',
 	absent: 'no association detected at this level — not proof that the arrow is absent',
 	untested: 'the test could not run'
 };

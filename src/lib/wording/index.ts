@@ -12,3 +12,6 @@ export * from './claims';
 export * from './data';
 export * from './review';
 export * from './confounding';
+export * from './measures';
+export * from './two-way';
+export * from './analysis-code';

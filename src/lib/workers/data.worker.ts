@@ -84,7 +84,7 @@ function check(request: Extract<DataRequest, { kind: 'check' }>): void {
 				}
 			});
 			if (report === null) report = r;
-			else if (part === 'estimates') report = { ...report, estimates: r.estimates, estimatesMessage: r.estimatesMessage };
+			else if (part === 'estimates') report = { ...report, estimates: r.estimates, estimatesMessage: r.estimatesMessage, confounders: r.confounders };
 			else report = { ...report, claims: r.claims };
 			const pending = order.slice(k + 1);
 			if (pending.length > 0) post({ id, kind: 'partial', report, pending });

@@ -35,7 +35,7 @@ describe('causeway test', () => {
 	it('prints arrow checks and claims with Holm and BH, and the caution', async () => {
 		const r = await run(['test', DEMO, DEMO_CSV]);
 		expect(r.code).toBe(0);
-		expect(r.out).toMatch(/cycling → fitness\s+supported\s+point-biserial r = 0\.567/);
+		expect(r.out).toMatch(/cycling → fitness\s+supported\s+d = 1\.45: mean fitness is 1\.45 SD higher at cycling = 1 than at 0/);
 		expect(r.out).toMatch(/health_consciousness → cycling: not checked \(no data for "health_consciousness"\)/);
 		expect(r.out).toMatch(/Claim checks: 46 tested, 0 contradicted/);
 		expect(r.out).toMatch(/Holm [\d.]+, BH [\d.]+, n = 5000/);
@@ -71,7 +71,7 @@ describe('causeway estimate', () => {
 		const r = await run(['estimate', DEMO, DEMO_CSV]);
 		expect(r.code).toBe(0);
 		expect(r.out).toMatch(/Effect of cycling on hypertension: odds ratio \(logistic regression\)/);
-		expect(r.out).toMatch(/Crude \(no adjustment\)\s+0\.474 \(0\.411 to 0\.546\), n = 5000/);
+		expect(r.out).toMatch(/Crude \(no adjustment\)\s+0\.474 \(0\.411 to 0\.546\), n = 5,000/);
 		expect(r.out).toMatch(/common-practice marker/);
 		expect(r.out).toMatch(/E-value of the planned estimate: 1\.88/);
 	});

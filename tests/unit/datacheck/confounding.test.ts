@@ -12,7 +12,7 @@ import { describe, expect, it } from 'vitest';
 import { runDataChecks } from '../../../src/lib/datacheck';
 import type { Diagram } from '../../../src/lib/graph/diagram';
 import { expectAllClose, expectClose, fixture } from '../stats/fixtures';
-import { readTable } from './helpers';
+import { readTable, tableOf } from './helpers';
 
 const R = fixture('confounding.json');
 const stats = fileURLToPath(new URL('../../fixtures/stats/', import.meta.url));
@@ -66,6 +66,28 @@ describe('confounder check on UCBAdmissions (against R)', () => {
 		expect(planned.crudeSameRowsCi).toHaveLength(2);
 		// The change is computed on the numbers shown.
 		expectClose(planned.changePercent!, (planned.estimate / planned.crudeSameRows! - 1) * 100, 1e-9);
+	});
+});
+
+describe('"weak" is not decided on Cramér\'s V when an odds ratio is read', () => {
+	it('an odds ratio of 1.62 (p < 0.001) with a rare outcome is supported, though V < 0.1 (the issue\'s example, built here)', () => {
+		// 20,000 unexposed with 400 events (2 %), 20,000 exposed with 640 (3.2 %): OR = (640·19,600)/(400·19,360) ≈ 1.62.
+		const lines = ['x,y'];
+		for (const [x, events] of [
+			[0, 400],
+			[1, 640]
+		])
+			for (let i = 0; i < 20000; i++) lines.push(`${x},${i < events ? 1 : 0}`);
+		const d: Diagram = { title: 'rare', variables: ['x', 'y'].map((id) => ({ id, label: id, measured: true })), arrows: [{ from: 'x', to: 'y' }], exposures: [], outcomes: [], adjusted: [] };
+		const report = runDataChecks(d, tableOf(lines.join('\n')), { parts: { claims: false, estimates: false } });
+		const c = report.arrows.checks[0];
+		expect(c.main!.pValue).toBeLessThan(0.001);
+		const v = [c.main!, ...c.others].flatMap((t) => t.effects).find((e) => e.name === "Cramér's V")!.value;
+		expect(v).toBeLessThan(0.1);
+		expect(c.measure!.type).toBe('odds-ratio');
+		// Logistic regression (IRLS) against the closed-form 2 × 2 odds ratio.
+		expectClose(c.measure!.value, (640 * 19600) / (400 * 19360), 1e-6);
+		expect(c.support).toBe('supported');
 	});
 });
 
