@@ -7,7 +7,7 @@
 // contrast of the section at least 4.5:1. Screenshots go to test-results/.
 import { expect, test, type Page } from '@playwright/test';
 import { readFileSync } from 'node:fs';
-import { counts } from './helpers';
+import { counts, openSection } from './helpers';
 
 async function openDemo(page: Page) {
 	await page.addInitScript(() => {
@@ -19,10 +19,19 @@ async function openDemo(page: Page) {
 	await expect.poll(async () => (await page.evaluate(() => !!window.__causewayCanvas)) && (await counts(page)).variables, { timeout: 20_000 }).toBe(13);
 }
 
+/** The Data section starts closed and loads its code when opened; by keyboard here. */
+async function openDataByKeyboard(page: Page) {
+	await page.locator('#data-heading button').focus();
+	await page.keyboard.press('Enter');
+	await expect(page.locator('#data-heading button')).toHaveAttribute('aria-expanded', 'true');
+	await expect(page.locator('#data-heading button')).toBeFocused();
+}
+
 const data = (page: Page) => page.locator('section[data-section="data"]');
 const candidate = (page: Page, id: string) => data(page).locator(`tbody[data-candidate="${id}"]`);
 
 async function loadDemoData(page: Page) {
+	await openSection(page, 'data');
 	await data(page).getByRole('button', { name: 'Load demo data' }).click();
 	await expect(data(page).getByTestId('confounder-table')).toBeVisible({ timeout: 30_000 });
 }
@@ -119,6 +128,7 @@ test('analysis code: pick a set and a language, copy and download it', async ({ 
 
 test('a 0/1/2/3-coded column: the notice names it, its kind is stated beside each result, one click makes it categories', async ({ page }) => {
 	await openDemo(page);
+	await openSection(page, 'data');
 	const chooser = page.waitForEvent('filechooser');
 	await data(page).getByRole('button', { name: 'Load data file…' }).click();
 	await (await chooser).setFiles({ name: 'coded-income.csv', mimeType: 'text/csv', buffer: codedIncomeCsv() });
@@ -143,6 +153,7 @@ test('keyboard only: open a candidate’s details and copy the analysis code', a
 	await context.grantPermissions(['clipboard-read', 'clipboard-write']);
 	await openDemo(page);
 	const section = data(page);
+	await openDataByKeyboard(page);
 	await section.getByRole('button', { name: 'Load demo data' }).focus();
 	await page.keyboard.press('Enter');
 	await expect(section.getByTestId('confounder-table')).toBeVisible({ timeout: 30_000 });
