@@ -77,7 +77,7 @@ async function main(): Promise<void> {
 			try {
 				await section('5', async () =>
 					browser && server
-						? benchEditor(browser, server.url, quick ? [50] : [50, 300, 1_000], quick ? 200 : 500, quick ? 1 : 3)
+						? benchEditor(browser, server.url, quick ? [50] : [50, 300, 1_000], quick ? 200 : 500, quick ? 1 : 5)
 						: { title: '5. The editor', rows: [], skipped: noBrowser }
 				);
 				await section('6', () => benchBundle(built, browser, server?.url ?? null, quick ? 1 : 3, noBrowser));

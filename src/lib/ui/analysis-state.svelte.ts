@@ -18,6 +18,8 @@ export class AnalysisState {
 	error = $state<string | null>(null);
 	where = $state<'main' | 'worker' | null>(null);
 	lastMs = $state(0);
+	/** Counts the results shown (each edit's first result included), for benchmarks and tests. */
+	serial = $state(0);
 
 	/**
 	 * Roles for the canvas badges: the latest computed, kept while the roles of a changed
@@ -33,6 +35,7 @@ export class AnalysisState {
 			{
 				result: (a, info) => {
 					this.analysis = a;
+					this.serial++;
 					if (!a.ready) this.roles = NO_ROLES;
 					else if (!a.setsPending) this.roles = new Map(a.roles.map((r) => [r.id, r.roles]));
 					this.status = info.busy ? 'working' : 'idle';
