@@ -12,3 +12,4 @@ export * from './claims';
 export * from './data';
 export * from './review';
 export * from './confounding';
+export * from './study';
