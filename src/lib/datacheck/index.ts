@@ -20,3 +20,7 @@ export type { PictureData, BarsPicture, ScatterPicture, BoxPicture, BoxStats } f
 export type * from './types';
 export { describeTable, columnInfo } from './table-info';
 export type { ColumnInfo, TableInfo } from './table-info';
+export { rematchDifferences } from './rematch';
+export type { Rematch } from './rematch';
+export { dataView } from './data-view';
+export type { DataView } from './data-view';

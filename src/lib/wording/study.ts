@@ -4,6 +4,7 @@
  * for the diagram as the data see it. Shared by the editor's commands, the app and the CLI.
  */
 import type { DataKind, VariableData } from '../graph/diagram';
+import type { Rematch } from '../datacheck/rematch';
 
 const q = (s: string) => `"${s}"`;
 
@@ -42,4 +43,25 @@ export const STUDY_TEXT = {
 	referenceSet: (reference: string | undefined) => (reference === undefined ? 'first level as reference' : `reference level ${q(reference)}`),
 	labelsSet: 'value labels',
 	otherSettings: 'data settings'
+} as const;
+
+/** The differences after a kept table met another diagram, as sentences for the Data section. */
+export function rematchSentences(r: Rematch): string[] {
+	const out: string[] = [];
+	const linked = r.linked.map((l) => `${l.label} ← ${q(l.column)}${l.before !== null && l.before !== l.label ? ` (was ${l.before})` : ''}`);
+	out.push(linked.length ? `${r.source} was matched again to this diagram: ${linked.join(', ')}.` : `${r.source} was matched again to this diagram, but no variable found a column.`);
+	if (r.unlinked.length) out.push(`No column for ${r.unlinked.join(', ')}: treated as unmeasured by the data checks.`);
+	if (r.dropped.length) out.push(`No longer used: ${r.dropped.map((x) => `${q(x.column)} (was ${x.before})`).join(', ')}.`);
+	return out;
+}
+
+/** The Adjustment section's second verdict, for the diagram as the data see it. */
+export const DATA_VIEW_TEXT = {
+	heading: 'For the diagram as the data see it',
+	diagramHeading: 'For the diagram',
+	why: (source: string, names: string) => `${source} has no column for ${names}, so the data checks and estimates treat ${names.includes(',') || names.includes(' and ') ? 'them' : 'it'} as unmeasured.`,
+	sameVerdict: 'The verdict is the same.',
+	differs: 'The verdict differs: the estimates in the Data section follow this one.',
+	setsWithData: (sets: string) => `Sufficient with the variables that have data: ${sets}.`,
+	noSetWithData: 'No set of variables with data is sufficient: every adjusted estimate stays biased under the diagram.'
 } as const;
