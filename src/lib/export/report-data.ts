@@ -13,6 +13,21 @@ export interface ReportDataResults {
 	estimates?: ReportEstimate[];
 	/** Free-text remarks shown under the tables (e.g. missing data handling). */
 	notes?: string[];
+	/** How each variable met the data: its column, the kind it was analysed as, its reference level. */
+	columns?: ReportDataColumn[];
+	/** The commands that reproduce the checks and estimates from the saved diagram file and the data file. */
+	reproduce?: { diagramFile: string; dataFile: string; commands: string[] };
+}
+
+export interface ReportDataColumn {
+	/** Variable id (shown by its label). */
+	variable: string;
+	column: string;
+	kind: string;
+	/** True when the kind was chosen (saved in the diagram), false when detected. */
+	chosen: boolean;
+	/** The reference level of a coded column, null for a numeric one. */
+	reference?: string | null;
 }
 
 export interface ReportDataCheck {
@@ -104,5 +119,21 @@ export function checkReportData(value: Json): ReportDataResults {
 		});
 	}
 	if (value.notes !== undefined && (!Array.isArray(value.notes) || value.notes.some((x: Json) => typeof x !== 'string'))) fail('notes', 'a list of texts', value.notes);
+	if (value.columns !== undefined) {
+		if (!Array.isArray(value.columns)) fail('columns', 'a list', value.columns);
+		value.columns.forEach((c: Json, i: number) => {
+			const p = `columns[${i}]`;
+			if (!isObject(c)) fail(p, 'an object', c);
+			for (const k of ['variable', 'column', 'kind']) needString(c, k, p);
+			if (typeof c.chosen !== 'boolean') fail(`${p}.chosen`, 'true or false', c.chosen);
+		});
+	}
+	if (value.reproduce !== undefined) {
+		const r = value.reproduce;
+		if (!isObject(r)) fail('reproduce', 'an object', r);
+		needString(r, 'diagramFile', 'reproduce');
+		needString(r, 'dataFile', 'reproduce');
+		if (!Array.isArray(r.commands) || r.commands.some((x: Json) => typeof x !== 'string')) fail('reproduce.commands', 'a list of texts', r.commands);
+	}
 	return value as ReportDataResults;
 }

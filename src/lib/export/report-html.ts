@@ -13,6 +13,7 @@ export const REPORT_CSP = "default-src 'none'; style-src 'unsafe-inline'; img-sr
 const CSS = `
 :root { color-scheme: light; }
 * { box-sizing: border-box; }
+pre.commands { background: #f1f1ec; border: 1px solid #d6d6d0; border-radius: 4px; padding: 0.5em 0.8em; overflow-x: auto; font: 13px/1.5 "DejaVu Sans Mono", monospace; }
 body { margin: 0; background: #f4f4f0; color: #1a1a1a; font: 15px/1.55 "Source Serif Pro", Georgia, "DejaVu Serif", serif; }
 main { max-width: 52rem; margin: 2rem auto; background: #fff; padding: 2.5rem 3rem 2rem; border: 1px solid #d6d6d0; }
 header { border-bottom: 2px solid #1a1a1a; margin-bottom: 1.5rem; padding-bottom: 0.8rem; }
@@ -73,6 +74,8 @@ function blockHtml(b: Block): string {
 				.split(/\n\s*\n/)
 				.map((p) => `<p>${h(p).replace(/\n/g, '<br>')}</p>`)
 				.join('')}</div>`;
+		case 'code':
+			return `<pre class="commands"><code>${h(b.text)}</code></pre>`;
 		case 'figure':
 			return `<figure>${inlineSvg(b.svg)}<figcaption>${h(b.caption)}</figcaption></figure>`;
 		case 'table': {

@@ -34,6 +34,11 @@ function blockMd(b: Block, opts: MarkdownOptions): string {
 			const target = opts.figureFile ? encodeURI(opts.figureFile) : `data:image/svg+xml;base64,${bytesToBase64(new TextEncoder().encode(b.svg))}`;
 			return `![${escapeMarkdown(b.caption)}](${target})\n\n*${escapeMarkdown(b.caption)}*`;
 		}
+		case 'code': {
+			// A fence longer than any run of backticks in the text (CommonMark §4.5).
+			const fence = '`'.repeat(Math.max(3, ...[...b.text.matchAll(/`+/g)].map((m) => m[0].length + 1)));
+			return `${fence}sh\n${b.text}\n${fence}`;
+		}
 		case 'table': {
 			if (b.head.every((h) => h === '')) return b.rows.map((r) => `- **${escapeMarkdown(r[0])}:** ${escapeMarkdown(r.slice(1).join(' '))}`).join('\n');
 			const align = b.head.map((_, i) => (b.numeric?.[i] ? '---:' : '---'));

@@ -16,6 +16,7 @@ import { criticalAbsentArrows, withPlannedReasons, type AbsentArrowReport } from
 import type { ReportDataResults } from './report-data';
 import { writeSvg } from './svg';
 import { SOFTWARE_NAME, SOFTWARE_VERSION } from './version';
+import { arrowNoteBlocks, reproducibilityBlocks, settingsColumn } from './report-study';
 
 export type Block =
 	| { kind: 'paragraph'; text: string }
@@ -24,7 +25,8 @@ export type Block =
 	| { kind: 'figure'; svg: string; caption: string }
 	| { kind: 'subheading'; text: string }
 	| { kind: 'verdict'; valid: boolean; text: string }
-	| { kind: 'draft'; text: string; hint: string };
+	| { kind: 'draft'; text: string; hint: string }
+	| { kind: 'code'; text: string };
 
 export interface ReportSection {
 	id: string;
@@ -241,20 +243,21 @@ export function buildReport(input: ReportInput): ReportModel {
 	});
 
 	// 3. Variables
+	const settings = settingsColumn(d);
 	sections.push({
 		id: 'variables',
 		heading: 'Variables',
 		blocks: [
 			{
 				kind: 'table',
-				head: ['Variable', 'Id', 'Measured', 'Role for the question', 'Adjusted for', 'Note'],
+				head: ['Variable', 'Id', 'Measured', 'Role for the question', 'Adjusted for', 'Note', ...(settings ? [settings.head] : [])],
 				rows: d.variables.map((v) => {
 					const words = rolesOf(v.id, a.roles).map((r) => ROLE_WORD[r]);
 					if (!words.length) {
 						if (d.exposures.includes(v.id)) words.push('exposure');
 						if (d.outcomes.includes(v.id)) words.push('outcome');
 					}
-					return [v.label, v.id, v.measured ? 'yes' : 'no', words.join(', ') || '–', d.adjusted.includes(v.id) ? 'yes' : 'no', v.note ?? ''];
+					return [v.label, v.id, v.measured ? 'yes' : 'no', words.join(', ') || '–', d.adjusted.includes(v.id) ? 'yes' : 'no', v.note ?? '', ...(settings ? [settings.cell(v.id)] : [])];
 				})
 			}
 		]
@@ -268,6 +271,7 @@ export function buildReport(input: ReportInput): ReportModel {
 			? { kind: 'list', items: arrowSentences(d, label) }
 			: { kind: 'paragraph', text: 'The diagram has no arrows: every pair of variables is assumed to have no direct effect on each other.' }
 	);
+	assumptions.push(...arrowNoteBlocks(d, label));
 	assumptions.push({ kind: 'subheading', text: 'Absent arrows the adjustment depends on' });
 	if (a.sets && a.check && a.sets.identifiable) {
 		const limit = input.maxAbsentArrows ?? 10;
@@ -344,6 +348,7 @@ function dataBlocks(data: ReportDataResults, label: LabelOf): Block[] {
 		const parts = [s.name ? `Data: ${s.name}` : 'Data', s.rows !== undefined ? `${s.rows} rows` : '', s.columns !== undefined ? `${s.columns} columns` : ''].filter(Boolean);
 		blocks.push({ kind: 'paragraph', text: `${parts.join(', ')}.` });
 	}
+	blocks.push(...reproducibilityBlocks(data, label));
 	if (data.checks?.length) {
 		blocks.push({ kind: 'subheading', text: 'Checks of the independencies the diagram implies' });
 		blocks.push({

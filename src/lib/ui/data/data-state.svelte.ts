@@ -42,6 +42,8 @@ export class DataState {
 	error = $state<string | null>(null);
 	/** After a kept table met another diagram: what the new matching links, and what it lost. */
 	rematch = $state.raw<Rematch | null>(null);
+	/** The data file's own name (for the report's reproduction commands); null for a pasted matrix. */
+	fileName = $state<string | null>(null);
 	lastMs = $state(0);
 	/** Parts of the shown report still being computed (claims take longest on large tables). */
 	pending = $state.raw<readonly DataPart[]>([]);
@@ -51,6 +53,7 @@ export class DataState {
 	#key: string | null = null;
 	/** How the table met the diagram before another one came, until the kept table is matched again. */
 	#before: { diagram: Diagram; report: DataCheckReport } | null = null;
+	#loadingFile: string | null = null;
 	#timer: ReturnType<typeof setTimeout> | null = null;
 
 	constructor(createWorker?: () => Worker) {
@@ -59,6 +62,7 @@ export class DataState {
 				loadProgress: (p) => (this.loadProgress = p),
 				loaded: (info) => {
 					this.info = info;
+					this.fileName = this.#loadingFile;
 					this.summary = null;
 					this.#forgetRematch();
 					this.loadProgress = null;
@@ -106,6 +110,7 @@ export class DataState {
 	load(source: DataSource): void {
 		this.error = null;
 		this.loadingName = source.kind === 'file' ? source.file.name : source.name;
+		this.#loadingFile = source.kind === 'file' ? source.file.name : decodeURIComponent(source.url.replace(/[?#].*$/, '').replace(/^.*\//, ''));
 		this.loadProgress = { characters: 0, rows: 0, fraction: 0 };
 		this.status = 'loading';
 		this.#runner.load(source);
@@ -132,6 +137,7 @@ export class DataState {
 		}
 		this.#runner.clear();
 		this.info = null;
+		this.fileName = null;
 		this.summary = { name, stats };
 		this.#forgetRematch();
 		this.report = null;
@@ -142,6 +148,7 @@ export class DataState {
 	clear(): void {
 		this.#runner.clear();
 		this.info = null;
+		this.fileName = null;
 		this.summary = null;
 		this.report = null;
 		this.reportKey = null;
