@@ -25,10 +25,16 @@ export const MAX_VARIABLES = 2_000;
 export const MAX_ARROWS = 10_000;
 /** Longest diagram file, in characters of text (UTF-16 code units, about bytes for ASCII). */
 export const MAX_DIAGRAM_CHARS = 5 * 1024 * 1024;
-/** Longest variable id, label and diagram title, in characters. */
+/** Longest variable id, label and diagram title, in characters (also a data column name, reference level, value and value label). */
 export const MAX_LABEL_CHARS = 1_000;
-/** Longest variable note, in characters. */
+/** Longest variable or arrow note, in characters. */
 export const MAX_NOTE_CHARS = 100_000;
+/**
+ * Most value labels one variable may carry. A coded column has at most a few dozen levels
+ * (the table reader leaves out text columns of more than 20 by default); 500 is room for
+ * hand-made code lists while keeping a file's labels drawable in the Data section.
+ */
+export const MAX_VALUE_LABELS = 500;
 
 /** Deepest nesting of { } in a DOT file (subgraphs, node groups); diagrams use two or three. */
 export const MAX_DOT_NESTING = 100;

@@ -150,7 +150,7 @@ test('keyboard only: load the demo data, change a column link, pin an arrow chec
 	await page.keyboard.press('Enter');
 	await expect(section.getByTestId('estimates-table')).toBeVisible({ timeout: 20_000 });
 	// Open the Columns part and unlink Diet quality with the keyboard.
-	const columns = section.locator('details.part').first().locator('summary');
+	const columns = section.locator('details.part').first().locator('> summary');
 	await columns.focus();
 	await page.keyboard.press('Enter');
 	const select = section.getByRole('combobox', { name: 'Column for Diet quality' });

@@ -1,7 +1,9 @@
 /**
  * What `causeway test` and `causeway estimate` share: reading DIAGRAM and DATA (two
  * positionals), the --map / --type / --summary options, and running the same pipeline as
- * the app (src/lib/datacheck). Every bad input becomes one UsageError/InputError line.
+ * the app (src/lib/datacheck). The diagram file's data settings (each variable's column,
+ * kind, reference level, value labels) are used as the app used them; --map and --type
+ * override them. Every bad input becomes one UsageError/InputError line.
  */
 import { createReadStream } from 'node:fs';
 import { readFile, stat } from 'node:fs/promises';
@@ -9,7 +11,7 @@ import type { Diagram } from '../../lib/graph/diagram';
 import { InputError } from '../../lib/graph/errors';
 import { readDiagramText } from '../../lib/graph/read-file';
 import { parseTable, parseTableStream, StatsError, type ColumnKind, type TableSource } from '../../lib/stats';
-import { parseSummaryMatrix, runDataChecks, runSummaryChecks, type DataCheckOptions, type DataCheckReport } from '../../lib/datacheck';
+import { parseSummaryMatrix, runDataChecks, runSummaryChecks, SETTINGS_WHERE, type DataCheckOptions, type DataCheckReport } from '../../lib/datacheck';
 import { UsageError } from '../io';
 import type { Context, Options } from '../command';
 
@@ -21,10 +23,12 @@ export const DATA_OPTIONS: Options = {
 
 export const DATA_HELP = `DATA is a CSV or TSV file with a header row (delimiter, decimal comma and missing values
 "", NA, ".", NaN are detected), or with --summary a correlation or covariance matrix with n.
-Columns are matched to variables by id or label, ignoring case and punctuation; variables
-without a column are treated as unmeasured for the checks.
-  --map var=column,…      link variables to columns by hand (var= leaves it without data)
-  --type column=kind,…    column kind: binary, categorical, ordinal or continuous
+The diagram file's data settings are used (each variable's column, kind, reference level and
+value labels, as saved by the app); a setting the data cannot honour stops the command.
+Other variables are matched to columns by id or label, ignoring case and punctuation;
+variables without a column are treated as unmeasured for the checks.
+  --map var=column,…      link variables to columns, over the file (var= leaves it without data)
+  --type column=kind,…    column kind, over the file: binary, categorical, ordinal or continuous
   --summary               DATA is a summary matrix (see docs/data.md)`;
 
 const KINDS = new Set<ColumnKind>(['binary', 'categorical', 'ordinal', 'continuous']);
@@ -95,6 +99,7 @@ export async function runOnData(ctx: Context, usage: string, extra: Partial<Data
 		return { diagram, dataName: dataPath, report: runDataChecks(diagram, parsed.table, { mapping, types, ...extra }) };
 	} catch (e) {
 		if (e instanceof StatsError) throw new InputError(where(e));
+		if (e instanceof InputError && e.where === SETTINGS_WHERE) throw new InputError(`${where(e)} (--map overrides the diagram's link)`);
 		throw e;
 	}
 }

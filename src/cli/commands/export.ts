@@ -146,7 +146,10 @@ ${QUESTION_HELP}`,
 				const e = parsed.error;
 				throw new InputError(`${path}: ${e.message}${e.row !== undefined ? ` (row ${e.row}${e.column ? `, column "${e.column}"` : ''})` : ''}`);
 			}
-			data = reportDataFromChecks(runDataChecks(d, parsed.table), labelLookup(d), path.replace(/^.*[/\\]/, ''), d);
+			// The report prints the commands that reproduce its figures (not when --exposure/--outcome changed the question).
+			const q = ctx.question();
+			const files = q.exposures || q.outcomes ? undefined : { diagram: ctx.positionals[0], data: path };
+			data = reportDataFromChecks(runDataChecks(d, parsed.table), labelLookup(d), path.replace(/^.*[/\\]/, ''), { diagram: d, files });
 		}
 		const question = d.exposures.length > 0 && d.outcomes.length > 0;
 		const analysis = question || EXPORT_FORMATS[format].needsQuestion ? reportAnalysis(d) : { sets: null, check: null, roles: [] };

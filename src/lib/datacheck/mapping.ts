@@ -60,7 +60,7 @@ export function mapVariables(diagram: Diagram, columnNames: readonly string[], o
 }
 
 /** The diagram as the data see it: variables without a column become unmeasured. O(n). */
-export function dataDiagram(diagram: Diagram, mapping: VariableMapping): Diagram {
+export function dataDiagram(diagram: Diagram, mapping: Pick<VariableMapping, 'columns'>): Diagram {
 	return {
 		...diagram,
 		variables: diagram.variables.map((v) => (v.measured && mapping.columns[v.id] === undefined ? { ...v, measured: false } : v))

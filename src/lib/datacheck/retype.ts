@@ -44,3 +44,71 @@ export function retypeTable(table: Table, overrides: TypeOverrides, levelCap = D
 	if (Object.keys(overrides).length === 0) return table;
 	return { ...table, columns: table.columns.map((c) => (overrides[c.name] ? retypeColumn(c, overrides[c.name], levelCap) : c)) };
 }
+
+/** A variable's level settings, applied to its column: reference level first, values named. */
+export interface LevelSettings {
+	/** The reference value as written in the data. */
+	reference?: string;
+	labels?: readonly { value: string; label: string }[];
+}
+
+/**
+ * The column with `reference` as its first level (codes renumbered; binary and categorical
+ * columns only — an ordinal column keeps its order) and its levels renamed by `labels`
+ * (values without a label keep their text). Refused with a StatsError naming the column when
+ * the reference is not one of its values or two levels would end up with one name. O(rows).
+ */
+export function applyLevels(column: Column, settings: LevelSettings): Column {
+	if (column.kind === 'continuous') return column;
+	const name = column.name;
+	let levels = [...column.levels];
+	let codes = column.codes;
+	if (settings.reference !== undefined && column.kind !== 'ordinal') {
+		const at = levels.indexOf(settings.reference);
+		if (at < 0)
+			throw new StatsError(`The reference level '${settings.reference}' is not a value of column '${name}' (its values: ${levels.slice(0, 12).map((l) => `'${l}'`).join(', ')}${levels.length > 12 ? ', …' : ''}).`, { column: name });
+		if (at > 0) {
+			// New code of old level k: the reference becomes 0, the levels before it move up one.
+			const remap = levels.map((_, k) => (k === at ? 0 : k < at ? k + 1 : k));
+			codes = Int32Array.from(column.codes, (c) => (c < 0 ? c : remap[c]));
+			levels = [levels[at], ...levels.slice(0, at), ...levels.slice(at + 1)];
+		}
+	}
+	if (settings.labels && settings.labels.length > 0) {
+		const named = new Map(settings.labels.map((l) => [l.value, l.label]));
+		levels = levels.map((l) => named.get(l) ?? l);
+		const seen = new Set<string>();
+		for (const l of levels) {
+			if (seen.has(l)) throw new StatsError(`Column '${name}': two of its levels would both be named '${l}' by the value labels.`, { column: name });
+			seen.add(l);
+		}
+	}
+	return levels === column.levels && codes === column.codes ? column : { ...column, levels, codes };
+}
+
+/** What the app knows of a column before choosing a kind (a ColumnInfo's fields). */
+export interface ColumnShape {
+	name: string;
+	kind: ColumnKind;
+	/** Distinct values when at most the level cap, else null. */
+	values: readonly string[] | null;
+}
+
+/**
+ * Why a column cannot be given `kind`, with the same rules and words as retypeColumn, or null
+ * when it can: the app asks this before storing a choice, so a refused kind never reaches the
+ * diagram. O(levels).
+ */
+export function kindProblem(column: ColumnShape, kind: ColumnKind): string | null {
+	if (column.kind === kind) return null;
+	const name = column.name;
+	if (kind === 'continuous') {
+		if (column.kind === 'continuous') return null;
+		const bad = (column.values ?? []).find((l) => l.trim() === '' || !Number.isFinite(Number(l)));
+		return bad === undefined ? null : `Column '${name}' cannot be numeric: its value '${bad}' is not a number.`;
+	}
+	if (column.values === null) return `Column '${name}' has more than ${DEFAULT_LEVEL_CAP} distinct values, too many to use as ${kind} levels.`;
+	if (kind === 'binary' && column.values.length !== 2)
+		return `Column '${name}' cannot be binary: it has ${column.values.length} distinct value${column.values.length === 1 ? '' : 's'}.`;
+	return null;
+}

@@ -3,7 +3,8 @@
  * `causeway test` / `causeway estimate` commands and the benchmarks, so all show the same
  * numbers:
  *   runDataChecks(diagram, table, options) → DataCheckReport
- * diagram + parsed table (+ variable → column mapping and column kinds chosen by the user)
+ * diagram + parsed table (+ each variable's data settings in the diagram — column, kind,
+ * reference level, value labels — with the caller's mapping and kinds on top, settings.ts)
  * → arrow checks, claim checks and crude vs adjusted estimates. Variables without a column
  * are treated as unmeasured (and the report says so). Throws InputError for a diagram that
  * cannot be analysed (cycle, unknown arrow ends) or a bad mapping, StatsError for a bad
@@ -17,15 +18,18 @@ import { checkArrows } from './arrow-checks';
 import { checkClaims } from './claim-checks';
 import { checkConfounders } from './confounding';
 import { estimateEffects } from './estimates';
-import { dataDiagram, mapVariables } from './mapping';
+import { dataDiagram } from './mapping';
 import { retypeTable } from './retype';
+import { applyDataSettings, type SettingProblems } from './settings';
 import type { AnalysedColumn, ArrowChecks, ClaimChecks, DataCheckReport, MappingOverrides, TypeOverrides, VariableMapping } from './types';
 
 export interface DataCheckOptions {
-	/** Variable id → column name (null: leave the variable without data); the rest is matched by name. */
+	/** Variable id → column name (null: leave the variable without data), over the diagram's settings; the rest is matched by name. */
 	mapping?: MappingOverrides;
-	/** Column name → kind, over the detected kinds. */
+	/** Column name → kind, over the diagram's settings and the detected kinds. */
 	types?: TypeOverrides;
+	/** A diagram setting the data cannot honour: refused (default, the CLI) or left out with a note (the app). */
+	settingProblems?: SettingProblems;
 	/** Significance level for the verdicts (default 0.05). */
 	alpha?: number;
 	/** The planned set for the estimates (default: the diagram's). */
@@ -81,12 +85,7 @@ export function analysedColumns(diagram: Diagram, mapping: VariableMapping, colu
 export function runDataChecks(diagram: Diagram, table: Table, options: DataCheckOptions = {}): DataCheckReport {
 	const structural = validateDiagram(diagram).find((i) => STRUCTURAL.has(i.code));
 	if (structural) throw new InputError(structural.message);
-	const { table: t, columnOf } = prepareTable(table, options.types);
-	const mapping: VariableMapping = mapVariables(
-		diagram,
-		t.columns.map((c) => c.name),
-		options.mapping
-	);
+	const { table: t, columnOf, mapping, used } = applyDataSettings(diagram, table, options);
 	const seen = dataDiagram(diagram, mapping);
 	const parts = { arrows: true, claims: true, estimates: true, confounders: true, ...options.parts };
 	const alpha = options.alpha ?? 0.05;
@@ -114,6 +113,7 @@ export function runDataChecks(diagram: Diagram, table: Table, options: DataCheck
 		columns,
 		format: { ...t.format },
 		rowCount: t.rowCount,
+		columnsUsed: used,
 		notes: [...mapping.notes, ...skippedColumns]
 	};
 }

@@ -22,6 +22,7 @@ import { associationStrength, DEFAULT_ALPHA, SMALL_STRENGTH, supportOf } from '.
 import { claimFamily } from './claim-checks';
 import { estimateQuestion, rowLabel, setsToEstimate, type EstimatesOutcome } from './estimates';
 import { dataDiagram, mapVariables } from './mapping';
+import { settingsMapping, type SettingProblems } from './settings';
 import type { ArrowCheck, DataCheckReport, EstimateRow, MappingOverrides } from './types';
 
 function numberCell(cell: string, row: number, column: number): number {
@@ -76,6 +77,8 @@ export function parseSummaryMatrix(text: string): SummaryStatistics {
 export interface SummaryCheckOptions {
 	alpha?: number;
 	mapping?: MappingOverrides;
+	/** A diagram column link the matrix lacks: refused (default) or left out with a note. */
+	settingProblems?: SettingProblems;
 	planned?: readonly string[];
 	maxClaims?: number;
 	maxSets?: number;
@@ -119,7 +122,10 @@ function summaryEstimates(seen: Diagram, s: SummaryStatistics, columns: Record<s
 /** The data checks from a summary matrix (same report shape as runDataChecks). */
 export function runSummaryChecks(diagram: Diagram, s: SummaryStatistics, options: SummaryCheckOptions = {}): DataCheckReport {
 	const alpha = options.alpha ?? DEFAULT_ALPHA;
-	const mapping = mapVariables(diagram, s.names, options.mapping);
+	// The diagram's column links apply to a matrix's names as to a table's columns (kinds do not: all are continuous).
+	const links = settingsMapping(diagram, s.names, { mapping: options.mapping, settingProblems: options.settingProblems });
+	const mapped = mapVariables(diagram, s.names, links.overrides);
+	const mapping = { ...mapped, notes: [...links.notes, ...mapped.notes] };
 	const seen = dataDiagram(diagram, mapping);
 	const cols = mapping.columns;
 	const checks: ArrowCheck[] = [];

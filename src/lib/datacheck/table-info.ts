@@ -4,7 +4,7 @@
  * columns), computed where the table lives (the data worker) so only this summary crosses
  * to the page.
  */
-import type { Column, ColumnKind, Table, TableFormat } from '../stats';
+import { DEFAULT_LEVEL_CAP, type Column, type ColumnKind, type Table, type TableFormat } from '../stats';
 
 export interface ColumnInfo {
 	name: string;
@@ -18,6 +18,12 @@ export interface ColumnInfo {
 	range: [number, number] | null;
 	/** A single value among the non-missing cells: no test can use it. */
 	constant: boolean;
+	/**
+	 * The distinct values as written (levels of a coded column; numbers of a numeric one, in
+	 * ascending order) when there are at most DEFAULT_LEVEL_CAP, else null: what the app offers
+	 * as reference levels and value labels, and checks a chosen kind against.
+	 */
+	values: string[] | null;
 }
 
 export interface TableInfo {
@@ -39,11 +45,22 @@ export function columnInfo(c: Column, position: number): ColumnInfo {
 			if (v > hi) hi = v;
 		}
 		const range: [number, number] | null = lo <= hi ? [lo, hi] : null;
-		return { name: c.name, position, kind: c.kind, missing: c.missing, levels: [], range, constant: range !== null && lo === hi };
+		return { name: c.name, position, kind: c.kind, missing: c.missing, levels: [], range, constant: range !== null && lo === hi, values: distinctNumbers(c.values) };
 	}
 	const seen = new Set<number>();
 	for (const code of c.codes) if (code >= 0) seen.add(code);
-	return { name: c.name, position, kind: c.kind, missing: c.missing, levels: [...c.levels], range: null, constant: seen.size < 2 };
+	return { name: c.name, position, kind: c.kind, missing: c.missing, levels: [...c.levels], range: null, constant: seen.size < 2, values: c.levels.length <= DEFAULT_LEVEL_CAP ? [...c.levels] : null };
+}
+
+/** Distinct numbers as text (ascending), or null past the level cap. O(rows), stops early. */
+function distinctNumbers(values: Float64Array): string[] | null {
+	const seen = new Set<number>();
+	for (const v of values) {
+		if (Number.isNaN(v)) continue;
+		seen.add(v);
+		if (seen.size > DEFAULT_LEVEL_CAP) return null;
+	}
+	return [...seen].sort((a, b) => a - b).map(String);
 }
 
 export function describeTable(t: Table, name: string): TableInfo {

@@ -7,7 +7,9 @@ import type { Role } from '../causal';
 import type { ColumnKind, TableFormat, TestResult } from '../stats';
 import type { PictureData } from './pictures';
 import type { TwoWayTable } from './two-way';
+import type { ColumnUse } from './settings';
 export type { TwoWayTable } from './two-way';
+export type { ColumnUse, SettingProblems, SettingsInput } from './settings';
 
 /**
  * The size of an association in the measure a practitioner reads: an odds ratio (per level
@@ -223,6 +225,8 @@ export interface DataCheckReport {
 	format: TableFormat | null;
 	estimatesMessage: string | null;
 	rowCount: number;
+	/** Each variable with data as the checks used it: column, kind (chosen or detected), reference level. */
+	columnsUsed?: ColumnUse[];
 	notes: string[];
 }
 

@@ -2,7 +2,10 @@
  * Autosave: the diagram is written to the browser's localStorage (in the native file format,
  * so a saved state is exactly what "Save" would write) a short while after each edit, and
  * read back when the app opens. Storage is passed in, so this runs under test without a
- * browser. A stored text that no longer parses is ignored, never half-loaded.
+ * browser. A stored text that no longer parses is never half-loaded and never overwritten: it
+ * is moved aside to its own key (with the reason and the time), where the app offers it for
+ * download until the user discards it. An empty diagram never replaces a stored one unless
+ * the user made it so (New, deleting everything).
  */
 import type { Diagram } from '../graph/diagram';
 import { parseDiagramJson, writeDiagramJson } from '../graph/native-json';
@@ -18,7 +21,45 @@ export const AUTOSAVE_KEY = 'causeway.autosave.v1';
 /** Set once the app has been opened, so the demo study is shown on the first visit only. */
 export const VISITED_KEY = 'causeway.visited';
 
-export type Restored = { kind: 'saved'; diagram: Diagram } | { kind: 'unreadable'; message: string } | { kind: 'none' };
+export type Restored = { kind: 'saved'; diagram: Diagram } | { kind: 'unreadable'; message: string; keptAside: boolean } | { kind: 'none' };
+
+/** Stored texts that could not be read, kept for the user: newest last. */
+export const ASIDE_KEY = 'causeway.autosave.unreadable.v1';
+/** How many unreadable copies are kept aside; older ones are dropped past it. */
+export const MAX_ASIDE = 5;
+
+export interface AsideCopy {
+	text: string;
+	/** Why it could not be read (the reader's message). */
+	reason: string;
+	/** When it was moved aside (ISO 8601). */
+	at: string;
+}
+
+/** The copies kept aside (empty when none or unreadable). */
+export function asideCopies(storage: StorageLike): AsideCopy[] {
+	try {
+		const raw = storage.getItem(ASIDE_KEY);
+		const list: unknown = raw === null ? [] : JSON.parse(raw);
+		return Array.isArray(list) ? list.filter((c): c is AsideCopy => typeof c?.text === 'string' && typeof c?.reason === 'string' && typeof c?.at === 'string') : [];
+	} catch {
+		return [];
+	}
+}
+
+/** Forgets the copies kept aside (after the user downloaded or discarded them). */
+export function discardAsideCopies(storage: StorageLike): void {
+	try {
+		storage.removeItem(ASIDE_KEY);
+	} catch {
+		// storage disabled: nothing was kept
+	}
+}
+
+/** True for a diagram with nothing drawn in it. */
+export function isBlankDiagram(d: Diagram): boolean {
+	return d.variables.length === 0 && d.arrows.length === 0;
+}
 
 export function saveDiagram(storage: StorageLike, d: Diagram): { ok: true } | { ok: false; message: string } {
 	try {
@@ -41,7 +82,27 @@ export function restoreDiagram(storage: StorageLike): Restored {
 	try {
 		return { kind: 'saved', diagram: parseDiagramJson(text) };
 	} catch (e) {
-		return { kind: 'unreadable', message: `The autosaved diagram could not be read (${e instanceof Error ? e.message : String(e)}); starting afresh.` };
+		const reason = e instanceof Error ? e.message : String(e);
+		const keptAside = keepAside(storage, text, reason);
+		return {
+			kind: 'unreadable',
+			message: keptAside
+				? `The diagram saved in this browser could not be read (${reason}). It was kept aside: download it from the notice to repair it.`
+				: `The diagram saved in this browser could not be read (${reason}), and this browser's storage could not keep it aside; it is left where it was.`,
+			keptAside
+		};
+	}
+}
+
+/** Moves an unreadable stored text to ASIDE_KEY; false (and the text left in place) when that fails. */
+function keepAside(storage: StorageLike, text: string, reason: string): boolean {
+	try {
+		const copies = [...asideCopies(storage), { text, reason, at: new Date().toISOString() }].slice(-MAX_ASIDE);
+		storage.setItem(ASIDE_KEY, JSON.stringify(copies));
+		storage.removeItem(AUTOSAVE_KEY);
+		return true;
+	} catch {
+		return false;
 	}
 }
 
@@ -91,6 +152,7 @@ export function createAutosaver(storage: StorageLike, delayMs = 400, onError?: (
 	let known = readStamp(storage);
 	let conflictStamp: string | null = null;
 	let pending: Diagram | null = null;
+	let pendingDeliberate = false;
 	let timer: ReturnType<typeof setTimeout> | null = null;
 
 	const changedElsewhere = (): boolean => {
@@ -104,14 +166,17 @@ export function createAutosaver(storage: StorageLike, delayMs = 400, onError?: (
 		const restored = restoreDiagram(storage);
 		options.onConflict?.({ theirs: restored.kind === 'saved' ? restored.diagram : null });
 	};
-	const write = (d: Diagram) => {
+	const write = (d: Diagram, deliberate: boolean) => {
 		let text: string;
 		try {
 			text = writeDiagramJson(d);
-			if (text === storage.getItem(AUTOSAVE_KEY)) {
+			const stored = storage.getItem(AUTOSAVE_KEY);
+			if (text === stored) {
 				known = readStamp(storage);
 				return;
 			}
+			// Never replace a stored diagram by an empty one the user did not make so.
+			if (!deliberate && isBlankDiagram(d) && stored !== null) return;
 			const stamp = `${tabId}:${++serial}`;
 			storage.setItem(AUTOSAVE_KEY, text);
 			storage.setItem(AUTOSAVE_STAMP_KEY, stamp);
@@ -129,7 +194,7 @@ export function createAutosaver(storage: StorageLike, delayMs = 400, onError?: (
 		}
 		const d = pending;
 		pending = null;
-		write(d);
+		write(d, pendingDeliberate);
 	};
 	const flush = () => {
 		if (timer !== null) clearTimeout(timer);
@@ -137,8 +202,10 @@ export function createAutosaver(storage: StorageLike, delayMs = 400, onError?: (
 		save();
 	};
 	return {
-		schedule(d: Diagram) {
+		/** `deliberate`: the diagram comes from the user's own edits (the app passes "something to undo"). */
+		schedule(d: Diagram, deliberate = true) {
 			pending = d;
+			pendingDeliberate = deliberate;
 			if (timer === null) {
 				save(); // leading edge: the first edit of a burst is stored at once
 				timer = setTimeout(flush, delayMs);
@@ -163,7 +230,7 @@ export function createAutosaver(storage: StorageLike, delayMs = 400, onError?: (
 			known = readStamp(storage);
 			conflictStamp = null;
 			pending = null;
-			write(d);
+			write(d, true);
 		},
 		/** The user takes the other tab's diagram: returned, and this tab follows it from now on. */
 		takeTheirs(): Diagram | null {

@@ -2,15 +2,23 @@
  * Editor commands: every change a user can make to a diagram, as plain data, and one pure
  * function that applies a command to a diagram.
  *
+ * Ids are stable: renaming a variable changes its label only; `change-id` is the one command
+ * that changes an id, and it updates every reference. Every limit the file readers enforce
+ * (src/lib/limits.ts: lengths of names, ids, notes, the title, data settings; numbers of
+ * variables and arrows) is checked here, at the moment of the edit, so the app can never
+ * write a file it would refuse to open.
+ *
  * `applyCommand` never mutates its input; it returns either a new diagram (sharing every
  * untouched variable and arrow) with a one-line summary of the step, or a refusal with a
  * one-line reason, in which case the caller keeps the old diagram unchanged. Arrows that would
  * close a cycle are refused here, naming the cycle, so the diagram is always acyclic.
  * Cost: O(n + m) per command (cycle search is a linear graph walk).
  */
-import type { Arrow, Diagram, Variable } from '../graph/diagram';
+import type { Arrow, Diagram, Variable, VariableData } from '../graph/diagram';
+import { InputError } from '../graph/errors';
+import { assertDiagramWithinLimits, countProblem, textTooLong } from '../graph/size-limits';
 import { findCycle } from '../graph/validate';
-import { idFollowsLabel, slugify, uniqueId } from './ids';
+import { applyArrowNote, applyChangeId, applyVariableData, applyVariableNote } from './study-commands';
 
 /** The three lists of the question: exposures, outcomes and the planned (adjusted) set. */
 export type RoleList = 'exposures' | 'outcomes' | 'adjusted';
@@ -22,6 +30,9 @@ export type Command =
 	| { kind: 'move-variables'; moves: readonly { id: string; x: number; y: number }[] }
 	| { kind: 'set-measured'; id: string; measured: boolean }
 	| { kind: 'set-note'; id: string; note: string }
+	| { kind: 'change-id'; id: string; newId: string }
+	| { kind: 'set-arrow-note'; from: string; to: string; note: string }
+	| { kind: 'set-variable-data'; id: string; data: VariableData | undefined }
 	| { kind: 'add-arrow'; from: string; to: string }
 	| { kind: 'reverse-arrow'; from: string; to: string }
 	| { kind: 'set-role'; list: RoleList; id: string; member: boolean }
@@ -78,23 +89,12 @@ function replaceVariable(d: Diagram, id: string, change: (v: Variable) => Variab
 	return { ...d, variables: d.variables.map((v) => (v.id === id ? change(v) : v)) };
 }
 
-/** Renames an id everywhere it occurs (variable, arrows, question lists). O(n + m). */
-function renameId(d: Diagram, oldId: string, newId: string): Diagram {
-	const swap = (id: string) => (id === oldId ? newId : id);
-	return {
-		...d,
-		variables: d.variables.map((v) => (v.id === oldId ? { ...v, id: newId } : v)),
-		arrows: d.arrows.map((a) => (a.from === oldId || a.to === oldId ? { ...a, from: swap(a.from), to: swap(a.to) } : a)),
-		exposures: d.exposures.map(swap),
-		outcomes: d.outcomes.map(swap),
-		adjusted: d.adjusted.map(swap)
-	};
-}
-
 function applyAddVariable(d: Diagram, variable: Variable): CommandResult {
 	if (variable.id.length === 0) return refuse('A variable needs a non-empty id.');
 	if (hasVariable(d, variable.id)) return refuse(`There is already a variable with the id "${variable.id}".`);
 	if (variable.label.trim().length === 0) return refuse('A variable needs a name.');
+	const problem = countProblem(d, { variables: 1 }) ?? textTooLong('The name', variable.label, 'label') ?? textTooLong('The id', variable.id, 'id');
+	if (problem) return refuse(`${problem}; no variable was added.`);
 	return { ok: true, diagram: { ...d, variables: [...d.variables, variable] }, summary: `Add variable ${variable.label}` };
 }
 
@@ -136,13 +136,10 @@ function applyRename(d: Diagram, id: string, rawLabel: string): CommandResult {
 	const label = rawLabel.trim();
 	if (label.length === 0) return refuse('A variable needs a name; the old name is kept.');
 	if (label === v.label) return refuse('The name is unchanged.');
-	let next = replaceVariable(d, id, (x) => ({ ...x, label }));
-	if (idFollowsLabel(v.id, v.label)) {
-		const taken = new Set(d.variables.filter((x) => x.id !== id).map((x) => x.id));
-		const newId = uniqueId(slugify(label), taken);
-		if (newId !== id) next = renameId(next, id, newId);
-	}
-	return { ok: true, diagram: next, summary: `Rename ${v.label} to ${label}` };
+	const long = textTooLong('The name', label, 'label');
+	if (long) return refuse(`${long}; the old name is kept.`);
+	// The id stays: files, mappings and the command line refer to it (change-id changes it).
+	return { ok: true, diagram: replaceVariable(d, id, (x) => ({ ...x, label })), summary: `Rename ${v.label} to ${label}` };
 }
 
 function applyMove(d: Diagram, moves: readonly { id: string; x: number; y: number }[]): CommandResult {
@@ -169,6 +166,8 @@ function applyAddArrow(d: Diagram, from: string, to: string): CommandResult {
 	const name = `${labelOf(d, from)} → ${labelOf(d, to)}`;
 	if (from === to) return refuse(`An arrow cannot start and end at ${labelOf(d, from)}.`);
 	if (hasArrow(d, from, to)) return refuse(`There is already an arrow ${name}.`);
+	const tooMany = countProblem(d, { arrows: 1 });
+	if (tooMany) return refuse(`${tooMany}; arrow ${name} was not drawn.`);
 	const cycle = cycleClosedBy(d, from, to);
 	if (cycle) return refuse(`Arrow ${name} refused: it would close the cycle ${describeCycle(d, cycle)}.`, cycle);
 	return { ok: true, diagram: { ...d, arrows: [...d.arrows, { from, to }] }, summary: `Draw arrow ${name}` };
@@ -254,12 +253,14 @@ export function applyCommand(d: Diagram, cmd: Command): CommandResult {
 				summary: `Mark ${v.label} ${cmd.measured ? 'measured' : 'unmeasured'}`
 			};
 		}
-		case 'set-note': {
-			const v = d.variables.find((x) => x.id === cmd.id);
-			if (!v) return refuse(`No variable with the id "${cmd.id}".`);
-			if ((v.note ?? '') === cmd.note) return refuse('The note is unchanged.');
-			return { ok: true, diagram: replaceVariable(d, cmd.id, (x) => ({ ...x, note: cmd.note })), summary: `Edit the note on ${v.label}` };
-		}
+		case 'set-note':
+			return applyVariableNote(d, cmd.id, cmd.note);
+		case 'change-id':
+			return applyChangeId(d, cmd.id, cmd.newId);
+		case 'set-arrow-note':
+			return applyArrowNote(d, cmd.from, cmd.to, cmd.note);
+		case 'set-variable-data':
+			return applyVariableData(d, cmd.id, cmd.data);
 		case 'add-arrow':
 			return applyAddArrow(d, cmd.from, cmd.to);
 		case 'reverse-arrow':
@@ -271,9 +272,17 @@ export function applyCommand(d: Diagram, cmd: Command): CommandResult {
 		case 'set-title': {
 			const title = cmd.title.trim();
 			if (title === d.title) return refuse('The title is unchanged.');
+			const long = textTooLong('The title', title, 'title');
+			if (long) return refuse(`${long}; the old title is kept.`);
 			return { ok: true, diagram: { ...d, title }, summary: `Rename the diagram to ${title || '(untitled)'}` };
 		}
 		case 'replace-diagram':
+			try {
+				assertDiagramWithinLimits(cmd.diagram);
+			} catch (e) {
+				if (e instanceof InputError) return refuse(`${e.message}; the diagram is unchanged.`);
+				throw e;
+			}
 			return { ok: true, diagram: cmd.diagram, summary: cmd.label };
 	}
 }

@@ -1,20 +1,33 @@
 /**
  * Variable ids for variables created in the editor.
  *
- * Ids are what files, the command line and other programs refer to, so a variable drawn in
- * the app gets an id derived from its label ("Household income" → "household_income") rather
- * than an opaque counter. Letters and digits of any script are kept (Unicode classes), so a
- * label in any language gives a readable id.
+ * Ids are what files, the command line, data mappings and other programs refer to, so a
+ * variable drawn in the app gets an id derived from its label ("Household income" →
+ * "household_income") rather than an opaque counter, and then keeps it: renaming a variable
+ * never changes its id (only the explicit "change id" command does, updating every
+ * reference). Letters and digits of any script are kept (Unicode classes), so a label in any
+ * language gives a readable id.
  */
 
-/** Lower-cases a label and joins its runs of letters/digits with "_"; "variable" when none. O(length). */
+/** Longest id made from a label: a readable handle, not a copy of a long label. */
+export const MAX_GENERATED_ID = 60;
+
+/**
+ * Lower-cases a label and joins its runs of letters/digits with "_"; "variable" when none.
+ * Cut at MAX_GENERATED_ID characters, at a "_" when there is one. O(length).
+ */
 export function slugify(label: string): string {
-	const slug = label
+	let slug = label
 		.normalize('NFKC')
 		.toLowerCase()
 		.split(/[^\p{L}\p{N}]+/u)
 		.filter((part) => part.length > 0)
 		.join('_');
+	if (slug.length > MAX_GENERATED_ID) {
+		const cut = [...slug].slice(0, MAX_GENERATED_ID).join('');
+		const lastBreak = cut.lastIndexOf('_');
+		slug = lastBreak > MAX_GENERATED_ID / 2 ? cut.slice(0, lastBreak) : cut;
+	}
 	return slug.length > 0 ? slug : 'variable';
 }
 
@@ -28,9 +41,9 @@ export function uniqueId(base: string, taken: ReadonlySet<string>): string {
 }
 
 /**
- * True when `id` looks generated from `label` (the slug, possibly with a numeric suffix), so
- * that renaming the variable may rename its id too. Ids chosen by hand or read from a file
- * that do not follow the label are left alone.
+ * True when `id` looks generated from `label` (the slug, possibly with a numeric suffix). The
+ * text view uses it to show ids that differ from their label's slug; the editor never renames
+ * an id on its own.
  */
 export function idFollowsLabel(id: string, label: string): boolean {
 	const base = slugify(label);

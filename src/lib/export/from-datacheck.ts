@@ -100,7 +100,29 @@ function codeFor(report: DataCheckReport, diagram: Diagram, file: string): Repor
 	}
 }
 
-export function reportDataFromChecks(report: DataCheckReport, labelOf: LabelOf, sourceName?: string, diagram?: Diagram): ReportDataResults {
+/** A file name as one shell word: as it is when plain, else in single quotes (POSIX shells). */
+export function shellWord(name: string): string {
+	return /^[A-Za-z0-9._/+-]+$/.test(name) ? name : `'${name.replace(/'/g, "'\\''")}'`;
+}
+
+/**
+ * The commands that reproduce a report's checks and estimates: `causeway test` (claim checks)
+ * and `causeway estimate` (estimates) on the saved diagram file, which carries the data
+ * settings, and the data file, with no flags.
+ */
+export function reproduceCommands(diagramFile: string, dataFile: string): string[] {
+	const files = `${shellWord(diagramFile)} ${shellWord(dataFile)}`;
+	return [`npx causeway test ${files}`, `npx causeway estimate ${files}`];
+}
+
+/** What the report knows beyond the checks: the diagram (for the analysis code) and the files (for the commands that reproduce it). */
+export interface ReportDataContext {
+	diagram?: Diagram;
+	files?: { diagram: string; data: string };
+}
+
+export function reportDataFromChecks(report: DataCheckReport, labelOf: LabelOf, sourceName?: string, context: ReportDataContext = {}): ReportDataResults {
+	const { diagram, files } = context;
 	const checks = report.claims.checks.map((c) => ({
 		statement: claimSentence({ a: c.a, b: c.b, given: c.given }, labelOf).replace(/\.$/, ''),
 		test: c.main?.test ?? 'not tested',
@@ -159,7 +181,8 @@ export function reportDataFromChecks(report: DataCheckReport, labelOf: LabelOf, 
 	const notes = [...report.notes, ...(report.estimatesMessage ? [report.estimatesMessage] : []), ...(est?.notes ?? [])];
 	if (est?.eValue) notes.push(`E-value of the planned estimate (VanderWeele & Ding 2017): ${est.eValue.point.toPrecision(3)}${est.eValue.ciBound !== null ? ` (confidence limit: ${est.eValue.ciBound.toPrecision(3)})` : ''}.`);
 	if (report.claims.tested > 0) notes.push(`Adjusted p is Holm's (family-wise), over the ${report.claims.tested} tested claims.`);
-	const code = diagram ? codeFor(report, diagram, dataFileName(sourceName)) : [];
+	const code = diagram ? codeFor(report, diagram, files ? files.data.replace(/^.*[/\\]/, '') : dataFileName(sourceName)) : [];
+	const columns = (report.columnsUsed ?? []).map((u) => ({ variable: u.variable, column: u.column, kind: u.kind, chosen: u.kindChosen, reference: u.reference }));
 	return {
 		source: { name: sourceName, rows: report.rowCount },
 		...(report.categoryCodes.length ? { notices: report.categoryCodes.map((c) => categoryCodeNotice(c.column, c.values, 'report')) } : {}),
@@ -178,6 +201,8 @@ export function reportDataFromChecks(report: DataCheckReport, labelOf: LabelOf, 
 		estimates,
 		...(standardized.length ? { standardized } : {}),
 		notes,
-		...(code.length ? { code } : {})
+		...(code.length ? { code } : {}),
+		...(columns.length ? { columns } : {}),
+		...(files ? { reproduce: { diagramFile: files.diagram, dataFile: files.data, commands: reproduceCommands(files.diagram, files.data) } } : {})
 	};
 }

@@ -19,6 +19,7 @@ import {
 	type LabelOf
 } from '../wording';
 import type { Block } from './report';
+import { reproducibilityBlocks } from './report-study';
 import type { ReportCode, ReportDataResults, ReportStandardized } from './report-data';
 
 /** Numbers for display: three significant digits, p-values below 0.001 as "< 0.001". */
@@ -164,6 +165,7 @@ export function dataBlocks(data: ReportDataResults, label: LabelOf): Block[] {
 		const parts = [s.name ? `Data: ${s.name}` : 'Data', s.rows !== undefined ? `${s.rows} rows` : '', s.columns !== undefined ? `${s.columns} columns` : ''].filter(Boolean);
 		blocks.push({ kind: 'paragraph', text: `${parts.join(', ')}.` });
 	}
+	blocks.push(...reproducibilityBlocks(data, label));
 	for (const n of data.notices ?? []) blocks.push({ kind: 'paragraph', text: `Notice: ${n}` });
 	blocks.push(...arrowBlocks(data), ...claimBlocks(data), ...confounderBlocks(data), ...estimateBlocks(data, label), ...standardizedBlocks(data.standardized ?? [], label));
 	for (const note of data.notes ?? []) blocks.push({ kind: 'paragraph', text: note });

@@ -23,6 +23,10 @@ export interface ReportDataResults {
 	standardized?: ReportStandardized[];
 	/** Analysis code for the planned set, printed as an appendix. */
 	code?: ReportCode[];
+	/** How each variable met the data: its column, the kind it was analysed as, its reference level. */
+	columns?: ReportDataColumn[];
+	/** The commands that reproduce the checks and estimates from the saved diagram file and the data file. */
+	reproduce?: { diagramFile: string; dataFile: string; commands: string[] };
 }
 
 /** A table already in words: caption, header and rows of text. */
@@ -84,6 +88,17 @@ export interface ReportCode {
 	/** Fence tag for Markdown: r, stata, sas, python. */
 	tag: string;
 	text: string;
+}
+
+export interface ReportDataColumn {
+	/** Variable id (shown by its label). */
+	variable: string;
+	column: string;
+	kind: string;
+	/** True when the kind was chosen (saved in the diagram), false when detected. */
+	chosen: boolean;
+	/** The reference level of a coded column, null for a numeric one. */
+	reference?: string | null;
 }
 
 export interface ReportDataCheck {
@@ -185,6 +200,22 @@ export function checkReportData(value: Json): ReportDataResults {
 	for (const key of ['notes', 'notices'])
 		if (value[key] !== undefined && (!Array.isArray(value[key]) || (value[key] as Json[]).some((x: Json) => typeof x !== 'string'))) fail(key, 'a list of texts', value[key]);
 	checkNewParts(value);
+	if (value.columns !== undefined) {
+		if (!Array.isArray(value.columns)) fail('columns', 'a list', value.columns);
+		value.columns.forEach((c: Json, i: number) => {
+			const p = `columns[${i}]`;
+			if (!isObject(c)) fail(p, 'an object', c);
+			for (const k of ['variable', 'column', 'kind']) needString(c, k, p);
+			if (typeof c.chosen !== 'boolean') fail(`${p}.chosen`, 'true or false', c.chosen);
+		});
+	}
+	if (value.reproduce !== undefined) {
+		const r = value.reproduce;
+		if (!isObject(r)) fail('reproduce', 'an object', r);
+		needString(r, 'diagramFile', 'reproduce');
+		needString(r, 'dataFile', 'reproduce');
+		if (!Array.isArray(r.commands) || r.commands.some((x: Json) => typeof x !== 'string')) fail('reproduce.commands', 'a list of texts', r.commands);
+	}
 	return value as ReportDataResults;
 }
 

@@ -17,6 +17,7 @@ import type { ReportDataResults } from './report-data';
 import { codeBlocks, dataBlocks } from './report-data-blocks';
 import { writeSvg } from './svg';
 import { SOFTWARE_NAME, SOFTWARE_VERSION } from './version';
+import { arrowNoteBlocks, reproducibilityBlocks, settingsColumn } from './report-study';
 
 export type Block =
 	| { kind: 'paragraph'; text: string }
@@ -234,20 +235,21 @@ export function buildReport(input: ReportInput): ReportModel {
 	});
 
 	// 3. Variables
+	const settings = settingsColumn(d);
 	sections.push({
 		id: 'variables',
 		heading: 'Variables',
 		blocks: [
 			{
 				kind: 'table',
-				head: ['Variable', 'Id', 'Measured', 'Role for the question', 'Adjusted for', 'Note'],
+				head: ['Variable', 'Id', 'Measured', 'Role for the question', 'Adjusted for', 'Note', ...(settings ? [settings.head] : [])],
 				rows: d.variables.map((v) => {
 					const words = rolesOf(v.id, a.roles).map((r) => ROLE_WORD[r]);
 					if (!words.length) {
 						if (d.exposures.includes(v.id)) words.push('exposure');
 						if (d.outcomes.includes(v.id)) words.push('outcome');
 					}
-					return [v.label, v.id, v.measured ? 'yes' : 'no', words.join(', ') || '–', d.adjusted.includes(v.id) ? 'yes' : 'no', v.note ?? ''];
+					return [v.label, v.id, v.measured ? 'yes' : 'no', words.join(', ') || '–', d.adjusted.includes(v.id) ? 'yes' : 'no', v.note ?? '', ...(settings ? [settings.cell(v.id)] : [])];
 				})
 			}
 		]
@@ -261,6 +263,7 @@ export function buildReport(input: ReportInput): ReportModel {
 			? { kind: 'list', items: arrowSentences(d, label) }
 			: { kind: 'paragraph', text: 'The diagram has no arrows: every pair of variables is assumed to have no direct effect on each other.' }
 	);
+	assumptions.push(...arrowNoteBlocks(d, label));
 	assumptions.push({ kind: 'subheading', text: 'Absent arrows the adjustment depends on' });
 	if (a.sets && a.check && a.sets.identifiable) {
 		const limit = input.maxAbsentArrows ?? 10;

@@ -3,10 +3,11 @@
 "use strict";
 export const validate = validate20;
 export default validate20;
-const schema31 = {"$schema":"https://json-schema.org/draft/2020-12/schema","title":"Causeway diagram, version 1","description":"A causal diagram (directed acyclic graph) as saved by Causeway. Keys not listed here are allowed and kept when Causeway saves the file again. Acyclicity, unique ids and arrows between known variables are checked by Causeway itself, not by this schema.","type":"object","required":["format","version","variables","arrows"],"properties":{"format":{"description":"Marks the file as a Causeway diagram.","const":"causeway.diagram"},"version":{"description":"Version of this file format.","const":1},"title":{"description":"Title of the diagram.","type":"string","default":""},"variables":{"description":"The variables (nodes) of the diagram, in the order they are listed everywhere.","type":"array","items":{"$ref":"#/$defs/variable"}},"arrows":{"description":"Direct causal effects, from cause to effect.","type":"array","items":{"$ref":"#/$defs/arrow"}},"exposures":{"description":"Ids of the exposure variable(s).","$ref":"#/$defs/idList"},"outcomes":{"description":"Ids of the outcome variable(s).","$ref":"#/$defs/idList"},"adjusted":{"description":"Ids of the planned adjustment set.","$ref":"#/$defs/idList"}},"$defs":{"id":{"description":"A variable id: any non-empty text, unique within the diagram.","type":"string","minLength":1},"idList":{"type":"array","items":{"$ref":"#/$defs/id"},"default":[]},"coordinate":{"description":"Canvas position in pixels; y grows downwards.","type":"number"},"variable":{"type":"object","required":["id"],"properties":{"id":{"$ref":"#/$defs/id"},"label":{"description":"Text shown on the canvas; the id when absent.","type":"string"},"measured":{"description":"False for a variable that is not measured in the study.","type":"boolean","default":true},"x":{"$ref":"#/$defs/coordinate"},"y":{"$ref":"#/$defs/coordinate"},"note":{"description":"Free text about the variable.","type":"string"}}},"arrow":{"type":"object","required":["from","to"],"properties":{"from":{"$ref":"#/$defs/id"},"to":{"$ref":"#/$defs/id"}}}}};
-const schema32 = {"type":"object","required":["id"],"properties":{"id":{"$ref":"#/$defs/id"},"label":{"description":"Text shown on the canvas; the id when absent.","type":"string"},"measured":{"description":"False for a variable that is not measured in the study.","type":"boolean","default":true},"x":{"$ref":"#/$defs/coordinate"},"y":{"$ref":"#/$defs/coordinate"},"note":{"description":"Free text about the variable.","type":"string"}}};
+const schema31 = {"$schema":"https://json-schema.org/draft/2020-12/schema","title":"Causeway diagram, version 2","description":"A causal diagram (directed acyclic graph) as saved by Causeway, with each variable's link to a data table and notes on variables and arrows. Version 1 files (without `data` on variables and `note` on arrows) are read as they are. Keys not listed here are allowed and kept when Causeway saves the file again. Acyclicity, unique ids and arrows between known variables are checked by Causeway itself, not by this schema.","type":"object","required":["format","version","variables","arrows"],"properties":{"format":{"description":"Marks the file as a Causeway diagram.","const":"causeway.diagram"},"version":{"description":"Version of this file format: 2 (version 1 is still read).","enum":[1,2]},"title":{"description":"Title of the diagram.","type":"string","default":""},"variables":{"description":"The variables (nodes) of the diagram, in the order they are listed everywhere.","type":"array","items":{"$ref":"#/$defs/variable"}},"arrows":{"description":"Direct causal effects, from cause to effect.","type":"array","items":{"$ref":"#/$defs/arrow"}},"exposures":{"description":"Ids of the exposure variable(s).","$ref":"#/$defs/idList"},"outcomes":{"description":"Ids of the outcome variable(s).","$ref":"#/$defs/idList"},"adjusted":{"description":"Ids of the planned adjustment set.","$ref":"#/$defs/idList"}},"$defs":{"id":{"description":"A variable id: any non-empty text, unique within the diagram.","type":"string","minLength":1},"idList":{"type":"array","items":{"$ref":"#/$defs/id"},"default":[]},"coordinate":{"description":"Canvas position in pixels; y grows downwards.","type":"number"},"variable":{"type":"object","required":["id"],"properties":{"id":{"$ref":"#/$defs/id"},"label":{"description":"Text shown on the canvas; the id when absent.","type":"string"},"measured":{"description":"False for a variable that is not measured in the study.","type":"boolean","default":true},"x":{"$ref":"#/$defs/coordinate"},"y":{"$ref":"#/$defs/coordinate"},"note":{"description":"Free text about the variable.","type":"string"},"data":{"$ref":"#/$defs/variableData"}}},"arrow":{"type":"object","required":["from","to"],"properties":{"from":{"$ref":"#/$defs/id"},"to":{"$ref":"#/$defs/id"},"note":{"description":"Why the arrow is assumed, e.g. with a citation.","type":"string"}}},"variableData":{"description":"How the variable meets a data table. Every key is optional: what is left out is decided when data are loaded (column matched by id or label, kind detected from the values, first level as reference).","type":"object","properties":{"column":{"description":"The column holding the variable, or null for no data (the data checks then treat it as unmeasured).","type":["string","null"],"minLength":1},"kind":{"description":"How the column is analysed, over the detected kind.","enum":["binary","categorical","ordinal","continuous"]},"reference":{"description":"The reference level of a binary or categorical column, as the value is written in the data.","type":"string"},"labels":{"description":"Names for values of a coded column, by the value as written in the data, e.g. { \"0\": \"manual\", \"1\": \"clerical\" }.","type":"object","additionalProperties":{"type":"string"}}}}}};
+const schema32 = {"type":"object","required":["id"],"properties":{"id":{"$ref":"#/$defs/id"},"label":{"description":"Text shown on the canvas; the id when absent.","type":"string"},"measured":{"description":"False for a variable that is not measured in the study.","type":"boolean","default":true},"x":{"$ref":"#/$defs/coordinate"},"y":{"$ref":"#/$defs/coordinate"},"note":{"description":"Free text about the variable.","type":"string"},"data":{"$ref":"#/$defs/variableData"}}};
 const schema33 = {"description":"A variable id: any non-empty text, unique within the diagram.","type":"string","minLength":1};
 const schema34 = {"description":"Canvas position in pixels; y grows downwards.","type":"number"};
+const schema36 = {"description":"How the variable meets a data table. Every key is optional: what is left out is decided when data are loaded (column matched by id or label, kind detected from the values, first level as reference).","type":"object","properties":{"column":{"description":"The column holding the variable, or null for no data (the data checks then treat it as unmeasured).","type":["string","null"],"minLength":1},"kind":{"description":"How the column is analysed, over the detected kind.","enum":["binary","categorical","ordinal","continuous"]},"reference":{"description":"The reference level of a binary or categorical column, as the value is written in the data.","type":"string"},"labels":{"description":"Names for values of a coded column, by the value as written in the data, e.g. { \"0\": \"manual\", \"1\": \"clerical\" }.","type":"object","additionalProperties":{"type":"string"}}}};
 const func1 = (text) => { let count = 0; for (const _ of text) count++; return count; };
 
 function validate21(data, {instancePath="", parentData, parentDataProperty, rootData=data, dynamicAnchors={}}={}){
@@ -110,6 +111,101 @@ var valid0 = _errs14 === errors;
 else {
 var valid0 = true;
 }
+if(valid0){
+if(data.data !== undefined){
+let data6 = data.data;
+const _errs16 = errors;
+const _errs17 = errors;
+if(errors === _errs17){
+if(data6 && typeof data6 == "object" && !Array.isArray(data6)){
+if(data6.column !== undefined){
+let data7 = data6.column;
+const _errs19 = errors;
+if((typeof data7 !== "string") && (data7 !== null)){
+validate21.errors = [{instancePath:instancePath+"/data/column",schemaPath:"#/$defs/variableData/properties/column/type",keyword:"type",params:{type: schema36.properties.column.type},message:"must be string,null"}];
+return false;
+}
+if(errors === _errs19){
+if(typeof data7 === "string"){
+if(func1(data7) < 1){
+validate21.errors = [{instancePath:instancePath+"/data/column",schemaPath:"#/$defs/variableData/properties/column/minLength",keyword:"minLength",params:{limit: 1},message:"must NOT have fewer than 1 characters"}];
+return false;
+}
+}
+}
+var valid5 = _errs19 === errors;
+}
+else {
+var valid5 = true;
+}
+if(valid5){
+if(data6.kind !== undefined){
+let data8 = data6.kind;
+const _errs21 = errors;
+if(!((((data8 === "binary") || (data8 === "categorical")) || (data8 === "ordinal")) || (data8 === "continuous"))){
+validate21.errors = [{instancePath:instancePath+"/data/kind",schemaPath:"#/$defs/variableData/properties/kind/enum",keyword:"enum",params:{allowedValues: schema36.properties.kind.enum},message:"must be equal to one of the allowed values"}];
+return false;
+}
+var valid5 = _errs21 === errors;
+}
+else {
+var valid5 = true;
+}
+if(valid5){
+if(data6.reference !== undefined){
+const _errs22 = errors;
+if(typeof data6.reference !== "string"){
+validate21.errors = [{instancePath:instancePath+"/data/reference",schemaPath:"#/$defs/variableData/properties/reference/type",keyword:"type",params:{type: "string"},message:"must be string"}];
+return false;
+}
+var valid5 = _errs22 === errors;
+}
+else {
+var valid5 = true;
+}
+if(valid5){
+if(data6.labels !== undefined){
+let data10 = data6.labels;
+const _errs24 = errors;
+if(errors === _errs24){
+if(data10 && typeof data10 == "object" && !Array.isArray(data10)){
+for(const key0 in data10){
+const _errs27 = errors;
+if(typeof data10[key0] !== "string"){
+validate21.errors = [{instancePath:instancePath+"/data/labels/" + key0.replace(/~/g, "~0").replace(/\//g, "~1"),schemaPath:"#/$defs/variableData/properties/labels/additionalProperties/type",keyword:"type",params:{type: "string"},message:"must be string"}];
+return false;
+}
+var valid6 = _errs27 === errors;
+if(!valid6){
+break;
+}
+}
+}
+else {
+validate21.errors = [{instancePath:instancePath+"/data/labels",schemaPath:"#/$defs/variableData/properties/labels/type",keyword:"type",params:{type: "object"},message:"must be object"}];
+return false;
+}
+}
+var valid5 = _errs24 === errors;
+}
+else {
+var valid5 = true;
+}
+}
+}
+}
+}
+else {
+validate21.errors = [{instancePath:instancePath+"/data",schemaPath:"#/$defs/variableData/type",keyword:"type",params:{type: "object"},message:"must be object"}];
+return false;
+}
+}
+var valid0 = _errs16 === errors;
+}
+else {
+var valid0 = true;
+}
+}
 }
 }
 }
@@ -125,9 +221,9 @@ return false;
 validate21.errors = vErrors;
 return errors === 0;
 }
-validate21.evaluated = {"props":{"id":true,"label":true,"measured":true,"x":true,"y":true,"note":true},"dynamicProps":false,"dynamicItems":false};
+validate21.evaluated = {"props":{"id":true,"label":true,"measured":true,"x":true,"y":true,"note":true,"data":true},"dynamicProps":false,"dynamicItems":false};
 
-const schema36 = {"type":"object","required":["from","to"],"properties":{"from":{"$ref":"#/$defs/id"},"to":{"$ref":"#/$defs/id"}}};
+const schema37 = {"type":"object","required":["from","to"],"properties":{"from":{"$ref":"#/$defs/id"},"to":{"$ref":"#/$defs/id"},"note":{"description":"Why the arrow is assumed, e.g. with a citation.","type":"string"}}};
 
 function validate23(data, {instancePath="", parentData, parentDataProperty, rootData=data, dynamicAnchors={}}={}){
 let vErrors = null;
@@ -190,6 +286,19 @@ var valid0 = _errs4 === errors;
 else {
 var valid0 = true;
 }
+if(valid0){
+if(data.note !== undefined){
+const _errs7 = errors;
+if(typeof data.note !== "string"){
+validate23.errors = [{instancePath:instancePath+"/note",schemaPath:"#/properties/note/type",keyword:"type",params:{type: "string"},message:"must be string"}];
+return false;
+}
+var valid0 = _errs7 === errors;
+}
+else {
+var valid0 = true;
+}
+}
 }
 }
 }
@@ -201,9 +310,9 @@ return false;
 validate23.errors = vErrors;
 return errors === 0;
 }
-validate23.evaluated = {"props":{"from":true,"to":true},"dynamicProps":false,"dynamicItems":false};
+validate23.evaluated = {"props":{"from":true,"to":true,"note":true},"dynamicProps":false,"dynamicItems":false};
 
-const schema39 = {"type":"array","items":{"$ref":"#/$defs/id"},"default":[]};
+const schema40 = {"type":"array","items":{"$ref":"#/$defs/id"},"default":[]};
 
 function validate25(data, {instancePath="", parentData, parentDataProperty, rootData=data, dynamicAnchors={}}={}){
 let vErrors = null;
@@ -283,9 +392,10 @@ var valid0 = true;
 }
 if(valid0){
 if(data.version !== undefined){
+let data1 = data.version;
 const _errs2 = errors;
-if(1 !== data.version){
-validate20.errors = [{instancePath:instancePath+"/version",schemaPath:"#/properties/version/const",keyword:"const",params:{allowedValue: 1},message:"must be equal to constant"}];
+if(!((data1 === 1) || (data1 === 2))){
+validate20.errors = [{instancePath:instancePath+"/version",schemaPath:"#/properties/version/enum",keyword:"enum",params:{allowedValues: schema31.properties.version.enum},message:"must be equal to one of the allowed values"}];
 return false;
 }
 var valid0 = _errs2 === errors;

@@ -13,6 +13,9 @@
  *   measured=false  (absent = measured)
  *   pos="x,y"       (Graphviz's y axis points up, the canvas's down: y is negated)
  *   label, note     (text; the graph's `label` is the diagram title)
+ *   data_column, data_kind, data_reference, data_labels   (the link to a data table;
+ *                   data_column="" = no data; data_labels is a JSON object value → name)
+ * and the edge attribute `note` (why the arrow is assumed).
  *
  * Every other attribute is kept as written in `extra` (HTML-like values as `{ html: "…" }`) and
  * written back, so DOT → Diagram → DOT keeps what Causeway does not use.
@@ -25,7 +28,7 @@
  * Cost: O(size of the text) for reading (plus the parser's own cost) and for writing.
  */
 import { parse, type AttributeASTNode, type GraphASTNode, type ClusterStatementASTNode, type EdgeTargetASTNode, type LiteralASTNode, type NodeRefASTNode } from 'ts-graphviz/ast';
-import { isUnsafeKey, type Arrow, type Diagram, type Extra, type Variable } from './diagram';
+import { DATA_KINDS, isEmptyVariableData, isUnsafeKey, type Arrow, type DataKind, type Diagram, type Extra, type Variable, type VariableData } from './diagram';
 import { describePosition, InputError, lineColumn, quote } from './errors';
 import { validateDiagram } from './validate';
 import { assertDiagramTextSize, assertDiagramWithinLimits } from './size-limits';
@@ -433,7 +436,53 @@ function dotSyntaxError(e: unknown, at: At): InputError {
 
 const ROLE_WORDS = ['exposure', 'outcome', 'adjusted'] as const;
 type RoleWord = (typeof ROLE_WORDS)[number];
-const OWN_NODE_ATTRIBUTES: ReadonlySet<string> = new Set(['label', 'role', 'measured', 'pos', 'note']);
+const DATA_ATTRIBUTES = ['data_column', 'data_kind', 'data_reference', 'data_labels'] as const;
+const OWN_NODE_ATTRIBUTES: ReadonlySet<string> = new Set(['label', 'role', 'measured', 'pos', 'note', ...DATA_ATTRIBUTES]);
+const OWN_EDGE_ATTRIBUTES: ReadonlySet<string> = new Set(['note']);
+
+/** A node's data_* attributes as settings; undefined when it has none. */
+function readVariableData(attrs: Attrs, text: (a: Attr) => string, bad: (a: Attr, what: string) => InputError): VariableData | undefined {
+	const data: VariableData = {};
+	const column = attrs.get('data_column');
+	if (column) data.column = text(column) === '' ? null : text(column);
+	const kind = attrs.get('data_kind');
+	if (kind) {
+		const k = text(kind).trim().toLowerCase();
+		if (!(DATA_KINDS as readonly string[]).includes(k)) throw bad(kind, `data_kind ${quote(text(kind))} is not one of ${DATA_KINDS.join(', ')}`);
+		data.kind = k as DataKind;
+	}
+	const reference = attrs.get('data_reference');
+	if (reference) data.reference = text(reference);
+	const labels = attrs.get('data_labels');
+	if (labels) {
+		let parsed: unknown;
+		try {
+			parsed = JSON.parse(text(labels), (key: string, value: unknown) => (isUnsafeKey(key) ? undefined : value));
+		} catch {
+			parsed = undefined;
+		}
+		if (typeof parsed !== 'object' || parsed === null || Array.isArray(parsed) || Object.values(parsed).some((x) => typeof x !== 'string')) {
+			throw bad(labels, 'data_labels must be a JSON object of value → name, e.g. {"0": "manual"}');
+		}
+		const list = Object.entries(parsed as Record<string, string>).map(([value, label]) => ({ value, label }));
+		if (list.length > 0) data.labels = list;
+	}
+	return isEmptyVariableData(data) ? undefined : data;
+}
+
+/** The data_* attributes of a variable's settings (unknown keys inside `data` are not written). */
+function writeVariableData(data: VariableData | undefined): [string, string][] {
+	if (!data) return [];
+	const pairs: [string, string][] = [];
+	if (data.column !== undefined) pairs.push(['data_column', `"${encodeText(data.column ?? '')}"`]);
+	if (data.kind !== undefined) pairs.push(['data_kind', data.kind]);
+	if (data.reference !== undefined) pairs.push(['data_reference', `"${encodeText(data.reference)}"`]);
+	if (data.labels && data.labels.length > 0) {
+		const json = JSON.stringify(Object.fromEntries(data.labels.filter((l) => !isUnsafeKey(l.value)).map((l) => [l.value, l.label])));
+		pairs.push(['data_labels', `"${encodeText(json)}"`]);
+	}
+	return pairs;
+}
 
 function extraValue(a: Attr): unknown {
 	return a.html ? { html: a.value } : a.value;
@@ -478,6 +527,8 @@ function toDiagram(graphName: string, graphAttrs: Attrs, nodes: NodeInfo[], edge
 		}
 		const note = attrs.get('note');
 		if (note) v.note = decodeText(note.value, note.html, { node: id, graph: graphName });
+		const data = readVariableData(attrs, (a) => decodeText(a.value, a.html, { node: id, graph: graphName }), bad);
+		if (data) v.data = data;
 
 		const extra = extraOf(attrs, OWN_NODE_ATTRIBUTES);
 		if (extra) v.extra = extra;
@@ -485,7 +536,9 @@ function toDiagram(graphName: string, graphAttrs: Attrs, nodes: NodeInfo[], edge
 	});
 	const arrows = edges.map(({ from, to, attrs }): Arrow => {
 		const a: Arrow = { from, to };
-		const extra = extraOf(attrs, new Set());
+		const note = attrs.get('note');
+		if (note) a.note = decodeText(note.value, note.html, { graph: graphName });
+		const extra = extraOf(attrs, OWN_EDGE_ATTRIBUTES);
 		if (extra) a.extra = extra;
 		return a;
 	});
@@ -574,7 +627,10 @@ export function writeDot(d: Diagram): string {
 	const exposures = new Set(d.exposures);
 	const outcomes = new Set(d.outcomes);
 	const adjusted = new Set(d.adjusted);
-	const lines: string[] = ['// Causeway diagram. Node attributes role, measured, pos (y up) and note are read by Causeway.', 'digraph {'];
+	const lines: string[] = [
+		'// Causeway diagram. Node attributes role, measured, pos (y up), note and data_* (the link to a data table) and edge attribute note are read by Causeway.',
+		'digraph {'
+	];
 	if (d.title !== '') lines.push(`  label="${encodeText(d.title)}";`);
 	if (d.extra) {
 		for (const key of Object.keys(d.extra).sort()) {
@@ -595,10 +651,12 @@ export function writeDot(d: Diagram): string {
 			pairs.push(['pos', `"${String(v.x)},${String(-v.y)}"`]);
 		}
 		if (v.note !== undefined) pairs.push(['note', `"${encodeText(v.note)}"`]);
+		if (!isEmptyVariableData(v.data)) pairs.push(...writeVariableData(v.data));
 		lines.push(`  ${writeName(v.id, 'variable id')}${writeAttributes(pairs, v.extra, OWN_NODE_ATTRIBUTES)};`);
 	}
 	for (const a of d.arrows) {
-		lines.push(`  ${writeName(a.from, 'variable id')} -> ${writeName(a.to, 'variable id')}${writeAttributes([], a.extra, new Set())};`);
+		const pairs: [string, string][] = a.note !== undefined ? [['note', `"${encodeText(a.note)}"`]] : [];
+		lines.push(`  ${writeName(a.from, 'variable id')} -> ${writeName(a.to, 'variable id')}${writeAttributes(pairs, a.extra, OWN_EDGE_ATTRIBUTES)};`);
 	}
 	lines.push('}', '');
 	return lines.join('\n');

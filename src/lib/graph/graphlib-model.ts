@@ -4,7 +4,7 @@
  * and back.
  *
  *  - node label: the Variable (its `id` is always re-derived from the node key);
- *  - edge label: the Arrow's `extra` (from/to are the edge's ends);
+ *  - edge label: the Arrow's `note` and `extra` (from/to are the edge's ends);
  *  - graph label: title, roles and top-level `extra` (DiagramGraphLabel).
  *
  * graphlib keeps nodes in plain objects, so a node named `__proto__`, `constructor` or
@@ -28,6 +28,7 @@ export interface DiagramGraphLabel {
 }
 
 export interface DiagramEdgeLabel {
+	note?: string;
 	extra?: Extra;
 }
 
@@ -55,7 +56,15 @@ export function idOfNodeKey(key: string): string {
 function copyVariable(v: Variable): Variable {
 	const c: Variable = { ...v };
 	if (v.extra) c.extra = { ...v.extra };
+	if (v.data) c.data = { ...v.data, ...(v.data.labels ? { labels: v.data.labels.map((l) => ({ ...l })) } : {}), ...(v.data.extra ? { extra: { ...v.data.extra } } : {}) };
 	return c;
+}
+
+function edgeLabel(a: Arrow): DiagramEdgeLabel {
+	const label: DiagramEdgeLabel = {};
+	if (a.note !== undefined) label.note = a.note;
+	if (a.extra) label.extra = { ...a.extra };
+	return label;
 }
 
 /**
@@ -72,7 +81,7 @@ export function toGraphlib(d: Diagram): DiagramGraph {
 	if (d.extra) label.extra = { ...d.extra };
 	g.setGraph(label);
 	for (const v of d.variables) g.setNode(nodeKey(v.id), copyVariable(v));
-	for (const a of d.arrows) g.setEdge(nodeKey(a.from), nodeKey(a.to), a.extra ? { extra: { ...a.extra } } : {});
+	for (const a of d.arrows) g.setEdge(nodeKey(a.from), nodeKey(a.to), edgeLabel(a));
 	return g;
 }
 
@@ -124,6 +133,7 @@ export function fromGraphlib(g: DiagramGraph, base?: Diagram): Diagram {
 	const arrows = edgeOrder.map(({ v, w }): Arrow => {
 		const a: Arrow = { from: idOfNodeKey(v), to: idOfNodeKey(w) };
 		const stored: DiagramEdgeLabel | undefined = g.edge(v, w);
+		if (stored?.note !== undefined) a.note = stored.note;
 		if (stored?.extra) a.extra = { ...stored.extra };
 		return a;
 	});

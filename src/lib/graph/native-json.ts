@@ -1,5 +1,7 @@
 /**
- * The native file format (`causeway.diagram`, version 1): JSON text ⇄ Diagram.
+ * The native file format (`causeway.diagram`, version 2; version 1 is read too): JSON text ⇄
+ * Diagram. Version 2 only adds keys (a variable's `data` settings, an arrow's `note`), so a
+ * version 1 file is read by the same rules; files are always written as version 2.
  *
  * Reading is three steps, each with its own kind of message:
  *  1. syntax — JSON.parse; on failure jsonc-parser (the scanner VS Code uses) re-reads the text
@@ -21,7 +23,7 @@ import type { ErrorObject } from 'ajv';
 import { findNodeAtLocation, parse as parseLenient, parseTree, printParseErrorCode, type JSONPath, type ParseError } from 'jsonc-parser';
 import schema from './diagram.schema.json';
 import { validate as validateSchema } from './diagram-schema-validate.js';
-import { DIAGRAM_FORMAT, DIAGRAM_VERSION, isUnsafeKey, type Arrow, type Diagram, type Extra, type Variable } from './diagram';
+import { DIAGRAM_FORMAT, DIAGRAM_VERSION, isEmptyVariableData, isUnsafeKey, READABLE_VERSIONS, type Arrow, type DataKind, type Diagram, type Extra, type Variable, type VariableData } from './diagram';
 import { describeFound, describePosition, InputError, lineColumn, quote } from './errors';
 import { assertDiagramTextSize, assertDiagramWithinLimits } from './size-limits';
 
@@ -33,16 +35,25 @@ interface FileVariable {
 	x?: number;
 	y?: number;
 	note?: string;
+	data?: FileVariableData;
+	[key: string]: unknown;
+}
+interface FileVariableData {
+	column?: string | null;
+	kind?: DataKind;
+	reference?: string;
+	labels?: Record<string, string>;
 	[key: string]: unknown;
 }
 interface FileArrow {
 	from: string;
 	to: string;
+	note?: string;
 	[key: string]: unknown;
 }
 interface DiagramFile {
 	format: typeof DIAGRAM_FORMAT;
-	version: typeof DIAGRAM_VERSION;
+	version: 1 | 2;
 	title?: string;
 	variables: FileVariable[];
 	arrows: FileArrow[];
@@ -52,12 +63,14 @@ interface DiagramFile {
 	[key: string]: unknown;
 }
 
-/** Keys with a meaning in version 1, in the order they are written. */
+/** Keys with a meaning in version 2, in the order they are written. */
 const TOP_KEYS = ['format', 'version', 'title', 'variables', 'arrows', 'exposures', 'outcomes', 'adjusted'] as const;
-const VARIABLE_KEYS = ['id', 'label', 'measured', 'x', 'y', 'note'] as const;
-const ARROW_KEYS = ['from', 'to'] as const;
+const VARIABLE_KEYS = ['id', 'label', 'measured', 'x', 'y', 'note', 'data'] as const;
+const DATA_KEYS = ['column', 'kind', 'reference', 'labels'] as const;
+const ARROW_KEYS = ['from', 'to', 'note'] as const;
 const TOP_KEY_SET: ReadonlySet<string> = new Set(TOP_KEYS);
 const VARIABLE_KEY_SET: ReadonlySet<string> = new Set(VARIABLE_KEYS);
+const DATA_KEY_SET: ReadonlySet<string> = new Set(DATA_KEYS);
 const ARROW_KEY_SET: ReadonlySet<string> = new Set(ARROW_KEYS);
 
 /** The JSON Schema of the native format (also served as /causeway.diagram.schema.json). */
@@ -118,12 +131,30 @@ function writeVariable(v: Variable, index: number): Record<string, unknown> {
 		out[axis] = value;
 	}
 	if (v.note !== undefined) out.note = v.note;
+	if (!isEmptyVariableData(v.data)) out.data = writeVariableData(v.data as VariableData);
 	appendExtra(out, v.extra, VARIABLE_KEY_SET);
+	return out;
+}
+
+/**
+ * Value labels are a list in the model (order kept, no prototype keys) and an object in the
+ * file (value → name), the form people write by hand. Object.fromEntries defines own
+ * properties, so no value can reach a prototype; `__proto__`-like values are left out because
+ * the reader drops such keys.
+ */
+function writeVariableData(data: VariableData): Record<string, unknown> {
+	const out: Record<string, unknown> = {};
+	if (data.column !== undefined) out.column = data.column;
+	if (data.kind !== undefined) out.kind = data.kind;
+	if (data.reference !== undefined) out.reference = data.reference;
+	if (data.labels && data.labels.length > 0) out.labels = Object.fromEntries(data.labels.filter((l) => !isUnsafeKey(l.value)).map((l) => [l.value, l.label]));
+	appendExtra(out, data.extra, DATA_KEY_SET);
 	return out;
 }
 
 function writeArrow(a: Arrow): Record<string, unknown> {
 	const out: Record<string, unknown> = { from: a.from, to: a.to };
+	if (a.note !== undefined) out.note = a.note;
 	appendExtra(out, a.extra, ARROW_KEY_SET);
 	return out;
 }
@@ -205,23 +236,31 @@ function checkFormatAndVersion(data: unknown, body: string): void {
 	if (data.format !== DIAGRAM_FORMAT) {
 		throw new InputError(`Not a Causeway diagram: "format" is ${describeFound(data.format)}, expected "${DIAGRAM_FORMAT}"${at('format')}`, 'format');
 	}
+	const readable = `versions ${READABLE_VERSIONS.join(' and ')}`;
 	if (!('version' in data)) {
-		throw new InputError(`The "version" key is missing (this version of Causeway reads version ${DIAGRAM_VERSION})`, 'version');
+		throw new InputError(`The "version" key is missing (this version of Causeway reads ${readable})`, 'version');
 	}
-	if (data.version !== DIAGRAM_VERSION) {
+	if (typeof data.version !== 'number' || !READABLE_VERSIONS.includes(data.version)) {
 		const found = typeof data.version === 'number' ? `version ${data.version}` : describeFound(data.version);
-		throw new InputError(`Unsupported diagram version: found ${found}, but this version of Causeway reads version ${DIAGRAM_VERSION}${at('version')}`, 'version');
+		const newer = typeof data.version === 'number' && data.version > DIAGRAM_VERSION ? ' (the file was made by a newer version of Causeway)' : '';
+		throw new InputError(`Unsupported diagram version: found ${found}, but this version of Causeway reads ${readable}${newer}${at('version')}`, 'version');
 	}
 }
 
-/** `/variables/3/id` → `variables[3].id` (JSON Pointer segments unescaped, RFC 6901). */
-function pointerToPath(pointer: string): { path: string; segments: JSONPath } {
+/**
+ * `/variables/3/id` → `variables[3].id` (JSON Pointer segments unescaped, RFC 6901); a digit
+ * key of an object (a value label "1") stays a quoted key: `labels["1"]`.
+ */
+function pointerToPath(pointer: string, data: unknown): { path: string; segments: JSONPath } {
 	const segments: JSONPath = [];
 	let path = '';
 	if (pointer === '') return { path, segments };
+	let here: unknown = data;
 	for (const raw of pointer.slice(1).split('/')) {
 		const key = raw.replace(/~1/g, '/').replace(/~0/g, '~');
-		if (/^(0|[1-9][0-9]*)$/.test(key)) {
+		const inList = Array.isArray(here);
+		here = valueAt(here, [inList ? Number(key) : key]);
+		if (inList && /^(0|[1-9][0-9]*)$/.test(key)) {
 			segments.push(Number(key));
 			path += `[${key}]`;
 		} else {
@@ -253,12 +292,13 @@ const TYPE_WORDS: Record<string, string> = {
 	string: 'text (a string)',
 	number: 'a number',
 	boolean: 'true or false',
+	null: 'null',
 	array: 'a list',
 	object: 'an object'
 };
 
 function structureError(error: ErrorObject, data: unknown, body: string): InputError {
-	const { path, segments } = pointerToPath(error.instancePath);
+	const { path, segments } = pointerToPath(error.instancePath, data);
 	const value = valueAt(data, segments);
 	const subject = path === '' ? 'The diagram' : path;
 	const line = atLine(body, segments);
@@ -268,11 +308,16 @@ function structureError(error: ErrorObject, data: unknown, body: string): InputE
 		case 'required':
 			problem = `is missing the key ${quote(String(params.missingProperty))}`;
 			break;
-		case 'type':
+		case 'type': {
+			const types = Array.isArray(params.type) ? params.type.map(String) : [String(params.type)];
 			problem =
 				typeof value === 'number' && !Number.isFinite(value)
 					? `must be a finite number, found ${describeFound(value)}`
-					: `must be ${TYPE_WORDS[String(params.type)] ?? String(params.type)}, found ${describeFound(value)}`;
+					: `must be ${types.map((t) => TYPE_WORDS[t] ?? t).join(' or ')}, found ${describeFound(value)}`;
+			break;
+		}
+		case 'enum':
+			problem = `must be one of ${(Array.isArray(params.allowedValues) ? params.allowedValues : []).map((x) => JSON.stringify(x)).join(', ')}, found ${describeFound(value)}`;
 			break;
 		case 'minLength':
 			problem = 'must not be empty';
@@ -306,12 +351,17 @@ function toDiagram(file: DiagramFile): Diagram {
 		if (fv.x !== undefined) v.x = fv.x;
 		if (fv.y !== undefined) v.y = fv.y;
 		if (fv.note !== undefined) v.note = fv.note;
+		if (fv.data !== undefined) {
+			const data = toVariableData(fv.data);
+			if (!isEmptyVariableData(data)) v.data = data;
+		}
 		const extra = extraOf(fv, VARIABLE_KEY_SET);
 		if (extra) v.extra = extra;
 		return v;
 	});
 	const arrows = file.arrows.map((fa): Arrow => {
 		const a: Arrow = { from: fa.from, to: fa.to };
+		if (fa.note !== undefined) a.note = fa.note;
 		const extra = extraOf(fa, ARROW_KEY_SET);
 		if (extra) a.extra = extra;
 		return a;
@@ -327,4 +377,18 @@ function toDiagram(file: DiagramFile): Diagram {
 	const extra = extraOf(file, TOP_KEY_SET);
 	if (extra) d.extra = extra;
 	return d;
+}
+
+function toVariableData(fd: FileVariableData): VariableData {
+	const data: VariableData = {};
+	if (fd.column !== undefined) data.column = fd.column;
+	if (fd.kind !== undefined) data.kind = fd.kind;
+	if (fd.reference !== undefined) data.reference = fd.reference;
+	if (fd.labels !== undefined) {
+		const labels = Object.keys(fd.labels).map((value) => ({ value, label: (fd.labels as Record<string, string>)[value] }));
+		if (labels.length > 0) data.labels = labels;
+	}
+	const extra = extraOf(fd, DATA_KEY_SET);
+	if (extra) data.extra = extra;
+	return data;
 }

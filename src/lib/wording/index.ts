@@ -15,3 +15,4 @@ export * from './confounding';
 export * from './measures';
 export * from './two-way';
 export * from './analysis-code';
+export * from './study';

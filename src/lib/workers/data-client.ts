@@ -6,7 +6,7 @@
  */
 import type { Diagram } from '../graph/diagram';
 import type { ParseProgress, TableError } from '../stats';
-import type { DataCheckProgress, DataCheckReport, MappingOverrides, TableInfo, TypeOverrides } from '../datacheck';
+import type { DataCheckProgress, DataCheckReport, TableInfo } from '../datacheck';
 import type { DataPart, DataReply, DataRequest, DataSource } from './data-protocol';
 
 export interface DataRunnerEvents {
@@ -20,10 +20,9 @@ export interface DataRunnerEvents {
 	checkFailed(message: string): void;
 }
 
+/** The diagram carries its data settings (column links, kinds, levels): nothing else is sent. */
 export interface CheckRequest {
 	diagram: Diagram;
-	mapping: MappingOverrides;
-	types: TypeOverrides;
 	planned?: string[];
 }
 

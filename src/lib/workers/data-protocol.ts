@@ -1,7 +1,7 @@
 /** Messages between the app and the data worker. Plain data (structured clone). */
 import type { Diagram } from '../graph/diagram';
 import type { ParseProgress, TableError } from '../stats';
-import type { DataCheckProgress, DataCheckReport, MappingOverrides, TableInfo, TypeOverrides } from '../datacheck';
+import type { DataCheckProgress, DataCheckReport, TableInfo } from '../datacheck';
 
 export type { ColumnInfo, TableInfo } from '../datacheck';
 
@@ -12,7 +12,7 @@ export type DataSource = { kind: 'file'; file: File } | { kind: 'url'; url: stri
 
 export type DataRequest =
 	| { id: number; kind: 'load'; source: DataSource }
-	| { id: number; kind: 'check'; diagram: Diagram; mapping: MappingOverrides; types: TypeOverrides; planned?: string[] };
+	| { id: number; kind: 'check'; diagram: Diagram; planned?: string[] };
 
 export type DataReply =
 	| { id: number; kind: 'load-progress'; progress: ParseProgress }

@@ -69,9 +69,9 @@ function check(request: Extract<DataRequest, { kind: 'check' }>): void {
 	let report = null as DataCheckReport | null;
 	try {
 		for (const [k, part] of order.entries()) {
+			// The diagram's data settings drive the checks; one the table cannot honour is left out with a note.
 			const r = runDataChecks(request.diagram, table, {
-				mapping: request.mapping,
-				types: request.types,
+				settingProblems: 'note',
 				planned: request.planned,
 				pictures: true,
 				parts: { arrows: part === 'arrows', estimates: part === 'estimates', claims: part === 'claims' },

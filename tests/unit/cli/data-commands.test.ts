@@ -123,3 +123,27 @@ describe('bad input: one line on stderr, exit 2', () => {
 		expect(bad.stderr.trim().split('\n')).toHaveLength(1);
 	});
 });
+
+describe('the diagram file carries the data settings (R 4.2 on infert, make-settings-fixtures.R)', () => {
+	const SETTINGS = 'tests/fixtures/datacheck/infert-settings.causeway.json';
+	const INFERT = 'tests/fixtures/datacheck/infert.csv';
+	const ref = JSON.parse(readFileSync('tests/fixtures/datacheck/settings.json', 'utf8'));
+
+	it('`causeway estimate DIAGRAM DATA` with no flags uses the column link, kind and value labels of the file', async () => {
+		const r = await run(['estimate', SETTINGS, INFERT, '--json']);
+		expect(r.code).toBe(0);
+		const planned = JSON.parse(r.out).estimates.rows.find((x: { roles: string[] }) => x.roles.includes('planned'));
+		expect(Math.abs(planned.estimate / ref.spontaneousCategorical.or - 1)).toBeLessThan(1e-6);
+		const text = await run(['estimate', SETTINGS, INFERT]);
+		expect(text.out).toMatch(/abortions/);
+	});
+
+	it('flags override the file; a linked column the data lack is refused in one line', async () => {
+		const r = await run(['estimate', SETTINGS, INFERT, '--json', '--type', 'spontaneous=continuous']);
+		expect(r.code).toBe(0);
+		expect(JSON.parse(r.out).notes).toContain('The reference level and value labels of "abortions" are not used: its column \'spontaneous\' is analysed as continuous.');
+		const missing = await run(['estimate', SETTINGS, 'tests/fixtures/datacheck/mtcars.csv']);
+		expect(missing.code).toBe(2);
+		expect(missing.err).toBe('causeway: tests/fixtures/datacheck/mtcars.csv: The diagram links "abortions" to column "spontaneous", which is not in the data (--map overrides the diagram\'s link)\n');
+	});
+});

@@ -58,7 +58,7 @@ describe('DataRunner', () => {
 		expect(workers[0].terminated).toBe(false);
 		expect(workers[1].terminated).toBe(true);
 		expect(runner.hasData).toBe(true);
-		runner.check({ diagram: { title: '', variables: [], arrows: [], exposures: [], outcomes: [], adjusted: [] }, mapping: {}, types: {} });
+		runner.check({ diagram: { title: '', variables: [], arrows: [], exposures: [], outcomes: [], adjusted: [] } });
 		expect(workers[0].sent.at(-1)?.kind).toBe('check');
 		expect(log).toEqual(['loaded good.csv', 'failed Row 3 has 3 fields']);
 	});
@@ -91,8 +91,8 @@ describe('DataRunner', () => {
 		runner.load(file);
 		workers[0].reply({ id: 1, kind: 'loaded', info: info('a.csv'), ms: 1 });
 		const d = { title: '', variables: [], arrows: [], exposures: [], outcomes: [], adjusted: [] };
-		runner.check({ diagram: d, mapping: {}, types: {} });
-		runner.check({ diagram: d, mapping: {}, types: {} });
+		runner.check({ diagram: d });
+		runner.check({ diagram: d });
 		const [first, second] = workers[0].sent.filter((m) => m.kind === 'check').map((m) => m.id);
 		workers[0].reply({ id: first, kind: 'report', report: report(1), ms: 1 });
 		workers[0].reply({ id: second, kind: 'partial', report: report(2), pending: ['claims'] });

@@ -25,7 +25,8 @@ type Intent =
 	| { op: 'role'; i: number; list: RoleList; member: boolean }
 	| { op: 'plan'; picks: number[] }
 	| { op: 'undo' | 'redo' }
-	| { op: 'nudge'; i: number; dx: number };
+	| { op: 'nudge'; i: number; dx: number }
+	| { op: 'reid' | 'arrow-note' | 'column'; i: number; name: string };
 
 const name = fc.constantFrom('Age', 'Income', 'Diet', 'Smoking', 'Stress', 'Sleep', 'BMI', 'Salt', 'Variable', 'Age 2');
 const idx = fc.nat(30);
@@ -37,7 +38,8 @@ const intent: fc.Arbitrary<Intent> = fc.oneof(
 	fc.record({ op: fc.constant('role' as const), i: idx, list: fc.constantFrom<RoleList>('exposures', 'outcomes', 'adjusted'), member: fc.boolean() }),
 	fc.record({ op: fc.constant('plan' as const), picks: fc.array(idx, { maxLength: 4 }) }),
 	fc.record({ op: fc.constantFrom('undo' as const, 'redo' as const) }),
-	fc.record({ op: fc.constant('nudge' as const), i: idx, dx: fc.integer({ min: -20, max: 20 }) })
+	fc.record({ op: fc.constant('nudge' as const), i: idx, dx: fc.integer({ min: -20, max: 20 }) }),
+	fc.record({ op: fc.constantFrom('reid' as const, 'arrow-note' as const, 'column' as const), i: idx, name })
 );
 
 function toCommand(d: Diagram, it: Intent, serial: number): Command | null {
@@ -69,6 +71,13 @@ function toCommand(d: Diagram, it: Intent, serial: number): Command | null {
 		}
 		case 'plan':
 			return n ? { kind: 'set-adjusted', ids: it.picks.map(at) } : null;
+		case 'reid':
+			// Ids taken or unchanged are refused by the command; both outcomes are exercised.
+			return n ? { kind: 'change-id', id: at(it.i), newId: it.name.toLowerCase().replace(' ', '_') } : null;
+		case 'arrow-note':
+			return d.arrows.length ? { kind: 'set-arrow-note', ...arrowAt(it.i), note: it.name } : null;
+		case 'column':
+			return n ? { kind: 'set-variable-data', id: at(it.i), data: { column: it.name } } : null;
 		default:
 			return null;
 	}

@@ -3,7 +3,9 @@ import { readFileSync } from 'node:fs';
 import { idFollowsLabel, slugify, uniqueId } from '../../../src/lib/editor/ids';
 import { firstInReadingOrder, nearestInDirection } from '../../../src/lib/editor/navigation';
 import { freeSpot, isFree } from '../../../src/lib/editor/placement';
-import { AUTOSAVE_KEY, createAutosaver, firstVisit, restoreDiagram, saveDiagram, type StorageLike } from '../../../src/lib/editor/autosave';
+import { ASIDE_KEY, asideCopies, AUTOSAVE_KEY, createAutosaver, discardAsideCopies, firstVisit, MAX_ASIDE, restoreDiagram, saveDiagram, type StorageLike } from '../../../src/lib/editor/autosave';
+import { emptyDiagram } from '../../../src/lib/graph/diagram';
+import { writeDiagramJson } from '../../../src/lib/graph/native-json';
 import { parseDiagramJson } from '../../../src/lib/graph/native-json';
 import { pruneSelection } from '../../../src/lib/editor/selection';
 
@@ -68,10 +70,60 @@ describe('autosave', () => {
 		expect(r.kind === 'saved' && r.diagram).toEqual(demo);
 	});
 
-	it('ignores an unreadable stored text without throwing', () => {
+	it('keeps an unreadable stored text aside, with the reason, instead of dropping it', () => {
 		const s = new MemoryStorage();
-		s.setItem(AUTOSAVE_KEY, '{"format": "causeway.diagram", "version": 1, "variables": [');
-		expect(restoreDiagram(s).kind).toBe('unreadable');
+		// What an editor without length checks once saved: a name past the reader's limit.
+		const text = writeDiagramJson({ ...demo, variables: [{ ...demo.variables[0], label: 'x'.repeat(1001) }, ...demo.variables.slice(1)] });
+		s.setItem(AUTOSAVE_KEY, text);
+		const r = restoreDiagram(s);
+		expect(r.kind).toBe('unreadable');
+		expect(r.kind === 'unreadable' && r.keptAside).toBe(true);
+		expect(r.kind === 'unreadable' && r.message).toMatch(/^The diagram saved in this browser could not be read \(The label of Variable 1 \("age"\) is too long: 1,001 characters/);
+		expect(s.getItem(AUTOSAVE_KEY)).toBeNull();
+		const [copy] = asideCopies(s);
+		expect(copy.text).toBe(text);
+		expect(copy.reason).toMatch(/too long/);
+		// The next start has nothing to restore, and an empty diagram's autosave touches nothing kept aside.
+		expect(restoreDiagram(s)).toEqual({ kind: 'none' });
+		createAutosaver(s, 10).schedule(emptyDiagram(), false);
+		expect(asideCopies(s)).toHaveLength(1);
+		discardAsideCopies(s);
+		expect(s.getItem(ASIDE_KEY)).toBeNull();
+	});
+
+	it('keeps at most the last few unreadable copies', () => {
+		const s = new MemoryStorage();
+		for (let i = 0; i < MAX_ASIDE + 2; i++) {
+			s.setItem(AUTOSAVE_KEY, `{"broken": ${i}`);
+			restoreDiagram(s);
+		}
+		const copies = asideCopies(s);
+		expect(copies).toHaveLength(MAX_ASIDE);
+		expect(copies.at(-1)!.text).toBe(`{"broken": ${MAX_ASIDE + 1}`);
+	});
+
+	it('leaves the text in place when storage cannot keep it aside', () => {
+		const s = new MemoryStorage();
+		s.setItem(AUTOSAVE_KEY, '{');
+		s.setItem = () => {
+			throw new Error('QuotaExceededError');
+		};
+		const r = restoreDiagram(s);
+		expect(r.kind === 'unreadable' && r.keptAside).toBe(false);
+		expect(s.getItem(AUTOSAVE_KEY)).toBe('{');
+	});
+
+	it('never replaces a stored diagram by an empty one the user did not make', () => {
+		const s = new MemoryStorage();
+		saveDiagram(s, demo);
+		const saver = createAutosaver(s, 10_000);
+		saver.schedule(emptyDiagram(), false);
+		saver.flush();
+		expect(JSON.parse(s.getItem(AUTOSAVE_KEY)!).variables).toHaveLength(13);
+		// New (or deleting everything) is the user's own edit: it is saved.
+		saver.schedule(emptyDiagram(), true);
+		saver.flush();
+		expect(JSON.parse(s.getItem(AUTOSAVE_KEY)!).variables).toHaveLength(0);
 	});
 
 	it('saves the first edit at once, then only the latest of a burst, on flush', () => {

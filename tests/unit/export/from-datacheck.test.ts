@@ -28,7 +28,7 @@ describe('data results from the data-check pipeline', () => {
 	if (!parsed.ok) throw new Error(parsed.error.message);
 	const checks = runDataChecks(d, parsed.table);
 	const label = labelLookup(d);
-	const data = reportDataFromChecks(checks, label, 'cycling-hypertension.csv', d);
+	const data = reportDataFromChecks(checks, label, 'cycling-hypertension.csv', { diagram: d });
 
 	it('carries every claim check and estimate with the pipeline’s numbers', () => {
 		expect(checkReportData(JSON.parse(JSON.stringify(data)))).toBeTruthy();
@@ -112,6 +112,23 @@ describe('data results from the data-check pipeline', () => {
 		});
 		expect(err).toBe('');
 		expect(code).toBe(0);
-		expect(out).toBe(reportMarkdown(buildReport({ diagram: d, data, date: new Date(2026, 2, 1) })));
+		// The command's report also prints the commands that reproduce it, with the paths it was given.
+		const withFiles = reportDataFromChecks(checks, labelLookup(d), 'cycling-hypertension.csv', { diagram: d, files: { diagram: DEMO_PATH, data: CSV } });
+		expect(out).toBe(reportMarkdown(buildReport({ diagram: d, data: withFiles, date: new Date(2026, 2, 1) })));
+		expect(out).toContain(`npx causeway estimate ${DEMO_PATH} ${CSV}`);
+	});
+
+	it('states how each variable met the data (column, kind, reference level)', () => {
+		const md = reportMarkdown(buildReport({ diagram: d, data, date: new Date(2026, 2, 1) }));
+		expect(md).toContain('| Variable | Column | Analysed as | Reference level |');
+		expect(md).toContain('| Commutes by bicycle | cycling | binary (detected) | 0 |');
+		expect(md).toContain('| Age | age | continuous (detected) | – |');
+		expect(data.columns).toHaveLength(12);
+	});
+
+	it('lists the reasons given for arrows among the assumptions', () => {
+		const md = reportMarkdown(buildReport({ diagram: d, date: new Date(2026, 2, 1) }));
+		expect(md).toContain('### Why the arrows are assumed');
+		expect(md).toContain('| Age → Hypertension | Assumed: blood pressure rises with age in adults. |');
 	});
 });

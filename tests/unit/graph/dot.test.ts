@@ -28,7 +28,8 @@ describe('DOT round trips', () => {
 		expect(dot).toContain('  health_consciousness [label="Health consciousness", measured=false, pos="300,-60", note="Personality trait; not measured in the study"];');
 		expect(dot).toContain('  age [label="Age", role="adjusted", pos="80,-300", note="Years at enrolment"];');
 		expect(dot).toContain('  label="Cycling to work and hypertension (demo study)";');
-		expect(dot).toContain('  hypertension -> app_panel;');
+		expect(dot).toContain('  hypertension -> app_panel [note="Assumed: people who know they are hypertensive join fitness-app panels more often (selection into the panel)."];');
+		expect(dot).toContain('  income -> hypertension;');
 	});
 
 	it('keeps labels with unicode, quotes, backslashes, ampersands and line breaks', () => {

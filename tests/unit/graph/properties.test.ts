@@ -4,7 +4,7 @@
 import { readFileSync } from 'node:fs';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import type { Arrow, Diagram, Extra, Variable } from '../../../src/lib/graph/diagram';
+import { canonicalLabels, DATA_KINDS, type Arrow, type Diagram, type Extra, type Variable, type VariableData } from '../../../src/lib/graph/diagram';
 import { parseDot, writeDot } from '../../../src/lib/graph/dot';
 import { InputError } from '../../../src/lib/graph/errors';
 import { fromGraphlib, toGraphlib } from '../../../src/lib/graph/graphlib-model';
@@ -64,7 +64,28 @@ const dotFlavour: Flavour = {
 	rolesInVariableOrder: true
 };
 
-const NODE_OWN = new Set(['id', 'label', 'measured', 'x', 'y', 'note', 'role', 'pos']);
+const NODE_OWN = new Set(['id', 'label', 'measured', 'x', 'y', 'note', 'data', 'role', 'pos', 'data_column', 'data_kind', 'data_reference', 'data_labels']);
+
+/** A variable's data settings (version 2); unknown keys inside them only where the format keeps them. */
+function dataArb(f: Flavour): fc.Arbitrary<VariableData | undefined> {
+	const text = f.rolesInVariableOrder ? dotRawText : anyText;
+	return fc.option(
+		fc
+			.record(
+				{
+					column: fc.option(text.filter((s) => s.length > 0), { nil: null }),
+					kind: fc.constantFrom(...DATA_KINDS),
+					reference: text,
+					labels: fc.array(fc.record({ value: fc.oneof(text, fc.nat({ max: 30 }).map(String)).filter((v) => !UNSAFE.has(v)), label: text }), { minLength: 1, maxLength: 4 }).map(canonicalLabels),
+					extra: f.rolesInVariableOrder ? fc.constant(undefined) : extraArb(new Set(['column', 'kind', 'reference', 'labels']), f.extraKey, f.extraValue)
+				},
+				{ requiredKeys: [] }
+			)
+			.filter((d) => Object.values(d).some((x) => x !== undefined))
+			.map((d) => Object.fromEntries(Object.entries(d).filter(([, x]) => x !== undefined)) as VariableData),
+		{ nil: undefined }
+	);
+}
 
 function diagramArb(f: Flavour): fc.Arbitrary<Diagram> {
 	const variable = (id: string): fc.Arbitrary<Variable> =>
@@ -74,12 +95,14 @@ function diagramArb(f: Flavour): fc.Arbitrary<Diagram> {
 				measured: fc.boolean(),
 				pos: fc.option(fc.tuple(coordinate, coordinate), { nil: undefined }),
 				note: fc.option(anyText, { nil: undefined }),
+				data: dataArb(f),
 				extra: extraArb(NODE_OWN, f.extraKey, f.extraValue)
 			})
-			.map(({ label, measured, pos, note, extra }) => {
+			.map(({ label, measured, pos, note, data, extra }) => {
 				const v: Variable = { id, label: label ?? id, measured };
 				if (pos) [v.x, v.y] = pos;
 				if (note !== undefined) v.note = note;
+				if (data) v.data = data;
 				if (extra) v.extra = extra;
 				return v;
 			});
@@ -89,8 +112,8 @@ function diagramArb(f: Flavour): fc.Arbitrary<Diagram> {
 			? fc.subarray(ids)
 			: fc.array(fc.oneof(idArb, f.id), { maxLength: 3 });
 		const arrow: fc.Arbitrary<Arrow> = fc
-			.record({ from: idArb, to: idArb, extra: extraArb(new Set(['from', 'to']), f.extraKey, f.extraValue) })
-			.map(({ from, to, extra }) => (extra ? { from, to, extra } : { from, to }));
+			.record({ from: idArb, to: idArb, note: fc.option(anyText, { nil: undefined }), extra: extraArb(new Set(['from', 'to', 'note']), f.extraKey, f.extraValue) })
+			.map(({ from, to, note, extra }) => ({ from, to, ...(note !== undefined ? { note } : {}), ...(extra ? { extra } : {}) }));
 		return fc
 			.record({
 				title: anyText,

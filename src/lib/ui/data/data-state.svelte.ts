@@ -1,21 +1,27 @@
 /**
  * The Data section's state: the loaded table (its description; the rows stay in the data
- * worker) or summary matrix, the user's column mapping and kinds, the latest report and the
- * diagram it belongs to, load/check progress and messages. A bad file, a refused column kind
- * or a cancel leaves the earlier data, choices and report in place.
+ * worker) or summary matrix, the latest report and the diagram it belongs to, load/check
+ * progress and messages. The column links, kinds, reference levels and value labels are not
+ * kept here: they are the diagram's (Variable.data), changed through editor commands, so they
+ * are undoable, autosaved, saved with the file and read by the command line. A bad file or a
+ * cancel leaves the earlier data and report in place.
+ *
+ * When another diagram replaces the current one (New, Open, a share link) the app asks
+ * whether to keep the data (keepFor) or to drop them (clear); a kept table is matched again to
+ * the new diagram, and `rematch` then says what changed.
  */
 import type { Diagram } from '../../graph/diagram';
-import type { ColumnKind, ParseProgress, SummaryStatistics, TableError } from '../../stats';
-import { parseSummaryMatrix, runSummaryChecks, type DataCheckProgress, type DataCheckReport, type TableInfo } from '../../datacheck';
+import type { ParseProgress, SummaryStatistics, TableError } from '../../stats';
+import { parseSummaryMatrix, rematchDifferences, runSummaryChecks, type DataCheckProgress, type DataCheckReport, type Rematch, type TableInfo } from '../../datacheck';
 import { DataRunner } from '../../workers/data-client';
 import type { DataPart, DataSource } from '../../workers/data-protocol';
 import { structureKey } from '../../workers/analysis-steps';
 
 export type DataStatus = 'empty' | 'loading' | 'checking' | 'ready';
 
-/** What the checks depend on in the diagram: structure, labels (name matching) and the question. */
+/** What the checks depend on in the diagram: structure, labels (name matching), data settings and the question. */
 export function dataKey(d: Diagram): string {
-	return JSON.stringify([structureKey(d), d.variables.map((v) => v.label), d.exposures, d.outcomes, d.adjusted]);
+	return JSON.stringify([structureKey(d), d.variables.map((v) => [v.label, v.data ?? null]), d.exposures, d.outcomes, d.adjusted]);
 }
 
 export function describeTableError(e: TableError): string {
@@ -32,10 +38,12 @@ export class DataState {
 	loadProgress = $state.raw<ParseProgress | null>(null);
 	loadingName = $state<string | null>(null);
 	checkProgress = $state.raw<DataCheckProgress | null>(null);
-	/** A refused file or choice, shown until the next action. */
+	/** A refused file or a check that could not run, shown until the next action. */
 	error = $state<string | null>(null);
-	mapping = $state.raw<Record<string, string | null>>({});
-	types = $state.raw<Record<string, ColumnKind>>({});
+	/** After a kept table met another diagram: what the new matching links, and what it lost. */
+	rematch = $state.raw<Rematch | null>(null);
+	/** The data file's own name (for the report's reproduction commands); null for a pasted matrix. */
+	fileName = $state<string | null>(null);
 	lastMs = $state(0);
 	/** Parts of the shown report still being computed (claims take longest on large tables). */
 	pending = $state.raw<readonly DataPart[]>([]);
@@ -43,7 +51,9 @@ export class DataState {
 	#runner: DataRunner;
 	#diagram: Diagram | null = null;
 	#key: string | null = null;
-	#good: { mapping: Record<string, string | null>; types: Record<string, ColumnKind> } = { mapping: {}, types: {} };
+	/** How the table met the diagram before another one came, until the kept table is matched again. */
+	#before: { diagram: Diagram; report: DataCheckReport } | null = null;
+	#loadingFile: string | null = null;
 	#timer: ReturnType<typeof setTimeout> | null = null;
 
 	constructor(createWorker?: () => Worker) {
@@ -52,10 +62,9 @@ export class DataState {
 				loadProgress: (p) => (this.loadProgress = p),
 				loaded: (info) => {
 					this.info = info;
+					this.fileName = this.#loadingFile;
 					this.summary = null;
-					this.mapping = {};
-					this.types = {};
-					this.#good = { mapping: {}, types: {} };
+					this.#forgetRematch();
 					this.loadProgress = null;
 					this.loadingName = null;
 					this.error = null;
@@ -79,12 +88,12 @@ export class DataState {
 					this.pending = [];
 					this.report = r;
 					this.reportKey = this.#key;
-					this.#good = { mapping: this.mapping, types: this.types };
+					this.#settleRematch(r);
 					this.checkProgress = null;
 					this.lastMs = ms;
 					if (this.status === 'checking') this.status = 'ready';
 				},
-				checkFailed: (message) => this.#refused(message)
+				checkFailed: (message) => this.#failed(message)
 			},
 			createWorker
 		);
@@ -101,6 +110,7 @@ export class DataState {
 	load(source: DataSource): void {
 		this.error = null;
 		this.loadingName = source.kind === 'file' ? source.file.name : source.name;
+		this.#loadingFile = source.kind === 'file' ? source.file.name : decodeURIComponent(source.url.replace(/[?#].*$/, '').replace(/^.*\//, ''));
 		this.loadProgress = { characters: 0, rows: 0, fraction: 0 };
 		this.status = 'loading';
 		this.#runner.load(source);
@@ -127,10 +137,9 @@ export class DataState {
 		}
 		this.#runner.clear();
 		this.info = null;
+		this.fileName = null;
 		this.summary = { name, stats };
-		this.mapping = {};
-		this.types = {};
-		this.#good = { mapping: {}, types: {} };
+		this.#forgetRematch();
 		this.report = null;
 		this.status = 'checking';
 		this.#run();
@@ -139,32 +148,26 @@ export class DataState {
 	clear(): void {
 		this.#runner.clear();
 		this.info = null;
+		this.fileName = null;
 		this.summary = null;
 		this.report = null;
 		this.reportKey = null;
-		this.mapping = {};
-		this.types = {};
+		this.#forgetRematch();
 		this.error = null;
 		this.status = 'empty';
 	}
 
-	/** Link a variable to a column (null: no data for it; undefined: back to matching by name). */
-	setMapping(variableId: string, column: string | null | undefined): void {
-		const next = { ...this.mapping };
-		if (column === undefined) delete next[variableId];
-		else next[variableId] = column;
-		this.mapping = next;
-		this.error = null;
-		this.#schedule(0);
+	/**
+	 * Another diagram is about to replace `current` and the user keeps the data: remember how
+	 * the table met the current diagram, so the next report can say what changed.
+	 */
+	keepFor(current: Diagram): void {
+		this.rematch = null;
+		this.#before = this.report ? { diagram: current, report: this.report } : null;
 	}
 
-	setType(column: string, kind: ColumnKind | undefined): void {
-		const next = { ...this.types };
-		if (kind === undefined) delete next[column];
-		else next[column] = kind;
-		this.types = next;
-		this.error = null;
-		this.#schedule(0);
+	dismissRematch(): void {
+		this.rematch = null;
 	}
 
 	/** The diagram changed: re-check after a short pause (edits come in bursts). */
@@ -181,6 +184,17 @@ export class DataState {
 		this.#runner.dispose();
 	}
 
+	#forgetRematch(): void {
+		this.rematch = null;
+		this.#before = null;
+	}
+
+	#settleRematch(r: DataCheckReport): void {
+		if (!this.#before || !this.#diagram) return;
+		this.rematch = rematchDifferences(this.#before.diagram, this.#before.report, this.#diagram, r, this.sourceName ?? 'the data');
+		this.#before = null;
+	}
+
 	#schedule(ms: number): void {
 		if (this.#timer) clearTimeout(this.#timer);
 		this.#timer = setTimeout(() => {
@@ -189,41 +203,32 @@ export class DataState {
 		}, ms);
 	}
 
-	#refused(message: string): void {
-		this.error = `Not applied — ${message}`;
+	#failed(message: string): void {
+		this.error = `The data checks could not run — ${message}`;
 		this.pending = [];
-		this.mapping = this.#good.mapping;
-		this.types = this.#good.types;
 		this.checkProgress = null;
 		this.status = this.hasData ? 'ready' : 'empty';
-	}
-
-	/** The user's links that still apply: variables deleted or marked unmeasured since are dropped. */
-	#mappingFor(d: Diagram): Record<string, string | null> {
-		const measured = new Set(d.variables.filter((v) => v.measured).map((v) => v.id));
-		const kept = Object.fromEntries(Object.entries(this.mapping).filter(([id]) => measured.has(id)));
-		if (Object.keys(kept).length !== Object.keys(this.mapping).length) this.mapping = kept;
-		return kept;
 	}
 
 	#run(): void {
 		const d = this.#diagram;
 		if (!d || !this.hasData) return;
 		this.#key = dataKey(d);
-		const mapping = this.#mappingFor(d);
 		if (this.summary) {
 			try {
-				this.report = runSummaryChecks(d, this.summary.stats, { mapping });
+				this.report = runSummaryChecks(d, this.summary.stats, { settingProblems: 'note' });
 				this.reportKey = this.#key;
-				this.#good = { mapping: this.mapping, types: this.types };
+				this.#settleRematch(this.report);
+				this.error = null;
 				this.status = 'ready';
 			} catch (e) {
-				this.#refused(e instanceof Error ? e.message : String(e));
+				this.#failed(e instanceof Error ? e.message : String(e));
 			}
 			return;
 		}
 		if (this.status !== 'loading') this.status = 'checking';
+		this.error = null;
 		this.checkProgress = { stage: 'arrows', fraction: 0 };
-		this.#runner.check({ diagram: d, mapping: { ...mapping }, types: { ...this.types } });
+		this.#runner.check({ diagram: d });
 	}
 }
