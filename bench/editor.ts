@@ -249,9 +249,9 @@ async function benchDrag(browser: Browser, url: string, n: number): Promise<Row>
 		arrows: fmtInt(2 * n),
 		'open + first full analysis': '',
 		claims: '',
-		'question edit → verdict (median)': `${((r.frames * 1000) / r.ms).toFixed(0)} frames/s while dragging`,
-		'question edit: all runs': `${r.frames} frames in ${fmtMs(r.ms)}; longest frame ${fmtMs(r.maxGap)}`,
-		'structural edit → claims listed (median)': `variable moved ${moved.toFixed(0)} px`,
-		'structural edit: all runs': ''
+		'P → verdict (median)': `${((r.frames * 1000) / r.ms).toFixed(0)} frames/s while dragging`,
+		'U → verdict (median)': `${r.frames} frames in ${fmtMs(r.ms)}; longest frame ${fmtMs(r.maxGap)}`,
+		'U → claims listed (median)': `variable moved ${moved.toFixed(0)} px`,
+		'load average (1 min)': loadavg()[0].toFixed(1)
 	};
 }
