@@ -6,7 +6,8 @@
  */
 import type { Diagram } from '../graph/diagram';
 import { InputError } from '../graph/errors';
-import { matchColumns } from '../stats';
+// The module itself, not the stats barrel: the app's Adjustment section uses this file up front.
+import { matchColumns } from '../stats/table/match-columns';
 import type { MappingOverrides, VariableMapping } from './types';
 
 export function mapVariables(diagram: Diagram, columnNames: readonly string[], overrides: MappingOverrides = {}): VariableMapping {

@@ -12,7 +12,15 @@
  */
 import type { Diagram } from '../../graph/diagram';
 import type { ParseProgress, SummaryStatistics, TableError } from '../../stats';
-import { parseSummaryMatrix, rematchDifferences, runSummaryChecks, type DataCheckProgress, type DataCheckReport, type Rematch, type TableInfo } from '../../datacheck';
+import type { DataCheckProgress, DataCheckReport, Rematch, TableInfo } from '../../datacheck';
+import { rematchDifferences } from '../../datacheck/rematch';
+
+/**
+ * The checks of a pasted summary matrix run on the page; their code (with the statistics it
+ * needs) loads when a matrix is first given, so the app's start-up does not carry it.
+ */
+type SummaryModule = typeof import('../../datacheck/summary');
+let summaryModule: SummaryModule | null = null;
 import { DataRunner } from '../../workers/data-client';
 import type { DataPart, DataSource } from '../../workers/data-protocol';
 import { structureKey } from '../../workers/analysis-steps';
@@ -126,11 +134,12 @@ export class DataState {
 	}
 
 	/** A correlation or covariance matrix (text form in docs/data.md); checked on the page (it is small). */
-	loadSummary(name: string, text: string): void {
+	async loadSummary(name: string, text: string): Promise<void> {
 		this.error = null;
 		let stats: SummaryStatistics;
 		try {
-			stats = parseSummaryMatrix(text);
+			summaryModule ??= await import('../../datacheck/summary');
+			stats = summaryModule.parseSummaryMatrix(text);
 		} catch (e) {
 			this.error = `${name} was not loaded — ${e instanceof Error ? e.message : String(e)}`;
 			return;
@@ -214,9 +223,9 @@ export class DataState {
 		const d = this.#diagram;
 		if (!d || !this.hasData) return;
 		this.#key = dataKey(d);
-		if (this.summary) {
+		if (this.summary && summaryModule) {
 			try {
-				this.report = runSummaryChecks(d, this.summary.stats, { settingProblems: 'note' });
+				this.report = summaryModule.runSummaryChecks(d, this.summary.stats, { settingProblems: 'note' });
 				this.reportKey = this.#key;
 				this.#settleRematch(this.report);
 				this.error = null;
