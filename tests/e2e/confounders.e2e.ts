@@ -59,7 +59,7 @@ test('every candidate at once, a two-way table, standardized estimates and the c
 	for (const id of ['age', 'income', 'diet', 'distance', 'bikeability', 'family_history']) await expect(candidate(page, id)).toBeVisible();
 	const age = candidate(page, 'age');
 	await expect(age).toContainText('Age');
-	await expect(age).toContainText('numbers');
+	await expect(age).toContainText('continuous');
 	await expect(age).toContainText('confounder · common cause');
 	await expect(age).toContainText('d = −0.268');
 	await expect(age).toContainText('0.474 → 0.526');
@@ -91,7 +91,7 @@ test('every candidate at once, a two-way table, standardized estimates and the c
 	// Estimates: the crude on each row's own rows, kinds beside each set, standardized estimates, the sentence.
 	await expect(section.getByTestId('crude-rows')).toContainText('Crude on all rows: 0.474 (0.411 to 0.546), n = 5,000');
 	await expect(section.getByTestId('estimates-table')).toContainText('from 0.474');
-	await expect(section.getByTestId('estimates-table')).toContainText('numbers: Age, Diet quality, Household income');
+	await expect(section.getByTestId('estimates-table')).toContainText('continuous: Age, Diet quality, Household income');
 	const standardized = section.getByTestId('standardized-table');
 	await expect(standardized).toContainText('−8.8');
 	await expect(standardized).toContainText('0.709');
@@ -136,13 +136,13 @@ test('a 0/1/2/3-coded column: the notice names it, its kind is stated beside eac
 	const notice = data(page).getByTestId('category-codes');
 	await expect(notice).toContainText("Column 'income' holds only the whole numbers 0, 1, 2 and 3: it looks like category codes.");
 	await expect(notice).toContainText('residual confounding');
-	await expect(candidate(page, 'income')).toContainText('numbers — look like category codes 0, 1, 2 and 3');
+	await expect(candidate(page, 'income')).toContainText('continuous — values look like category codes 0, 1, 2 and 3');
 	await expect(data(page).getByTestId('estimates-table')).toContainText('Household income (look like category codes)');
-	await expect(data(page).locator('li[data-arrow="income>cycling"]')).toContainText('Household income: numbers — look like category codes 0, 1, 2 and 3');
+	await expect(data(page).locator('li[data-arrow="income>cycling"]')).toContainText('Household income: continuous — values look like category codes 0, 1, 2 and 3');
 	await page.screenshot({ path: 'test-results/category-codes.png' });
 	await notice.getByRole('button', { name: "Treat 'income' as categories" }).click();
 	await expect(data(page).getByTestId('category-codes')).toHaveCount(0, { timeout: 30_000 });
-	await expect(candidate(page, 'income')).toContainText('categories, 4 levels (reference 0)', { timeout: 30_000 });
+	await expect(candidate(page, 'income')).toContainText('categorical, 4 levels (reference 0)', { timeout: 30_000 });
 	// Now the income arrows read odds ratios per level against band 0, with the table.
 	await expect(candidate(page, 'income')).toContainText('OR ');
 	await candidate(page, 'income').getByRole('button', { name: 'Details of Household income' }).click();

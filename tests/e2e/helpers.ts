@@ -148,6 +148,6 @@ export function watchPage(page: Page, baseURL: string) {
 export async function openSection(page: Page, id: 'question' | 'adjustment' | 'paths' | 'claims' | 'review' | 'data' | 'report') {
 	const button = page.locator(`#${id}-heading button`);
 	if ((await button.getAttribute('aria-expanded')) !== 'true') await button.click();
-	await expect(page.locator(`section[data-section="${id}"] .loading`)).toHaveCount(0, { timeout: 20_000 });
+	await expect(page.locator(`section[data-section="${id}"] .loading`)).toHaveCount(0, { timeout: 60_000 });
 	await expect(page.locator(`#${id}-heading button`)).toHaveAttribute('aria-expanded', 'true');
 }

@@ -26,7 +26,7 @@ export function twoWayLines(t: TwoWayTable, indent = '    '): string[] {
 	return out.map((l) => indent + l);
 }
 
-/** The kind of a column as analysed, by column name ("numbers", "binary (reference 0)", …). */
+/** The kind of a column as analysed, by column name ("continuous", "binary (reference 0)", …). */
 export function kindOf(report: DataCheckReport): (column: string) => string {
 	const byColumn = new Map(report.columns.map((c) => [c.column, kindText(c)]));
 	return (column) => byColumn.get(column) ?? '';

@@ -39,7 +39,7 @@ export interface ReportTextTable {
 export interface ReportArrowCheck {
 	/** "Age → Commutes by bicycle". */
 	arrow: string;
-	/** The kind of each column, e.g. "numbers; binary (reference 0)". */
+	/** The kind of each column, e.g. "continuous; binary (reference 0)". */
 	kinds: string;
 	/** The size in the measure read, with p and n. */
 	result: string;

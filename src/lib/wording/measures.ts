@@ -13,10 +13,10 @@ import { formatCi, formatCount, formatNumber, pText } from './numbers';
 
 /** The kind a column is analysed as, in one or two words. */
 export const KIND_WORD: Readonly<Record<ColumnKind, string>> = {
-	continuous: 'numbers',
+	continuous: 'continuous',
 	binary: 'binary',
-	categorical: 'categories',
-	ordinal: 'ordered categories'
+	categorical: 'categorical',
+	ordinal: 'ordinal'
 };
 
 /** What a kind means in a regression model (said beside estimates that use the column). */
@@ -34,11 +34,11 @@ export function codeList(values: readonly number[]): string {
 }
 
 /**
- * The kind beside a result: "numbers", "numbers — look like category codes 0, 1, 2 and 3",
- * "binary (reference 0)", "categories, 4 levels (reference 0-5yrs)".
+ * The kind beside a result: "continuous", "continuous — values look like category codes 0, 1, 2 and 3",
+ * "binary (reference 0)", "categorical, 4 levels (reference 0-5yrs)".
  */
 export function kindText(c: { kind: ColumnKind; levels: readonly string[]; codeValues?: readonly number[] | null }): string {
-	if (c.kind === 'continuous') return c.codeValues ? `numbers — look like category codes ${codeList(c.codeValues)}` : 'numbers';
+	if (c.kind === 'continuous') return c.codeValues ? `continuous — values look like category codes ${codeList(c.codeValues)}` : 'continuous';
 	const reference = c.levels[0] === undefined ? '' : `reference ${c.levels[0]}`;
 	if (c.kind === 'binary') return `binary${reference ? ` (${reference})` : ''}`;
 	return `${KIND_WORD[c.kind]}, ${formatCount(c.levels.length)} levels${reference ? ` (${reference})` : ''}`;
@@ -121,13 +121,13 @@ export function resultText(m: ReadMeasure | null, pValue: number, n: number, nam
 }
 
 /**
- * The kinds of a set's columns, grouped: "numbers: Age, Diet quality; binary (reference 0):
+ * The kinds of a set's columns, grouped: "continuous: Age, Diet quality; binary (reference 0):
  * Family history". Columns that look like category codes are marked "(look like codes)". O(k).
  */
 export function kindsSummary(items: readonly { label: string; kind: ColumnKind; levels: readonly string[]; codeValues?: readonly number[] | null }[]): string {
 	const groups = new Map<string, string[]>();
 	for (const it of items) {
-		const key = it.kind === 'continuous' ? 'numbers' : kindText(it);
+		const key = it.kind === 'continuous' ? 'continuous' : kindText(it);
 		const name = it.codeValues ? `${it.label} (look like category codes)` : it.label;
 		groups.set(key, [...(groups.get(key) ?? []), name]);
 	}

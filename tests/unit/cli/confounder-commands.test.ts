@@ -44,7 +44,7 @@ describe('causeway test: two-way tables and category codes', () => {
 			expect(r.out).toMatch(new RegExp(`${level} vs A\\s+${formatNumber(R.ucb.level_ors_dept.or[i]).replace('.', '\\.')}\\s+${formatCi([R.ucb.level_ors_dept.ci_low[i], R.ucb.level_ors_dept.ci_high[i]]).replace(/\./g, '\\.')}`));
 		});
 		// The size is an odds ratio, read as such, with the kinds stated.
-		expect(r.out).toMatch(/dept → admitted\s+supported\s+odds ratio 0\.038[^;]*: odds of admitted = 1 are 0\.038 times as high at dept = F as at A; p < 0\.001, n = 4,526 {2}\[Pearson chi-square test; dept: categories, 6 levels \(reference A\), admitted: binary \(reference 0\)\]/);
+		expect(r.out).toMatch(/dept → admitted\s+supported\s+odds ratio 0\.038[^;]*: odds of admitted = 1 are 0\.038 times as high at dept = F as at A; p < 0\.001, n = 4,526 {2}\[Pearson chi-square test; dept: categorical, 6 levels \(reference A\), admitted: binary \(reference 0\)\]/);
 	});
 
 	it('--json carries each table with R’s counts and X²', async () => {
@@ -67,12 +67,12 @@ describe('causeway test: two-way tables and category codes', () => {
 		expect(r.out).toContain(
 			"Notice: Column 'spontaneous' holds only the whole numbers 0, 1 and 2: it looks like category codes. It is analysed as numbers, so a model that adjusts for it fits one straight-line term across the codes (equal steps between them), which leaves residual confounding if the codes label categories. If they do, run again with --type spontaneous=categorical."
 		);
-		expect(r.out).toMatch(/spontaneous: numbers — look like category codes 0, 1 and 2/);
+		expect(r.out).toMatch(/spontaneous: continuous — values look like category codes 0, 1 and 2/);
 		const json = JSON.parse((await run(['test', 'infert.json', INFERT_CSV, '--json'], files)).out);
 		expect(json.categoryCodes).toEqual([{ column: 'spontaneous', values: [0, 1, 2] }]);
 		const typed = await run(['test', 'infert.json', INFERT_CSV, '--type', 'spontaneous=categorical'], files);
 		expect(typed.out).not.toContain('Notice:');
-		expect(typed.out).toMatch(/spontaneous: categories, 3 levels \(reference 0\)/);
+		expect(typed.out).toMatch(/spontaneous: categorical, 3 levels \(reference 0\)/);
 		// R: glm(case ~ factor(spontaneous), binomial) — the per-level odds ratios of the table.
 		R.infert.level_ors_spontaneous.levels.forEach((level: string, i: number) => expect(typed.out).toMatch(new RegExp(`${level} vs 0\\s+${formatNumber(R.infert.level_ors_spontaneous.or[i]).replace('.', '\\.')}`)));
 	});
@@ -90,8 +90,8 @@ describe('causeway estimate: crude rows, standardized estimates and the confound
 		// statsmodels' StratifiedTable.test_equal_odds(adjust=True) (tests/fixtures/stats/breslow-day.json).
 		const bd = fixture('breslow-day.json').ucb.tarone;
 		expect(r.out).toContain(`Breslow–Day–Tarone X² = ${formatNumber(bd.statistic)}, 5 df, p = ${formatNumber(bd.p, 2)}: the odds ratio differs across the strata`);
-		expect(r.out).toContain('dept (column dept: categories, 6 levels (reference A)) — confounder · common cause');
-		expect(r.out).toContain('kinds: dept categories, 6 levels (reference A)');
+		expect(r.out).toContain('dept (column dept: categorical, 6 levels (reference A)) — confounder · common cause');
+		expect(r.out).toContain('kinds: dept categorical, 6 levels (reference A)');
 	});
 
 	it('--json: confounders, category codes, columns and the standardized estimates, equal to R', async () => {
@@ -112,9 +112,9 @@ describe('causeway estimate: crude rows, standardized estimates and the confound
 
 	it('mediators and descendants are listed as not candidates, with the reason', async () => {
 		const r = await run(['estimate', 'static/demo/cycling-hypertension.causeway.json', 'static/demo/cycling-hypertension.csv']);
-		expect(r.out).toContain('fitness (column fitness: numbers) — mediator; not a candidate: a mediator');
+		expect(r.out).toContain('fitness (column fitness: continuous) — mediator; not a candidate: a mediator');
 		expect(r.out).toContain('app_panel (column app_panel: binary (reference 0)) — collider · descendant of outcome · descendant of exposure; not a candidate: caused by the outcome');
-		expect(r.out).toContain('diet (column diet: numbers) — confounder · collider: adjust together with age and income');
+		expect(r.out).toContain('diet (column diet: continuous) — confounder · collider: adjust together with age and income');
 		expect(r.out).toContain('Within fifths of age some confounding by it remains');
 	});
 });

@@ -70,7 +70,7 @@ describe('data results from the data-check pipeline', () => {
 		const planned = checks.estimates!.rows.find((r) => r.roles.includes('planned'))!;
 		const reportPlanned = data.estimates!.find((e) => /planned/i.test(e.label))!;
 		expect([reportPlanned.crudeSameRows, reportPlanned.changePercent]).toEqual([planned.crudeSameRows, planned.changePercent]);
-		expect(reportPlanned.kinds).toBe('numbers: Age, Diet quality, Household income');
+		expect(reportPlanned.kinds).toBe('continuous: Age, Diet quality, Household income');
 		const std = data.standardized!.find((x) => /planned/i.test(x.label))!;
 		expect([std.riskDifference, std.rdLower, std.rdUpper]).toEqual([planned.standardized!.riskDifference.estimate, ...planned.standardized!.riskDifference.ci]);
 		expect(data.code!.map((c) => c.tag)).toEqual(['r', 'stata', 'sas', 'python']);
@@ -84,7 +84,7 @@ describe('data results from the data-check pipeline', () => {
 		expect(md).toContain('### Arrow checks of the exposure and the outcome');
 		expect(md).toContain('| Family history of hypertension \\\\ Hypertension | 0 | 1 | total |');
 		expect(md).toContain('### Confounder check of every candidate');
-		expect(md).toMatch(/\| Age \| numbers \| confounder · common cause \| d = −0\.268, p \\< 0\.001, n = 5,000 \|/);
+		expect(md).toMatch(/\| Age \| continuous \| confounder · common cause \| d = −0\.268, p \\< 0\.001, n = 5,000 \|/);
 		expect(md).toContain('is non-collapsibility');
 		expect(md).toContain('## 11. Appendix: analysis code');
 		expect(md).toContain('```r\n# R (glm) code made by Causeway');

@@ -37,18 +37,18 @@ const d: ReadMeasure = { name: 'standardized difference d (age)', type: 'standar
 
 describe('kinds beside results', () => {
 	it('numbers, binary and categories with the reference; code-like numbers say so', () => {
-		expect(kindText({ kind: 'continuous', levels: [], codeValues: null })).toBe('numbers');
-		expect(kindText({ kind: 'continuous', levels: [], codeValues: [0, 1, 2, 3] })).toBe('numbers — look like category codes 0, 1, 2 and 3');
+		expect(kindText({ kind: 'continuous', levels: [], codeValues: null })).toBe('continuous');
+		expect(kindText({ kind: 'continuous', levels: [], codeValues: [0, 1, 2, 3] })).toBe('continuous — values look like category codes 0, 1, 2 and 3');
 		expect(kindText({ kind: 'binary', levels: ['no', 'yes'] })).toBe('binary (reference no)');
-		expect(kindText({ kind: 'categorical', levels: ['A', 'B', 'C'] })).toBe('categories, 3 levels (reference A)');
-		expect(kindText({ kind: 'ordinal', levels: ['low', 'mid', 'high'] })).toBe('ordered categories, 3 levels (reference low)');
+		expect(kindText({ kind: 'categorical', levels: ['A', 'B', 'C'] })).toBe('categorical, 3 levels (reference A)');
+		expect(kindText({ kind: 'ordinal', levels: ['low', 'mid', 'high'] })).toBe('ordinal, 3 levels (reference low)');
 		expect(
 			kindsSummary([
 				{ label: 'Age', kind: 'continuous', levels: [] },
 				{ label: 'Band', kind: 'continuous', levels: [], codeValues: [1, 2, 3] },
 				{ label: 'Sex', kind: 'binary', levels: ['f', 'm'] }
 			])
-		).toBe('numbers: Age, Band (look like category codes); binary (reference f): Sex');
+		).toBe('continuous: Age, Band (look like category codes); binary (reference f): Sex');
 	});
 });
 
@@ -175,7 +175,7 @@ describe('the analysis code header', () => {
 		});
 		expect(lines[0]).toBe('R (glm) code made by Causeway 0.1.0 for the planned set {education}.');
 		expect(lines).toContain('Under the diagram this set is NOT sufficient: if the diagram is right, the adjusted estimate stays biased.');
-		expect(lines).toContain('  education (Education): numbers — look like category codes 0, 1, 2 and 3; one straight-line term.');
+		expect(lines).toContain('  education (Education): continuous — values look like category codes 0, 1, 2 and 3; one straight-line term.');
 		expect(lines.some((l) => /change its kind to categorical/.test(l))).toBe(true);
 	});
 });

@@ -81,6 +81,21 @@ export const canvasStyle: StylesheetJson = [
 	{ selector: 'edge.data-supported', style: { color: '#005a8c' } },
 	{ selector: 'edge.data-absent', style: { 'line-style': 'dashed', 'line-dash-pattern': [5, 4], color: '#8a3a00' } },
 	{ selector: 'edge.data-untested', style: { color: COLOURS.unmeasuredInk } },
+	{
+		// An arrow with a note: a pencil near its start (a variable's is after its name).
+		selector: 'edge.has-note',
+		style: {
+			'source-label': '✎',
+			'source-text-offset': 22,
+			'font-family': FONT_FAMILY,
+			'font-size': 13,
+			color: COLOURS.ink,
+			'text-background-color': COLOURS.paper,
+			'text-background-opacity': 0.9,
+			'text-background-padding': '1px',
+			'text-events': 'no'
+		}
+	},
 	// Selection, highlights, a refused cycle and the keyboard's arrow target are not styles:
 	// canvas/overlay.ts draws them over the scene, so changing them never restyles elements.
 	// Edge-drawing gesture (cytoscape-edgehandles classes).
