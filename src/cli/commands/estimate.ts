@@ -5,7 +5,7 @@
  * Same pipeline as the app's data pane.
  */
 import { braces } from '../../lib/datacheck';
-import { formatCi, formatCount, formatNumber, formatPercent } from '../../lib/wording';
+import { DATA_VIEW_TEXT, formatCi, formatCount, formatNumber, formatPercent } from '../../lib/wording';
 import { QUESTION, QUESTION_HELP } from '../command';
 import { printConfounderCheck, printStandardized } from './confounder-print';
 import { COMMON_DATA_PRINT, kindOf, type Command } from './data-print';
@@ -54,6 +54,8 @@ ${QUESTION_HELP}`,
 		const columnOf = (id: string) => report.mapping.columns[id] ?? id;
 		ctx.print(`\nEffect of ${e.exposure} on ${e.outcome}: ${e.measure} (${e.model} regression), 95 % CI`);
 		const width = Math.max(...e.rows.map((r) => r.label.length));
+		// Sufficiency is judged on the diagram as the data see it: variables without a column are unmeasured.
+		const judged = DATA_VIEW_TEXT.judgedUnder(report.mapping.unmapped.length > 0);
 		for (const r of e.rows) {
 			if (r.message) {
 				ctx.print(`  ${r.label.padEnd(width)}  ${r.message}`);
@@ -61,7 +63,7 @@ ${QUESTION_HELP}`,
 			}
 			const crude = r.crudeSameRows === null ? '' : `; crude on the same rows ${formatNumber(r.crudeSameRows)}${r.crudeSameRowsCi ? ` (${formatCi(r.crudeSameRowsCi)})` : ''}`;
 			const change = r.changePercent === null ? '' : `, change ${formatPercent(r.changePercent)}${r.changeMarked ? ' (≥ 10 %*)' : ''}`;
-			const verdict = r.sufficient ? '' : r.roles.includes('crude') && r.roles.length === 1 ? '' : '  [not sufficient under the diagram]';
+			const verdict = r.sufficient ? '' : r.roles.includes('crude') && r.roles.length === 1 ? '' : `  [not sufficient ${judged}]`;
 			ctx.print(`  ${r.label.padEnd(width)}  ${formatNumber(r.estimate)} (${formatCi(r.ci)}), n = ${formatCount(r.n)}${crude}${change}${verdict}`);
 			if (r.adjustedFor.length) ctx.print(`  ${' '.repeat(width)}  kinds: ${r.adjustedFor.map((id) => `${id} ${kind(columnOf(id))}`).join('; ')}`);
 		}
@@ -76,7 +78,7 @@ ${QUESTION_HELP}`,
 		for (const w of e.warnings) ctx.print(`Warning: ${w}`);
 		if (e.rows.some((r) => r.changeMarked)) ctx.print('* A 10 % change from crude is a common-practice marker, not a test of confounding: the diagram decides what to adjust for.');
 		const planned = e.rows.find((r) => r.roles.includes('planned'));
-		if (planned) ctx.print(`Planned set ${braces(planned.adjustedFor)}: ${planned.sufficient ? 'sufficient' : 'NOT sufficient'} under the diagram.`);
+		if (planned) ctx.print(`Planned set ${braces(planned.adjustedFor)}: ${planned.sufficient ? 'sufficient' : 'NOT sufficient'} ${judged}.`);
 		if (report.confounders) printConfounderCheck(ctx, report.confounders, kind);
 		ctx.print(`\n${CAUTION}`);
 		return 0;

@@ -63,5 +63,7 @@ export const DATA_VIEW_TEXT = {
 	sameVerdict: 'The verdict is the same.',
 	differs: 'The verdict differs: the estimates in the Data section follow this one.',
 	setsWithData: (sets: string) => `Sufficient with the variables that have data: ${sets}.`,
+	/** Where a set's sufficiency is judged: the diagram, or the diagram as the data see it (variables without a column unmeasured). */
+	judgedUnder: (someWithoutColumn: boolean) => (someWithoutColumn ? 'for the diagram as the data see it (variables without a column count as unmeasured)' : 'under the diagram'),
 	noSetWithData: 'No set of variables with data is sufficient: every adjusted estimate stays biased under the diagram.'
 } as const;

@@ -76,6 +76,16 @@ describe('causeway estimate', () => {
 		expect(r.out).toMatch(/E-value of the planned estimate: 1\.88/);
 	});
 
+	it('with a variable left without a column, sufficiency is judged for the diagram as the data see it', async () => {
+		const full = await run(['estimate', DEMO, DEMO_CSV]);
+		expect(full.out).toContain('sufficient under the diagram.');
+		// Without diet, health consciousness (unmeasured) keeps a path open: no set of columns is sufficient.
+		const r = await run(['estimate', DEMO, DEMO_CSV, '--map', 'diet=']);
+		expect(r.code).toBe(0);
+		expect(r.out).toContain('NOT sufficient for the diagram as the data see it (variables without a column count as unmeasured).');
+		expect(r.out).not.toContain('sufficient under the diagram');
+	});
+
 	it('--exposure and --outcome override the file', async () => {
 		const r = await run(['estimate', MTCARS, MTCARS_CSV, '--exposure', 'hp', '--outcome', 'mpg', '--json']);
 		expect(r.code).toBe(0);
