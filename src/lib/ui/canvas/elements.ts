@@ -14,8 +14,6 @@ import { BADGE_FONT_PX, FONT_FAMILY, LABEL_FONT_PX, LINE_HEIGHT } from './style'
 export const nodeKey = (id: string) => `v:${id}`;
 export const arrowKey = (from: string, to: string) => `a:${JSON.stringify([from, to])}`;
 
-/** Marks a variable or an arrow that has a note. */
-export const NOTE_MARK = '✎';
 
 export type Measure = (text: string, px: number) => number;
 
@@ -64,11 +62,9 @@ export function nodeLook(v: Variable, roles: readonly Role[], q: Question, measu
 	if (q.outcomes.has(v.id)) all.add('outcome');
 	const tags = badges([...all]);
 	const badgeLine = tags.length > 0 ? `‹${tags.join(' · ')}›` : '';
-	// A variable with a note carries a pencil after its name (the note shows on hover and selection).
-	const name = v.note?.trim() ? `${v.label} ${NOTE_MARK}` : v.label;
-	const text = badgeLine ? `${name}\n${badgeLine}` : name;
+	const text = badgeLine ? `${v.label}\n${badgeLine}` : v.label;
 	const lines = badgeLine ? 2 : 1;
-	const width = Math.max(measure(name, LABEL_FONT_PX), badgeLine ? measure(badgeLine, BADGE_FONT_PX) : 0);
+	const width = Math.max(measure(v.label, LABEL_FONT_PX), badgeLine ? measure(badgeLine, BADGE_FONT_PX) : 0);
 	const classes = [
 		q.exposures.has(v.id) ? 'exposure' : '',
 		q.outcomes.has(v.id) ? 'outcome' : '',

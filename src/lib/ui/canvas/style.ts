@@ -19,6 +19,12 @@ export const COLOURS = {
 	paper: '#ffffff'
 } as const;
 
+/**
+ * Marks an arrow that has a note (the reason it is assumed). Variables are not marked: most
+ * carry a short description, shown on hover and selection and in the text view.
+ */
+export const NOTE_MARK = '✎';
+
 export const FONT_FAMILY = 'system-ui, "DejaVu Sans", "Liberation Sans", sans-serif';
 export const LABEL_FONT_PX = 14;
 export const BADGE_FONT_PX = 14;
@@ -82,10 +88,10 @@ export const canvasStyle: StylesheetJson = [
 	{ selector: 'edge.data-absent', style: { 'line-style': 'dashed', 'line-dash-pattern': [5, 4], color: '#8a3a00' } },
 	{ selector: 'edge.data-untested', style: { color: COLOURS.unmeasuredInk } },
 	{
-		// An arrow with a note: a pencil near its start (a variable's is after its name).
+		// An arrow with a note: a pencil near its start (NOTE_MARK).
 		selector: 'edge.has-note',
 		style: {
-			'source-label': '✎',
+			'source-label': NOTE_MARK,
 			'source-text-offset': 22,
 			'font-family': FONT_FAMILY,
 			'font-size': 13,
