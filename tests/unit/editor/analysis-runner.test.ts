@@ -1,7 +1,7 @@
 // The page's side of the analysis workers (src/lib/workers/analysis-client.ts), with fake
 // workers that compute a part only when the test says so: a planned-set edit asks for the
-// verdict alone; a structural edit for all three parts, and the verdict is shown before the
-// sets and the claims; replies from a stale run are dropped; cancel and retry; small diagrams
+// verdict alone; a structural edit for all three parts, the sets and claims started once the
+// verdict is back; replies from a stale run are dropped; cancel and retry; small diagrams
 // stay on the main thread; nothing computed is ever sent back to a worker.
 import { describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
@@ -70,9 +70,13 @@ const withPlanned = (d: Diagram, ids: string[]): Diagram => ({ ...d, adjusted: i
 
 describe('AnalysisRunner', () => {
 	it('shows the verdict first, then the sets, then the claims; the result equals the whole analysis', () => {
-		const { runner, results, log, worker } = setup();
+		const { runner, results, log, worker, requests } = setup();
 		runner.request(demo);
+		// The sets and claims wait for the verdict, so that it has the cores to itself.
+		expect([requests('verdict'), requests('sets'), requests('claims')]).toEqual([1, 0, 0]);
+		expect(runner.busy).toBe(true);
 		worker('verdict')!.answer();
+		expect([requests('sets'), requests('claims')]).toEqual([1, 1]);
 		expect(log.at(-2)).toBe('result worker busy sets-pending claims-pending');
 		expect(results.at(-1)!.check).toEqual(runAnalysis(demo).check);
 		worker('sets')!.answer();
@@ -139,6 +143,21 @@ describe('AnalysisRunner', () => {
 		worker('sets')!.answer();
 		worker('claims')!.answer();
 		expect(results.at(-1)).toEqual(runAnalysis(demo, DEFAULT_LIMITS));
+	});
+
+	it('an edit before the verdict is back drops the waiting parts of the earlier diagram', () => {
+		const { runner, results, worker, requests } = setup();
+		runner.request(demo);
+		const first = worker('verdict')!;
+		const edited: Diagram = { ...demo, variables: demo.variables.map((v) => (v.id === 'diet' ? { ...v, measured: false } : v)) };
+		runner.request(edited);
+		expect(first.terminated).toBe(true);
+		expect([requests('sets'), requests('claims')]).toEqual([0, 0]);
+		worker('verdict')!.answer();
+		expect(worker('sets')!.sent.at(-1)!.diagram).toBe(edited);
+		worker('sets')!.answer();
+		worker('claims')!.answer();
+		expect(results.at(-1)).toEqual(runAnalysis(edited, DEFAULT_LIMITS));
 	});
 
 	it('small diagrams run on the main thread, without a worker', () => {
