@@ -7,7 +7,7 @@
 import { test, expect, type Page } from '@playwright/test';
 import { readFileSync } from 'node:fs';
 import { adjustmentSets } from '../../src/lib/causal/analysis';
-import { openSection, verdict } from './helpers';
+import { message, openSection, variableMenu, verdict } from './helpers';
 import type { Diagram } from '../../src/lib/graph/diagram';
 
 const DEMO = JSON.parse(readFileSync('static/demo/cycling-hypertension.causeway.json', 'utf8'));
@@ -46,6 +46,28 @@ test('a stated set with a mediator and a collider: verdict, every reason lit on 
 	// The fix is one click away.
 	await page.getByTestId('review-nearest').getByRole('button', { name: 'Review this set' }).click();
 	await expect(page.getByTestId('review-verdict')).toContainText('is sufficient');
+});
+
+test('the stated set follows a change of id, and its undo', async ({ page }) => {
+	await openDemo(page);
+	const input = review(page).getByRole('combobox', { name: 'Add a variable to the stated set' });
+	await input.fill('Body-mass index');
+	await input.press('Enter');
+	await expect(page.getByTestId('review-verdict')).toContainText('is not sufficient');
+	const bmiChip = review(page).getByRole('button', { name: 'Remove Body-mass index from the stated set' });
+	await expect(bmiChip).toBeVisible();
+	await variableMenu(page, 'bmi', 'Change id…');
+	const idDialog = page.getByRole('dialog', { name: 'Id of Body-mass index' });
+	await idDialog.getByRole('textbox').fill('body_mass_index');
+	await idDialog.getByRole('textbox').press('Enter');
+	await expect(message(page)).toContainText('"body_mass_index"');
+	// Still stated (not silently dropped), so the verdict still names the mediator.
+	await expect(bmiChip).toBeVisible();
+	await expect(page.getByTestId('review-reasons')).toContainText('Overadjustment: Body-mass index is a mediator');
+	await page.keyboard.press('Control+z');
+	await expect(message(page)).toContainText('Undone');
+	await expect(bmiChip).toBeVisible();
+	await expect(page.getByTestId('review-verdict')).toContainText('is not sufficient');
 });
 
 test('stress test: the changes that break the plan, lit by hover, click and keyboard', async ({ page }) => {

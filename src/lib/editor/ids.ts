@@ -50,3 +50,22 @@ export function idFollowsLabel(id: string, label: string): boolean {
 	if (id === base) return true;
 	return id.startsWith(`${base}_`) && /^\d+$/.test(id.slice(base.length + 1));
 }
+
+/**
+ * The id change that turned `before` into `after`, if that is what happened: the same
+ * variables in the same order, one of them with another id and its label unchanged (what
+ * `change-id`, its undo and its redo do). Lets state kept outside the diagram, such as the
+ * Review section's stated set, follow the id. O(n).
+ */
+export function idChangeBetween(before: { variables: readonly { id: string; label: string }[] }, after: { variables: readonly { id: string; label: string }[] }): { from: string; to: string } | null {
+	if (before.variables.length !== after.variables.length) return null;
+	let change: { from: string; to: string } | null = null;
+	for (let i = 0; i < before.variables.length; i++) {
+		const a = before.variables[i];
+		const b = after.variables[i];
+		if (a.id === b.id) continue;
+		if (change !== null || a.label !== b.label) return null;
+		change = { from: a.id, to: b.id };
+	}
+	return change;
+}

@@ -5,7 +5,7 @@ import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { applyCommand, type Command } from '../../../src/lib/editor/commands';
 import { createHistory, record, undo } from '../../../src/lib/editor/history';
-import { slugify, MAX_GENERATED_ID } from '../../../src/lib/editor/ids';
+import { idChangeBetween, slugify, MAX_GENERATED_ID } from '../../../src/lib/editor/ids';
 import { emptyDiagram, type Diagram } from '../../../src/lib/graph/diagram';
 import { parseDiagramJson, writeDiagramJson } from '../../../src/lib/graph/native-json';
 import { parseDot, writeDot } from '../../../src/lib/graph/dot';
@@ -161,5 +161,28 @@ describe('limits at the moment of the edit', () => {
 		const slug = slugify('A very long label that somebody typed in full because it is the exact wording in the protocol');
 		expect(slug.length).toBeLessThanOrEqual(MAX_GENERATED_ID);
 		expect(slug).toBe('a_very_long_label_that_somebody_typed_in_full_because_it_is');
+	});
+});
+
+describe('idChangeBetween (state outside the diagram follows a change of id)', () => {
+	const demo = parseDiagramJson(readFileSync('static/demo/cycling-hypertension.causeway.json', 'utf8'));
+	const changed = (cmd: Command) => {
+		const r = applyCommand(demo, cmd);
+		if (!r.ok) throw new Error(r.message);
+		return r.diagram;
+	};
+	it('names the change made by change-id, and its undo', () => {
+		const after = changed({ kind: 'change-id', id: 'age', newId: 'age_years' });
+		expect(idChangeBetween(demo, after)).toEqual({ from: 'age', to: 'age_years' });
+		expect(idChangeBetween(after, demo)).toEqual({ from: 'age_years', to: 'age' });
+	});
+	it('sees none in other edits: a rename, a new variable, two ids at once, no change', () => {
+		const renamed = changed({ kind: 'rename-variable', id: 'age', label: 'Age in years' });
+		expect(idChangeBetween(demo, renamed)).toBeNull();
+		expect(idChangeBetween(demo, demo)).toBeNull();
+		const two = { ...demo, variables: demo.variables.map((v, i) => (i < 2 ? { ...v, id: `${v.id}_x` } : v)) };
+		expect(idChangeBetween(demo, two)).toBeNull();
+		const fewer = { ...demo, variables: demo.variables.slice(1) };
+		expect(idChangeBetween(demo, fewer)).toBeNull();
 	});
 });
