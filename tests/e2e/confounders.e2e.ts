@@ -7,17 +7,7 @@
 // contrast of the section at least 4.5:1. Screenshots go to test-results/.
 import { expect, test, type Page } from '@playwright/test';
 import { readFileSync } from 'node:fs';
-import { counts, openSection } from './helpers';
-
-async function openDemo(page: Page) {
-	await page.addInitScript(() => {
-		if (sessionStorage.getItem('e2e-started')) return;
-		sessionStorage.setItem('e2e-started', '1');
-		localStorage.clear();
-	});
-	await page.goto('/');
-	await expect.poll(async () => (await page.evaluate(() => !!window.__causewayCanvas)) && (await counts(page)).variables, { timeout: 20_000 }).toBe(13);
-}
+import { counts, dataSection, openDemo, openSection } from './helpers';
 
 /** The Data section starts closed and loads its code when opened; by keyboard here. */
 async function openDataByKeyboard(page: Page) {
@@ -27,7 +17,7 @@ async function openDataByKeyboard(page: Page) {
 	await expect(page.locator('#data-heading button')).toBeFocused();
 }
 
-const data = (page: Page) => page.locator('section[data-section="data"]');
+const data = dataSection;
 const candidate = (page: Page, id: string) => data(page).locator(`tbody[data-candidate="${id}"]`);
 
 async function loadDemoData(page: Page) {

@@ -4,27 +4,9 @@
 // whole section works from the keyboard.
 import { expect, test, type Page } from '@playwright/test';
 import { readFileSync } from 'node:fs';
-import { counts, openSection } from './helpers';
+import { counts, dataSection, loadDemoData, openDemo, openSection } from './helpers';
 
-/** First visit: the app opens the demo study diagram. */
-async function openDemo(page: Page) {
-	await page.addInitScript(() => {
-		if (sessionStorage.getItem('e2e-started')) return;
-		sessionStorage.setItem('e2e-started', '1');
-		localStorage.clear();
-	});
-	await page.goto('/');
-	await expect.poll(async () => (await page.evaluate(() => !!window.__causewayCanvas)) && (await counts(page)).variables, { timeout: 20_000 }).toBe(13);
-}
-
-const data = (page: Page) => page.locator('section[data-section="data"]');
-
-async function loadDemoData(page: Page) {
-	await openSection(page, 'data');
-	await data(page).getByRole('button', { name: 'Load demo data' }).click();
-	await expect(data(page).getByTestId('data-source')).toContainText('5,000 rows, 12 columns', { timeout: 20_000 });
-	await expect(data(page).getByTestId('estimates-table')).toBeVisible({ timeout: 20_000 });
-}
+const data = dataSection;
 
 test('demo data: arrow checks with pictures and canvas marks, claims (a contradicted one after an edit), estimates', async ({ page }) => {
 	await openDemo(page);

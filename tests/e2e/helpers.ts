@@ -25,6 +25,28 @@ declare global {
 	}
 }
 
+/** First visit (nothing stored): the app opens the demo study diagram, 13 variables. */
+export async function openDemo(page: Page): Promise<void> {
+	await page.addInitScript(() => {
+		if (sessionStorage.getItem('e2e-started')) return;
+		sessionStorage.setItem('e2e-started', '1');
+		localStorage.clear();
+	});
+	await page.goto('/');
+	await expect.poll(async () => (await page.evaluate(() => !!window.__causewayCanvas)) && (await counts(page)).variables, { timeout: 20_000 }).toBe(13);
+}
+
+/** The Data section. */
+export const dataSection = (page: Page) => page.locator('section[data-section="data"]');
+
+/** Opens the Data section and loads the demo data; waits for the estimates. */
+export async function loadDemoData(page: Page): Promise<void> {
+	await openSection(page, 'data');
+	await dataSection(page).getByRole('button', { name: 'Load demo data' }).click();
+	await expect(dataSection(page).getByTestId('data-source')).toContainText('5,000 rows, 12 columns', { timeout: 20_000 });
+	await expect(dataSection(page).getByTestId('estimates-table')).toBeVisible({ timeout: 20_000 });
+}
+
 /** Opens the app with an empty diagram (not a first visit, nothing autosaved). */
 export async function openEmpty(page: Page): Promise<void> {
 	// Before the app's own scripts, once per tab: later reloads keep what the app autosaved.

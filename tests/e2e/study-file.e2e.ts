@@ -5,27 +5,9 @@
 // and offered for download. Screenshots go to test-results/study-*.png.
 import { readFileSync } from 'node:fs';
 import { expect, test, type Page } from '@playwright/test';
-import { announcer, canvas, counts, message, nodeCentre, openEmpty, openSection, verdict, watchPage } from './helpers';
+import { announcer, canvas, counts, dataSection, loadDemoData, message, nodeCentre, openDemo, openEmpty, openSection, verdict, watchPage } from './helpers';
 
-/** First visit: the app opens the demo study diagram. */
-async function openDemo(page: Page) {
-	await page.addInitScript(() => {
-		if (sessionStorage.getItem('e2e-started')) return;
-		sessionStorage.setItem('e2e-started', '1');
-		localStorage.clear();
-	});
-	await page.goto('/');
-	await expect.poll(async () => (await page.evaluate(() => !!window.__causewayCanvas)) && (await counts(page)).variables, { timeout: 20_000 }).toBe(13);
-}
-
-const data = (page: Page) => page.locator('section[data-section="data"]');
-
-async function loadDemoData(page: Page) {
-	await openSection(page, 'data');
-	await data(page).getByRole('button', { name: 'Load demo data' }).click();
-	await expect(data(page).getByTestId('data-source')).toContainText('5,000 rows, 12 columns', { timeout: 20_000 });
-	await expect(data(page).getByTestId('estimates-table')).toBeVisible({ timeout: 20_000 });
-}
+const data = dataSection;
 
 async function openColumns(page: Page) {
 	const part = data(page).locator('details.part').first();
