@@ -14,6 +14,7 @@ import {
 	formatNumber as formatReadable,
 	formatPercent,
 	listNames,
+	MISSING,
 	riskPercent,
 	STANDARDIZED_METHOD,
 	type LabelOf
@@ -22,14 +23,12 @@ import type { Block } from './report';
 import { reproducibilityBlocks } from './report-study';
 import type { ReportCode, ReportDataResults, ReportStandardized } from './report-data';
 
-/** Numbers for display: three significant digits, p-values below 0.001 as "< 0.001". */
-export function formatNumber(x: number | null | undefined): string {
-	if (x === null || x === undefined || !Number.isFinite(x)) return '–';
-	if (x !== 0 && Math.abs(x) < 1e-4) return x.toExponential(1);
-	return String(Number(x.toPrecision(3)));
-}
+/** Numbers for display: the app's format (three significant digits, never e-notation). */
+export const formatNumber = (x: number | null | undefined): string => formatReadable(x);
+
+/** p-values: three decimals, below 0.001 as "< 0.001". */
 export function formatP(p: number | null | undefined): string {
-	if (p === null || p === undefined || !Number.isFinite(p)) return '–';
+	if (p === null || p === undefined || !Number.isFinite(p)) return MISSING;
 	return p < 0.001 ? '< 0.001' : p.toFixed(3);
 }
 
@@ -73,7 +72,7 @@ function claimBlocks(data: ReportDataResults): Block[] {
 				c.statement,
 				c.test,
 				formatNumber(c.statistic),
-				c.df === null || c.df === undefined ? '–' : Array.isArray(c.df) ? c.df.join(', ') : String(c.df),
+				c.df === null || c.df === undefined ? MISSING : Array.isArray(c.df) ? c.df.join(', ') : String(c.df),
 				formatP(c.pValue),
 				...(adjusted ? [formatP(c.adjustedP)] : []),
 				(c.verdict === 'consistent' ? 'consistent' : c.verdict === 'inconsistent' ? 'not consistent' : 'not tested') + (c.detail ? ` (${c.detail})` : '')
@@ -102,7 +101,7 @@ function estimateBlocks(data: ReportDataResults, label: LabelOf): Block[] {
 	if (!rows.length) return [];
 	const withCrude = rows.some((e) => given(e.crudeSameRows));
 	const withKinds = rows.some((e) => e.kinds);
-	const interval = (lo: number | null | undefined, hi: number | null | undefined, level = 0.95) => (given(lo) && given(hi) ? `${formatNumber(lo)} to ${formatNumber(hi)} (${Math.round(level * 100)} %)` : '–');
+	const interval = (lo: number | null | undefined, hi: number | null | undefined, level = 0.95) => (given(lo) && given(hi) ? `${formatNumber(lo)} to ${formatNumber(hi)} (${Math.round(level * 100)} %)` : MISSING);
 	const blocks: Block[] = [{ kind: 'subheading', text: 'Effect estimates' }];
 	if (withCrude)
 		blocks.push({
@@ -119,8 +118,8 @@ function estimateBlocks(data: ReportDataResults, label: LabelOf): Block[] {
 			e.measure,
 			formatNumber(e.estimate),
 			interval(e.lower, e.upper, e.level),
-			...(withCrude ? [given(e.crudeSameRows) ? `${formatNumber(e.crudeSameRows)} (${interval(e.crudeLower, e.crudeUpper)})` : '–', given(e.changePercent) ? formatPercent(e.changePercent) : '–'] : []),
-			e.n === undefined ? '–' : String(e.n),
+			...(withCrude ? [given(e.crudeSameRows) ? `${formatNumber(e.crudeSameRows)} (${interval(e.crudeLower, e.crudeUpper)})` : MISSING, given(e.changePercent) ? formatPercent(e.changePercent) : MISSING] : []),
+			e.n === undefined ? MISSING : String(e.n),
 			...(withKinds ? [e.kinds ?? ''] : [])
 		])
 	});

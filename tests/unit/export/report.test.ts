@@ -194,8 +194,9 @@ describe('Markdown report, rendered by markdown-it (CommonMark)', () => {
 describe('number formatting and data input', () => {
 	it('formats estimates to three significant digits and p-values below 0.001 as "< 0.001"', () => {
 		expect(formatNumber(0.612345)).toBe('0.612');
-		expect(formatNumber(1234.5)).toBe('1230');
-		expect(formatNumber(null)).toBe('–');
+		expect(formatNumber(1234.5)).toBe('1,230');
+		expect(formatNumber(0.0000123)).toBe('0.0000123'); // never e-notation
+		expect(formatNumber(null)).toBe('—');
 		expect(formatP(0.0004)).toBe('< 0.001');
 		expect(formatP(0.04321)).toBe('0.043');
 	});
