@@ -12,8 +12,8 @@ import type { CompiledDag } from '../graph/compiled';
 import type { ForbiddenWhy } from './types';
 import { dSeparated } from './dsep';
 import { properBackDoorGraph, properCausalStructure, type ProperCausalStructure } from './proper-causal';
-import { descendantsOf, maskOf, membersOf } from './reach';
-import { listOpenNonCausalPaths } from './open-paths';
+import { descendantsOf, membersOf } from './reach';
+import { openNonCausalPathsIdx, type OpenPathCount } from './open-paths';
 
 export interface ForbiddenMember {
 	variable: number;
@@ -25,6 +25,8 @@ export interface AdjustmentValidity {
 	openPaths: number[][];
 	/** True when more open non-causal paths exist than were listed. */
 	openPathsTruncated: boolean;
+	/** How many open non-causal paths there are (the same count the path listing gives). */
+	openPathCount: OpenPathCount;
 	forbidden: ForbiddenMember[];
 }
 
@@ -63,13 +65,15 @@ export function checkAdjustmentIdx(
 	const usable = Z.filter((z) => !s.inX[z] && !s.inY[z]);
 	const pbd = properBackDoorGraph(g, s);
 	const separated = dSeparated(pbd, X, Y, usable);
-	const listing = listOpenNonCausalPaths(g, X, Y, maskOf(g.n, usable), maxPaths);
+	const listing = openNonCausalPathsIdx(g, X, Y, usable, { keep: maxPaths });
 	const openPaths = listing.paths;
+	// Only when the listing's step budget ran out before the first path: CBC's witness.
 	if (!separated.separated && openPaths.length === 0 && separated.path) openPaths.push(separated.path);
 	return {
 		valid: forbidden.length === 0 && separated.separated,
 		openPaths,
-		openPathsTruncated: listing.truncated,
+		openPathsTruncated: listing.count > openPaths.length || listing.bound !== 'exact',
+		openPathCount: { count: Math.max(listing.count, openPaths.length), bound: listing.bound },
 		forbidden
 	};
 }

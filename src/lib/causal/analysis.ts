@@ -66,7 +66,8 @@ export function checkAdjustment(d: Diagram, opts: QuestionOptions & { adjusted?:
 		problems: [
 			...result.forbidden.map((f) => ({ kind: 'forbidden' as const, variable: g.ids[f.variable], why: f.why })),
 			...result.openPaths.map((p) => ({ kind: 'open-path' as const, path: named(g, p) }))
-		]
+		],
+		openPaths: result.openPathCount
 	};
 }
 
@@ -112,7 +113,7 @@ export function exposureOutcomePaths(d: Diagram, opts: QuestionOptions & { adjus
 		open: p.open,
 		reasons: p.reasons.map((r) => reasonById(g, r))
 	}));
-	return { paths, truncated: listing.truncated };
+	return { paths, truncated: listing.truncated, openNonCausal: listing.openNonCausal };
 }
 
 /** The independencies the diagram implies, one per non-adjacent pair of measured variables. */

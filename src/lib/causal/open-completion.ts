@@ -1,0 +1,117 @@
+/**
+ * Which partial paths can still be completed to an open path to the outcome: the pruning test
+ * behind the polynomial-delay listing of open paths (open-paths.ts).
+ *
+ * Method: backtracking with a reachability test before every extension, as Read & Tarjan
+ * (Networks 1975) and Johnson (SIAM J. Comput. 1975) list simple paths and cycles: a branch is
+ * entered only when it leads to at least one output, so the delay between outputs is the depth
+ * times the cost of one test. Here the test is d-connection rather than plain reachability: a
+ * breadth-first search run backwards from Y over the Bayes-Ball state graph (Shachter 1998;
+ * Koller & Friedman 2009, Alg. 3.1), states (variable, direction of arrival), with the
+ * partial path's variables removed. Collider openness keeps using An(Z) of the whole diagram
+ * (d-connection asks for a descendant in Z, anywhere).
+ *
+ * Why a walk is enough: an open walk from the path's last variable to Y in the diagram without
+ * the path's other variables becomes an open simple path by loop erasure (the argument is in
+ * dsep.ts: a variable that repeats either lies in An(Z) or keeps a non-collider join), and the
+ * erasure never touches the partial path. So `reach` is exact: it is true iff some simple
+ * completion is open. O(n + m) per call.
+ *
+ * `reachTurning` adds "the walk arrives at some variable from a child" (goes against an arrow),
+ * the test for a path that is still directed and must become non-causal. Loop erasure can
+ * remove that turn, so this part is a necessary condition only: exact once the path has turned
+ * (every back-door path from its first arrow on); for a path that leaves the exposure along
+ * arrows it can keep a dead branch inside De(X) ∩ An(Z), which the step budget bounds.
+ */
+import type { CompiledDag } from '../graph/compiled';
+import type { Mask } from './reach';
+
+/** State index: 2·v + direction. UP: arrived from a child (or the start); DOWN: from a parent. */
+export const UP = 0;
+export const DOWN = 1;
+
+/** The fixed part of a question: Y, Z, An(Z) and the variables no open path can use. */
+export interface OpenPathContext {
+	g: CompiledDag;
+	inY: Mask;
+	inZ: Mask;
+	anZ: Mask;
+	/** X, and variables outside An(X ∪ Y ∪ Z) (no open path passes there). */
+	excluded: Mask;
+}
+
+/** May a walk in state (v, dir) go on to v's parents / children? The Bayes-Ball rules. */
+export function toParents(c: OpenPathContext, v: number, dir: number): boolean {
+	return dir === UP ? c.inZ[v] === 0 : c.anZ[v] === 1;
+}
+export function toChildren(c: OpenPathContext, v: number): boolean {
+	return c.inZ[v] === 0;
+}
+
+export interface Completions {
+	/** reach[s]: from state s an open walk reaches Y avoiding the removed variables. */
+	reach: Uint8Array;
+	/** reachTurning[s]: such a walk exists that goes against an arrow after s. */
+	reachTurning: Uint8Array;
+	/** States scanned, for the caller's step budget. */
+	work: number;
+}
+
+/**
+ * Both tables for the diagram without `removed` (and without c.excluded). Y's own states count
+ * as reached; walks never pass through Y. O(n + m).
+ */
+export function completions(c: OpenPathContext, removed: Mask): Completions {
+	const { g, inY, excluded } = c;
+	const n = g.n;
+	const reach = new Uint8Array(2 * n);
+	const reachTurning = new Uint8Array(2 * n);
+	const queue = new Int32Array(2 * n);
+	let tail = 0;
+	let work = 0;
+	const gone = (v: number) => removed[v] === 1 || excluded[v] === 1;
+	for (let y = 0; y < n; y++) {
+		if (!inY[y] || gone(y)) continue;
+		reach[2 * y + UP] = reach[2 * y + DOWN] = 1;
+		queue[tail++] = 2 * y + UP;
+		queue[tail++] = 2 * y + DOWN;
+	}
+	// Predecessors of state (w', d'): d' = UP means w' was entered from a child w (w moved to its
+	// parents); d' = DOWN means entered from a parent w (w moved to its children).
+	const predecessors = (state: number, mark: Uint8Array, push: (s: number) => void) => {
+		const w2 = state >> 1;
+		if ((state & 1) === UP) {
+			for (let k = g.childStart[w2]; k < g.childStart[w2 + 1]; k++) {
+				const w = g.childList[k];
+				if (gone(w) || inY[w]) continue;
+				for (let dir = UP; dir <= DOWN; dir++) if (!mark[2 * w + dir] && toParents(c, w, dir)) push(2 * w + dir);
+			}
+		} else {
+			for (let k = g.parentStart[w2]; k < g.parentStart[w2 + 1]; k++) {
+				const w = g.parentList[k];
+				if (gone(w) || inY[w] || !toChildren(c, w)) continue;
+				for (let dir = UP; dir <= DOWN; dir++) if (!mark[2 * w + dir]) push(2 * w + dir);
+			}
+		}
+	};
+	for (let head = 0; head < tail; head++) {
+		work++;
+		predecessors(queue[head], reach, (s) => {
+			reach[s] = 1;
+			queue[tail++] = s;
+		});
+	}
+	// Turning: a predecessor (by a move to parents) of a reached UP state, then anything before it.
+	const turnQueue = new Int32Array(2 * n);
+	let turnTail = 0;
+	const markTurn = (s: number) => {
+		reachTurning[s] = 1;
+		turnQueue[turnTail++] = s;
+	};
+	for (let i = 0; i < tail; i++) if ((queue[i] & 1) === UP) predecessors(queue[i], reachTurning, markTurn);
+	for (let head = 0; head < turnTail; head++) {
+		work++;
+		predecessors(turnQueue[head], reachTurning, markTurn);
+	}
+	return { reach, reachTurning, work };
+}
