@@ -17,11 +17,13 @@
  * erasure never touches the partial path. So `reach` is exact: it is true iff some simple
  * completion is open. O(n + m) per call.
  *
- * `reachTurning` adds "the walk arrives at some variable from a child" (goes against an arrow),
- * the test for a path that is still directed and must become non-causal. Loop erasure can
- * remove that turn, so this part is a necessary condition only: exact once the path has turned
- * (every back-door path from its first arrow on); for a path that leaves the exposure along
- * arrows it can keep a dead branch inside De(X) ∩ An(Z), which the step budget bounds.
+ * `reachTurning` and `turnHere` answer the question for a path that is still directed and must
+ * become non-causal: it has to turn at a collider in De(X) ∩ An(Z), then reach Y. Loop erasure
+ * can remove that turn (the walk may come back into its own directed part), so this is a
+ * necessary condition only — exact once the path has turned, i.e. for every back-door path
+ * from its first arrow on; for a path that leaves the exposure along arrows a dead branch can
+ * remain inside De(X) ∩ An(Z) (deciding that part exactly is a disjoint-paths question), and
+ * the caller's step budget bounds it.
  */
 import type { CompiledDag } from '../graph/compiled';
 import type { Mask } from './reach';
@@ -51,8 +53,13 @@ export function toChildren(c: OpenPathContext, v: number): boolean {
 export interface Completions {
 	/** reach[s]: from state s an open walk reaches Y avoiding the removed variables. */
 	reach: Uint8Array;
-	/** reachTurning[s]: such a walk exists that goes against an arrow after s. */
+	/**
+	 * reachTurning[2·v + DOWN]: from v, entered along an arrow, a walk goes on along arrows to a
+	 * collider in An(Z), turns there to a parent other than the one it came from, and reaches Y.
+	 */
 	reachTurning: Uint8Array;
+	/** turnHere[v]: v is in An(Z) and one of its parents (not removed) reaches Y: v may turn. */
+	turnHere: Uint8Array;
 	/** States scanned, for the caller's step budget. */
 	work: number;
 }
@@ -101,17 +108,46 @@ export function completions(c: OpenPathContext, removed: Mask): Completions {
 			queue[tail++] = s;
 		});
 	}
-	// Turning: a predecessor (by a move to parents) of a reached UP state, then anything before it.
-	const turnQueue = new Int32Array(2 * n);
+	// Turning, for a walk still going along arrows (states DOWN): it turns at a collider c in
+	// An(Z), entered from a parent u, by leaving to another parent p that reaches Y. "Another"
+	// matters: going back up the arrow just come down (u → c ← u) is a walk but never a path,
+	// and it is the common false turn (any variable with a child in Z offers it).
+	const turnHere = new Uint8Array(n);
+	const turnQueue = new Int32Array(n);
 	let turnTail = 0;
-	const markTurn = (s: number) => {
-		reachTurning[s] = 1;
-		turnQueue[turnTail++] = s;
+	const markTurn = (u: number) => {
+		if (reachTurning[2 * u + DOWN]) return;
+		reachTurning[2 * u + DOWN] = 1;
+		turnQueue[turnTail++] = u;
 	};
-	for (let i = 0; i < tail; i++) if ((queue[i] & 1) === UP) predecessors(queue[i], reachTurning, markTurn);
+	for (let cv = 0; cv < n; cv++) {
+		if (!c.anZ[cv] || gone(cv) || inY[cv]) continue;
+		let upward = 0;
+		let onlyParent = -1;
+		for (let k = g.parentStart[cv]; k < g.parentStart[cv + 1]; k++) {
+			const p = g.parentList[k];
+			if (!gone(p) && reach[2 * p + UP]) {
+				upward++;
+				onlyParent = p;
+			}
+		}
+		work++;
+		if (upward === 0) continue;
+		turnHere[cv] = 1;
+		for (let k = g.parentStart[cv]; k < g.parentStart[cv + 1]; k++) {
+			const u = g.parentList[k];
+			if (gone(u) || inY[u] || !toChildren(c, u) || (upward === 1 && u === onlyParent)) continue;
+			markTurn(u);
+		}
+	}
 	for (let head = 0; head < turnTail; head++) {
 		work++;
-		predecessors(turnQueue[head], reachTurning, markTurn);
+		const u = turnQueue[head];
+		for (let k = g.parentStart[u]; k < g.parentStart[u + 1]; k++) {
+			const q = g.parentList[k];
+			if (!gone(q) && !inY[q] && toChildren(c, q)) markTurn(q);
+		}
 	}
-	return { reach, reachTurning, work };
+	return { reach, reachTurning, turnHere, work };
+
 }

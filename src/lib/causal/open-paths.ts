@@ -34,6 +34,8 @@ export const OPEN_PATH_BUDGET = 60_000_000;
 export interface OpenNonCausalListing extends OpenPathCount {
 	/** The first `keep` paths found, in search order. */
 	paths: number[][];
+	/** Partial paths the search extended (a branch leads to an output unless the budget is spent). */
+	branches: number;
 }
 
 export function openPathContext(g: CompiledDag, X: readonly number[], Y: readonly number[], Z: readonly number[]): OpenPathContext {
@@ -72,6 +74,7 @@ export function openNonCausalPathsIdx(
 	const paths: number[][] = [];
 	let count = 0;
 	let work = 0;
+	let branches = 0;
 
 	/** Viable next states from state s (its variable last on `path`, marked on `onPath`). */
 	const expand = (s: number, turned: boolean): number[] => {
@@ -83,7 +86,7 @@ export function openNonCausalPathsIdx(
 			if (onPath[w] || c.excluded[w]) return;
 			const t = 2 * w + dir;
 			const nowTurned = turned || dir === UP;
-			if (c.inY[w] ? nowTurned : nowTurned ? tables.reach[t] : tables.reachTurning[t]) out.push(t);
+			if (c.inY[w] ? nowTurned : nowTurned ? tables.reach[t] : tables.reachTurning[t] || tables.turnHere[w]) out.push(t);
 		};
 		if (toParents(c, v, s & 1)) for (let k = g.parentStart[v]; k < g.parentStart[v + 1]; k++) consider(g.parentList[k], UP);
 		if (toChildren(c, v)) for (let k = g.childStart[v]; k < g.childStart[v + 1]; k++) consider(g.childList[k], DOWN);
@@ -118,10 +121,11 @@ export function openNonCausalPathsIdx(
 				break search;
 			}
 			const turned = top.turned || (t & 1) === UP;
+			branches++;
 			onPath[w] = 1;
 			path.push(w);
 			stack.push({ next: expand(t, turned), pos: 0, turned });
 		}
 	}
-	return { paths, count, bound };
+	return { paths, count, bound, branches };
 }

@@ -89,21 +89,24 @@ export function listPathsIdx(
 	const open = openNonCausalPathsIdx(g, X, Y, usable, { keep: max, budget });
 	const paths = open.paths.map((p) => classifyPath(g, p, zMask, anZ));
 	const listed = new Set(open.paths.map((p) => p.join()));
-	let truncated = open.count > paths.length || open.bound !== 'exact';
+	// full: a path was left out for want of room; stopped: the step budget ran out.
+	let full = open.count > paths.length;
+	let stopped = open.bound !== 'exact';
 	const left = { left: budget };
 	const take = (nodes: readonly number[], wanted: (p: ClassifiedPath) => boolean): boolean => {
 		if (listed.has(nodes.join())) return true;
 		const p = classifyPath(g, nodes, zMask, anZ);
 		if (!wanted(p)) return true;
 		if (paths.length >= max) {
-			truncated = true;
+			full = true;
 			return false;
 		}
 		paths.push(p);
 		return true;
 	};
-	if (paths.length < max && visitCausalPaths(g, X, Y, (nodes) => take(nodes, () => true), left)) truncated = true;
-	if (paths.length < max && left.left > 0 && visitSimplePaths(g, X, Y, (nodes) => take(nodes, (p) => !p.causal && !p.open), left)) truncated = true;
+	if (!full && visitCausalPaths(g, X, Y, (nodes) => take(nodes, () => true), left) && !full) stopped = true;
+	if (!full && left.left > 0 && visitSimplePaths(g, X, Y, (nodes) => take(nodes, (p) => !p.causal && !p.open), left) && !full) stopped = true;
+	const truncated = full || stopped;
 	paths.sort((p, q) => Number(q.causal) - Number(p.causal) || Number(q.open) - Number(p.open) || p.nodes.length - q.nodes.length);
 	return { paths, truncated, openNonCausal: { count: open.count, bound: open.bound } };
 }
