@@ -68,3 +68,15 @@ export function pathCountText(c: PathCount, what = 'open non-causal path'): stri
 	if (c.bound === 'at-least') return `at least ${plain}`;
 	return plain;
 }
+
+/** The number alone: "50", "more than 10,000", "at least 40". */
+export function countBoundText(c: PathCount): string {
+	const n = c.count.toLocaleString('en-GB');
+	return c.bound === 'more-than' ? `more than ${n}` : c.bound === 'at-least' ? `at least ${n}` : n;
+}
+
+/** "50 open non-causal paths under the planned set." — one sentence for the app and the command line. */
+export function pathCountSentence(c: PathCount): string {
+	const text = pathCountText(c);
+	return `${text[0].toUpperCase()}${text.slice(1)} under the planned set.`;
+}
