@@ -50,104 +50,141 @@ export function toChildren(c: OpenPathContext, v: number): boolean {
 	return c.inZ[v] === 0;
 }
 
-export interface Completions {
+/**
+ * The two tables, recomputed for each partial path in one reused workspace (the search needs
+ * only the latest). Written as flat loops over typed arrays, without closures or allocation
+ * per call: a profile of counting 10,000 paths on a 1,000-variable diagram spent 65 % of its
+ * time here, and allocation and closure calls were a fifth of that.
+ */
+export class Completions {
 	/** reach[s]: from state s an open walk reaches Y avoiding the removed variables. */
-	reach: Uint8Array;
+	readonly reach: Uint8Array;
 	/**
 	 * reachTurning[2·v + DOWN]: from v, entered along an arrow, a walk goes on along arrows to a
 	 * collider in An(Z), turns there to a parent other than the one it came from, and reaches Y.
 	 */
-	reachTurning: Uint8Array;
+	readonly reachTurning: Uint8Array;
 	/** turnHere[v]: v is in An(Z) and one of its parents (not removed) reaches Y: v may turn. */
-	turnHere: Uint8Array;
-	/** States scanned, for the caller's step budget. */
-	work: number;
-}
+	readonly turnHere: Uint8Array;
+	private readonly queue: Int32Array;
+	private tail = 0;
+	private readonly turnQueue: Int32Array;
+	private turnTail = 0;
+	private readonly turned: Int32Array;
+	private turnedCount = 0;
+	/** Y's variables and the candidate colliders (An(Z), not excluded, not in Y). */
+	private readonly outcomes: Int32Array;
+	private readonly colliders: Int32Array;
 
-/**
- * Both tables for the diagram without `removed` (and without c.excluded). Y's own states count
- * as reached; walks never pass through Y. O(n + m).
- */
-export function completions(c: OpenPathContext, removed: Mask): Completions {
-	const { g, inY, excluded } = c;
-	const n = g.n;
-	const reach = new Uint8Array(2 * n);
-	const reachTurning = new Uint8Array(2 * n);
-	const queue = new Int32Array(2 * n);
-	let tail = 0;
-	let work = 0;
-	const gone = (v: number) => removed[v] === 1 || excluded[v] === 1;
-	for (let y = 0; y < n; y++) {
-		if (!inY[y] || gone(y)) continue;
-		reach[2 * y + UP] = reach[2 * y + DOWN] = 1;
-		queue[tail++] = 2 * y + UP;
-		queue[tail++] = 2 * y + DOWN;
-	}
-	// Predecessors of state (w', d'): d' = UP means w' was entered from a child w (w moved to its
-	// parents); d' = DOWN means entered from a parent w (w moved to its children).
-	const predecessors = (state: number, mark: Uint8Array, push: (s: number) => void) => {
-		const w2 = state >> 1;
-		if ((state & 1) === UP) {
-			for (let k = g.childStart[w2]; k < g.childStart[w2 + 1]; k++) {
-				const w = g.childList[k];
-				if (gone(w) || inY[w]) continue;
-				for (let dir = UP; dir <= DOWN; dir++) if (!mark[2 * w + dir] && toParents(c, w, dir)) push(2 * w + dir);
-			}
-		} else {
-			for (let k = g.parentStart[w2]; k < g.parentStart[w2 + 1]; k++) {
-				const w = g.parentList[k];
-				if (gone(w) || inY[w] || !toChildren(c, w)) continue;
-				for (let dir = UP; dir <= DOWN; dir++) if (!mark[2 * w + dir]) push(2 * w + dir);
-			}
+	constructor(private readonly c: OpenPathContext) {
+		const n = c.g.n;
+		this.reach = new Uint8Array(2 * n);
+		this.reachTurning = new Uint8Array(2 * n);
+		this.turnHere = new Uint8Array(n);
+		this.queue = new Int32Array(2 * n);
+		this.turnQueue = new Int32Array(n);
+		this.turned = new Int32Array(n);
+		const ys: number[] = [];
+		const cs: number[] = [];
+		for (let v = 0; v < n; v++) {
+			if (c.excluded[v]) continue;
+			if (c.inY[v]) ys.push(v);
+			else if (c.anZ[v]) cs.push(v);
 		}
-	};
-	for (let head = 0; head < tail; head++) {
-		work++;
-		predecessors(queue[head], reach, (s) => {
-			reach[s] = 1;
-			queue[tail++] = s;
-		});
+		this.outcomes = Int32Array.from(ys);
+		this.colliders = Int32Array.from(cs);
 	}
-	// Turning, for a walk still going along arrows (states DOWN): it turns at a collider c in
-	// An(Z), entered from a parent u, by leaving to another parent p that reaches Y. "Another"
-	// matters: going back up the arrow just come down (u → c ← u) is a walk but never a path,
-	// and it is the common false turn (any variable with a child in Z offers it).
-	const turnHere = new Uint8Array(n);
-	const turnQueue = new Int32Array(n);
-	let turnTail = 0;
-	const markTurn = (u: number) => {
-		if (reachTurning[2 * u + DOWN]) return;
-		reachTurning[2 * u + DOWN] = 1;
-		turnQueue[turnTail++] = u;
-	};
-	for (let cv = 0; cv < n; cv++) {
-		if (!c.anZ[cv] || gone(cv) || inY[cv]) continue;
-		let upward = 0;
-		let onlyParent = -1;
-		for (let k = g.parentStart[cv]; k < g.parentStart[cv + 1]; k++) {
-			const p = g.parentList[k];
-			if (!gone(p) && reach[2 * p + UP]) {
-				upward++;
-				onlyParent = p;
-			}
-		}
-		work++;
-		if (upward === 0) continue;
-		turnHere[cv] = 1;
-		for (let k = g.parentStart[cv]; k < g.parentStart[cv + 1]; k++) {
-			const u = g.parentList[k];
-			if (gone(u) || inY[u] || !toChildren(c, u) || (upward === 1 && u === onlyParent)) continue;
-			markTurn(u);
-		}
-	}
-	for (let head = 0; head < turnTail; head++) {
-		work++;
-		const u = turnQueue[head];
-		for (let k = g.parentStart[u]; k < g.parentStart[u + 1]; k++) {
-			const q = g.parentList[k];
-			if (!gone(q) && !inY[q] && toChildren(c, q)) markTurn(q);
-		}
-	}
-	return { reach, reachTurning, turnHere, work };
 
+	/**
+	 * Both tables for the diagram without `removed` (and without c.excluded). Y's own states
+	 * count as reached; walks never pass through Y. Returns the states scanned. O(n + m).
+	 */
+	compute(removed: Mask): number {
+		const { g, inY, inZ, anZ, excluded } = this.c;
+		const { reach, reachTurning, turnHere, queue, turnQueue } = this;
+		for (let i = 0; i < this.tail; i++) reach[queue[i]] = 0;
+		for (let i = 0; i < this.turnTail; i++) reachTurning[2 * turnQueue[i] + DOWN] = 0;
+		for (let i = 0; i < this.turnedCount; i++) turnHere[this.turned[i]] = 0;
+		let tail = 0;
+		for (const y of this.outcomes) {
+			if (removed[y]) continue;
+			reach[2 * y + UP] = reach[2 * y + DOWN] = 1;
+			queue[tail++] = 2 * y + UP;
+			queue[tail++] = 2 * y + DOWN;
+		}
+		// Predecessors of state (w', d'): d' = UP means w' was entered from a child w (w moved to
+		// its parents: allowed from UP when w ∉ Z, from DOWN when w ∈ An(Z)); d' = DOWN means
+		// entered from a parent w (w moved to its children: allowed when w ∉ Z).
+		for (let head = 0; head < tail; head++) {
+			const state = queue[head];
+			const w2 = state >> 1;
+			if ((state & 1) === UP) {
+				for (let k = g.childStart[w2]; k < g.childStart[w2 + 1]; k++) {
+					const w = g.childList[k];
+					if (removed[w] || excluded[w] || inY[w]) continue;
+					if (!inZ[w] && !reach[2 * w + UP]) {
+						reach[2 * w + UP] = 1;
+						queue[tail++] = 2 * w + UP;
+					}
+					if (anZ[w] && !reach[2 * w + DOWN]) {
+						reach[2 * w + DOWN] = 1;
+						queue[tail++] = 2 * w + DOWN;
+					}
+				}
+			} else {
+				for (let k = g.parentStart[w2]; k < g.parentStart[w2 + 1]; k++) {
+					const w = g.parentList[k];
+					if (removed[w] || excluded[w] || inY[w] || inZ[w]) continue;
+					if (!reach[2 * w + UP]) {
+						reach[2 * w + UP] = 1;
+						queue[tail++] = 2 * w + UP;
+					}
+					if (!reach[2 * w + DOWN]) {
+						reach[2 * w + DOWN] = 1;
+						queue[tail++] = 2 * w + DOWN;
+					}
+				}
+			}
+		}
+		this.tail = tail;
+		// Turning, for a walk still going along arrows (states DOWN): it turns at a collider c in
+		// An(Z), entered from a parent u, by leaving to another parent p that reaches Y. "Another"
+		// matters: going back up the arrow just come down (u → c ← u) is a walk but never a path,
+		// and it is the common false turn (any variable with a child in Z offers it).
+		let turnTail = 0;
+		let turnedCount = 0;
+		for (const cv of this.colliders) {
+			if (removed[cv]) continue;
+			let upward = 0;
+			let onlyParent = -1;
+			for (let k = g.parentStart[cv]; k < g.parentStart[cv + 1]; k++) {
+				const p = g.parentList[k];
+				if (!removed[p] && !excluded[p] && reach[2 * p + UP]) {
+					upward++;
+					onlyParent = p;
+				}
+			}
+			if (upward === 0) continue;
+			turnHere[cv] = 1;
+			this.turned[turnedCount++] = cv;
+			for (let k = g.parentStart[cv]; k < g.parentStart[cv + 1]; k++) {
+				const u = g.parentList[k];
+				if (removed[u] || excluded[u] || inY[u] || inZ[u] || (upward === 1 && u === onlyParent) || reachTurning[2 * u + DOWN]) continue;
+				reachTurning[2 * u + DOWN] = 1;
+				turnQueue[turnTail++] = u;
+			}
+		}
+		for (let head = 0; head < turnTail; head++) {
+			const u = turnQueue[head];
+			for (let k = g.parentStart[u]; k < g.parentStart[u + 1]; k++) {
+				const q = g.parentList[k];
+				if (removed[q] || excluded[q] || inY[q] || inZ[q] || reachTurning[2 * q + DOWN]) continue;
+				reachTurning[2 * q + DOWN] = 1;
+				turnQueue[turnTail++] = q;
+			}
+		}
+		this.turnTail = turnTail;
+		this.turnedCount = turnedCount;
+		return tail + turnTail + this.colliders.length;
+	}
 }

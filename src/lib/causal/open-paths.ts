@@ -14,7 +14,7 @@
  * The search is iterative (an explicit stack): paths can be as long as the diagram.
  */
 import type { CompiledDag } from '../graph/compiled';
-import { completions, DOWN, toChildren, toParents, UP, type OpenPathContext } from './open-completion';
+import { Completions, DOWN, toChildren, toParents, UP, type OpenPathContext } from './open-completion';
 import { ancestorsOf, maskOf, type Mask } from './reach';
 
 /** How far a count can be trusted. */
@@ -28,8 +28,8 @@ export interface OpenPathCount {
 
 /** Paths are counted exactly up to this number. */
 export const OPEN_PATH_COUNT_CAP = 10_000;
-/** Default step budget (states scanned by the completion tests): about a second of work. */
-export const OPEN_PATH_BUDGET = 60_000_000;
+/** Default step budget (states scanned by the completion tests): about 5 s of one core (bench/paths.ts). */
+export const OPEN_PATH_BUDGET = 400_000_000;
 
 export interface OpenNonCausalListing extends OpenPathCount {
 	/** The first `keep` paths found, in search order. */
@@ -69,6 +69,7 @@ export function openNonCausalPathsIdx(
 	const countCap = opts.countCap ?? OPEN_PATH_COUNT_CAP;
 	const budget = opts.budget ?? OPEN_PATH_BUDGET;
 	const c = openPathContext(g, X, Y, Z);
+	const tables = new Completions(c);
 	const onPath = new Uint8Array(g.n);
 	const path: number[] = [];
 	const paths: number[][] = [];
@@ -79,8 +80,7 @@ export function openNonCausalPathsIdx(
 	/** Viable next states from state s (its variable last on `path`, marked on `onPath`). */
 	const expand = (s: number, turned: boolean): number[] => {
 		const v = s >> 1;
-		const tables = completions(c, onPath);
-		work += tables.work;
+		work += tables.compute(onPath);
 		const out: number[] = [];
 		const consider = (w: number, dir: number) => {
 			if (onPath[w] || c.excluded[w]) return;

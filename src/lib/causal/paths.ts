@@ -7,7 +7,7 @@
  * (open-paths.ts, simple-paths.ts); classifying a path O(p) after an O(n + m) pass for An(Z).
  */
 import type { CompiledDag } from '../graph/compiled';
-import { openNonCausalPathsIdx, OPEN_PATH_BUDGET, type OpenPathCount } from './open-paths';
+import { openNonCausalPathsIdx, OPEN_PATH_BUDGET, type OpenNonCausalListing, type OpenPathCount } from './open-paths';
 import { visitCausalPaths, visitSimplePaths } from './simple-paths';
 import { ancestorsOf, hasArrow, maskOf, type Mask } from './reach';
 
@@ -73,6 +73,8 @@ export function classifyPath(g: CompiledDag, nodes: readonly number[], Z: Mask, 
  * causal paths, then the blocked non-causal ones, each round with polynomial delay
  * (simple-paths.ts) until `max` paths or the step budget. Z's members in X or Y are ignored,
  * as the adjustment check does. Sorted: causal first, then open before blocked, then shorter.
+ * `given`: openNonCausalPathsIdx's answer for this question with keep ≥ max, when the caller
+ * has it already (the adjustment check's).
  */
 export function listPathsIdx(
 	g: CompiledDag,
@@ -80,15 +82,16 @@ export function listPathsIdx(
 	Y: readonly number[],
 	Z: readonly number[],
 	max = 1000,
-	budget = OPEN_PATH_BUDGET
+	budget = OPEN_PATH_BUDGET,
+	given?: OpenNonCausalListing
 ): { paths: ClassifiedPath[]; truncated: boolean; openNonCausal: OpenPathCount } {
 	const ends = maskOf(g.n, [...X, ...Y]);
 	const usable = Z.filter((z) => !ends[z]);
 	const zMask = maskOf(g.n, usable);
 	const anZ = ancestorsOf(g, usable);
-	const open = openNonCausalPathsIdx(g, X, Y, usable, { keep: max, budget });
-	const paths = open.paths.map((p) => classifyPath(g, p, zMask, anZ));
-	const listed = new Set(open.paths.map((p) => p.join()));
+	const open = given ?? openNonCausalPathsIdx(g, X, Y, usable, { keep: max, budget });
+	const paths = open.paths.slice(0, max).map((p) => classifyPath(g, p, zMask, anZ));
+	const listed = new Set(open.paths.slice(0, max).map((p) => p.join()));
 	// full: a path was left out for want of room; stopped: the step budget ran out.
 	let full = open.count > paths.length;
 	let stopped = open.bound !== 'exact';

@@ -8,7 +8,7 @@
  * x ← c_i → y; the 50 paths through the ladder end in the unadjusted collider k (blocked).
  */
 import { describe, expect, it } from 'vitest';
-import { checkAdjustment, exposureOutcomePaths } from '../../../src/lib/causal';
+import { checkAdjustment, checkAndPaths, exposureOutcomePaths } from '../../../src/lib/causal';
 import type { Diagram } from '../../../src/lib/graph/diagram';
 import { readDiagramText } from '../../../src/lib/graph/read-file';
 import { labelLookup, verdictSentence } from '../../../src/lib/wording';
@@ -37,6 +37,14 @@ describe('the 200-variable two-ladder diagram', () => {
 		expect(paths.paths.filter((p) => !p.open && !p.causal)).toHaveLength(50);
 		expect(Math.max(...paths.paths.map((p) => p.nodes.length))).toBe(103);
 		expect(paths.truncated).toBe(false);
+	});
+
+	it('the app computes both from one search (checkAndPaths) and gets what the two calls give', () => {
+		const d = load(file);
+		const both = checkAndPaths(d, { maxPaths: 30 });
+		expect(both.check).toEqual(checkAdjustment(d));
+		expect(both.paths).toEqual(exposureOutcomePaths(d, { max: 30 }));
+		expect(both.paths.paths).toHaveLength(30);
 	});
 
 	it('adjusting for every confounder leaves no open non-causal path, in both sections', () => {
