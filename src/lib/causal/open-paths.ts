@@ -34,8 +34,10 @@ export const OPEN_PATH_BUDGET = 400_000_000;
 export interface OpenNonCausalListing extends OpenPathCount {
 	/** The first `keep` paths found, in search order. */
 	paths: number[][];
-	/** Partial paths the search extended (a branch leads to an output unless the budget is spent). */
+	/** Partial paths the search extended. */
 	branches: number;
+	/** Of those, the ones whose search found no path (see open-completion.ts for when). */
+	deadBranches: number;
 }
 
 export function openPathContext(g: CompiledDag, X: readonly number[], Y: readonly number[], Z: readonly number[]): OpenPathContext {
@@ -52,6 +54,8 @@ interface Frame {
 	next: number[];
 	pos: number;
 	turned: boolean;
+	/** Some path was found below this frame. */
+	found: boolean;
 }
 
 /**
@@ -76,20 +80,35 @@ export function openNonCausalPathsIdx(
 	let count = 0;
 	let work = 0;
 	let branches = 0;
+	let deadBranches = 0;
 
-	/** Viable next states from state s (its variable last on `path`, marked on `onPath`). */
+	/**
+	 * Viable next states from state s (its variable last on `path`, marked on `onPath`). On a
+	 * path that has turned, a state with one possible next step needs no test: the test that
+	 * admitted s found an open walk from it, whose first step can only be that one.
+	 */
 	const expand = (s: number, turned: boolean): number[] => {
 		const v = s >> 1;
-		work += tables.compute(onPath);
 		const out: number[] = [];
-		const consider = (w: number, dir: number) => {
-			if (onPath[w] || c.excluded[w]) return;
-			const t = 2 * w + dir;
-			const nowTurned = turned || dir === UP;
-			if (c.inY[w] ? nowTurned : nowTurned ? tables.reach[t] : tables.reachTurning[t] || tables.turnHere[w]) out.push(t);
-		};
-		if (toParents(c, v, s & 1)) for (let k = g.parentStart[v]; k < g.parentStart[v + 1]; k++) consider(g.parentList[k], UP);
-		if (toChildren(c, v)) for (let k = g.childStart[v]; k < g.childStart[v + 1]; k++) consider(g.childList[k], DOWN);
+		if (toParents(c, v, s & 1))
+			for (let k = g.parentStart[v]; k < g.parentStart[v + 1]; k++) {
+				const w = g.parentList[k];
+				if (!onPath[w] && !c.excluded[w]) out.push(2 * w + UP);
+			}
+		if (toChildren(c, v))
+			for (let k = g.childStart[v]; k < g.childStart[v + 1]; k++) {
+				const w = g.childList[k];
+				if (!onPath[w] && !c.excluded[w]) out.push(2 * w + DOWN);
+			}
+		if (turned && out.length === 1) return out;
+		work += tables.compute(onPath);
+		let kept = 0;
+		for (const t of out) {
+			const w = t >> 1;
+			const nowTurned = turned || (t & 1) === UP;
+			if (c.inY[w] ? nowTurned : nowTurned ? tables.reach[t] : tables.reachTurning[t] || tables.turnHere[w]) out[kept++] = t;
+		}
+		out.length = kept;
 		return out;
 	};
 
@@ -97,17 +116,22 @@ export function openNonCausalPathsIdx(
 	search: for (const x of X) {
 		onPath[x] = 1;
 		path.push(x);
-		const stack: Frame[] = [{ next: expand(2 * x + UP, false), pos: 0, turned: false }];
+		const stack: Frame[] = [{ next: expand(2 * x + UP, false), pos: 0, turned: false, found: false }];
 		while (stack.length > 0) {
 			const top = stack[stack.length - 1];
 			if (top.pos === top.next.length) {
 				stack.pop();
 				onPath[path.pop()!] = 0;
+				if (stack.length > 0) {
+					if (top.found) stack[stack.length - 1].found = true;
+					else deadBranches++;
+				}
 				continue;
 			}
 			const t = top.next[top.pos++];
 			const w = t >> 1;
 			if (c.inY[w]) {
+				top.found = true;
 				if (++count > countCap) {
 					count = countCap;
 					bound = 'more-than';
@@ -124,8 +148,8 @@ export function openNonCausalPathsIdx(
 			branches++;
 			onPath[w] = 1;
 			path.push(w);
-			stack.push({ next: expand(t, turned), pos: 0, turned });
+			stack.push({ next: expand(t, turned), pos: 0, turned, found: false });
 		}
 	}
-	return { paths, count, bound, branches };
+	return { paths, count, bound, branches, deadBranches };
 }

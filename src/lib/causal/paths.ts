@@ -43,8 +43,8 @@ function adjustedDescendant(g: CompiledDag, v: number, Z: Mask): number {
 	return -1;
 }
 
-/** Classifies one path node by node. */
-export function classifyPath(g: CompiledDag, nodes: readonly number[], Z: Mask, anZ: Mask): ClassifiedPath {
+/** Classifies one path node by node. `via` caches adjustedDescendant across the paths of one listing. */
+export function classifyPath(g: CompiledDag, nodes: readonly number[], Z: Mask, anZ: Mask, via = new Map<number, number>()): ClassifiedPath {
 	const blocking: NodeStatus[] = [];
 	const opened: NodeStatus[] = [];
 	let causal = true;
@@ -57,7 +57,9 @@ export function classifyPath(g: CompiledDag, nodes: readonly number[], Z: Mask, 
 		} else if (Z[v]) {
 			opened.push({ node: v, reason: 'collider-adjusted' });
 		} else if (anZ[v]) {
-			opened.push({ node: v, reason: 'collider-descendant-adjusted', via: adjustedDescendant(g, v, Z) });
+			let below = via.get(v);
+			if (below === undefined) via.set(v, (below = adjustedDescendant(g, v, Z)));
+			opened.push({ node: v, reason: 'collider-descendant-adjusted', via: below });
 		} else {
 			blocking.push({ node: v, reason: 'collider-not-adjusted' });
 		}
@@ -90,7 +92,8 @@ export function listPathsIdx(
 	const zMask = maskOf(g.n, usable);
 	const anZ = ancestorsOf(g, usable);
 	const open = given ?? openNonCausalPathsIdx(g, X, Y, usable, { keep: max, budget });
-	const paths = open.paths.slice(0, max).map((p) => classifyPath(g, p, zMask, anZ));
+	const via = new Map<number, number>();
+	const paths = open.paths.slice(0, max).map((p) => classifyPath(g, p, zMask, anZ, via));
 	const listed = new Set(open.paths.slice(0, max).map((p) => p.join()));
 	// full: a path was left out for want of room; stopped: the step budget ran out.
 	let full = open.count > paths.length;
@@ -98,7 +101,7 @@ export function listPathsIdx(
 	const left = { left: budget };
 	const take = (nodes: readonly number[], wanted: (p: ClassifiedPath) => boolean): boolean => {
 		if (listed.has(nodes.join())) return true;
-		const p = classifyPath(g, nodes, zMask, anZ);
+		const p = classifyPath(g, nodes, zMask, anZ, via);
 		if (!wanted(p)) return true;
 		if (paths.length >= max) {
 			full = true;
