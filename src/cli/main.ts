@@ -4,7 +4,7 @@
  * exit 0 = done, 1 = negative verdict (`check`), 2 = bad usage or bad input, with one line on
  * stderr and no stack trace.
  */
-import { adjustTogetherText, CONFOUNDER_UNDECIDED, optimalSetSentence } from '../lib/wording';
+import { adjustTogetherText, CONFOUNDER_UNDECIDED, optimalSetSentence, pathCountSentence } from '../lib/wording';
 import { readFile, writeFile } from 'node:fs/promises';
 import { parseArgs } from 'node:util';
 import type { Diagram } from '../lib/graph/diagram';
@@ -138,7 +138,9 @@ ${QUESTION_HELP}`,
 		summary: 'list exposure–outcome paths with their status',
 		usage: 'causeway paths DIAGRAM [--adjust a,b] [--max N] [--exposure …] [--outcome …] [--json]',
 		details: `Lists every path between exposure and outcome (capped by --max, default 1000): causal or
-not, open or blocked under the planned set, and which variables block it or hold it open.
+not, open or blocked under the planned set, and which variables block it or hold it open. The
+open non-causal paths come first and are counted exactly up to 10,000 (the count the app's
+Adjustment section gives); then causal paths, then blocked ones.
   --adjust a,b   the planned set, replacing the file's
   --max N        list at most N paths
 ${QUESTION_HELP}`,
@@ -157,6 +159,7 @@ ${QUESTION_HELP}`,
 				ctx.print(`${pathText(p.nodes, arrows)}   [${status}]${why ? ` ${why}` : ''}`);
 			}
 			if (r.paths.length === 0) ctx.print('No path joins the exposure and the outcome.');
+			else ctx.print(pathCountSentence(r.openNonCausal));
 			if (r.truncated) ctx.print(`… stopped after ${r.paths.length} paths (--max); more exist`);
 			return 0;
 		}

@@ -12,8 +12,8 @@ import type { CompiledDag } from '../graph/compiled';
 import type { ForbiddenWhy } from './types';
 import { dSeparated } from './dsep';
 import { properBackDoorGraph, properCausalStructure, type ProperCausalStructure } from './proper-causal';
-import { descendantsOf, maskOf, membersOf } from './reach';
-import { listOpenNonCausalPaths } from './open-paths';
+import { descendantsOf, membersOf } from './reach';
+import { openNonCausalPathsIdx, type OpenNonCausalListing, type OpenPathCount } from './open-paths';
 
 export interface ForbiddenMember {
 	variable: number;
@@ -25,6 +25,8 @@ export interface AdjustmentValidity {
 	openPaths: number[][];
 	/** True when more open non-causal paths exist than were listed. */
 	openPathsTruncated: boolean;
+	/** How many open non-causal paths there are (the same count the path listing gives). */
+	openPathCount: OpenPathCount;
 	forbidden: ForbiddenMember[];
 }
 
@@ -49,27 +51,32 @@ export function forbiddenReasons(g: CompiledDag, s: ProperCausalStructure, Z: re
 
 /**
  * Checks a planned set Z for the total effect of X on Y and gives every reason it fails:
- * each forbidden member and the open proper non-causal paths (up to `maxPaths`).
+ * each forbidden member and the open proper non-causal paths (up to `maxPaths`). `open`, when
+ * given, is openNonCausalPathsIdx's answer for the same question (the path listing's), so the
+ * two are computed once and cannot differ.
  */
 export function checkAdjustmentIdx(
 	g: CompiledDag,
 	X: readonly number[],
 	Y: readonly number[],
 	Z: readonly number[],
-	maxPaths = 50
+	maxPaths = 50,
+	open?: OpenNonCausalListing
 ): AdjustmentValidity {
 	const s = properCausalStructure(g, X, Y);
 	const forbidden = forbiddenReasons(g, s, Z);
 	const usable = Z.filter((z) => !s.inX[z] && !s.inY[z]);
 	const pbd = properBackDoorGraph(g, s);
 	const separated = dSeparated(pbd, X, Y, usable);
-	const listing = listOpenNonCausalPaths(g, X, Y, maskOf(g.n, usable), maxPaths);
-	const openPaths = listing.paths;
+	const listing = open ?? openNonCausalPathsIdx(g, X, Y, usable, { keep: maxPaths });
+	const openPaths = listing.paths.slice(0, maxPaths);
+	// Only when the listing's step budget ran out before the first path: CBC's witness.
 	if (!separated.separated && openPaths.length === 0 && separated.path) openPaths.push(separated.path);
 	return {
 		valid: forbidden.length === 0 && separated.separated,
 		openPaths,
-		openPathsTruncated: listing.truncated,
+		openPathsTruncated: listing.count > openPaths.length || listing.bound !== 'exact',
+		openPathCount: { count: Math.max(listing.count, openPaths.length), bound: listing.bound },
 		forbidden
 	};
 }

@@ -24,6 +24,7 @@ import { checkAdjustmentIdx } from './adjustment';
 import { impliedClaimsIdx } from './claims';
 import { dSeparated } from './dsep';
 import { listPathsIdx, type NodeStatus } from './paths';
+import { openNonCausalPathsIdx, type OpenNonCausalListing } from './open-paths';
 import { variableRoleDetailsIdx } from './roles';
 import { listMinimalAdjustmentSetsIdx, minimumAdjustmentSetIdx, optimalAdjustmentSetIdx, optimalSetGapIdx } from './sets';
 
@@ -58,15 +59,27 @@ export function adjustmentSets(d: Diagram, opts: QuestionOptions & { effect?: Ef
 export function checkAdjustment(d: Diagram, opts: QuestionOptions & { adjusted?: string[]; maxPaths?: number } = {}): AdjustmentCheck {
 	const { g, X, Y } = prepare(d, opts);
 	const adjusted = opts.adjusted ?? d.adjusted;
-	const Z = indicesFor(g, adjusted, 'adjusted variable');
-	const result = checkAdjustmentIdx(g, X, Y, Z, opts.maxPaths ?? 50);
+	return checkById(g, X, Y, adjusted, indicesFor(g, adjusted, 'adjusted variable'), opts.maxPaths ?? 50);
+}
+
+function checkById(
+	g: CompiledDag,
+	X: readonly number[],
+	Y: readonly number[],
+	adjusted: readonly string[],
+	Z: readonly number[],
+	maxPaths: number,
+	open?: OpenNonCausalListing
+): AdjustmentCheck {
+	const result = checkAdjustmentIdx(g, X, Y, Z, maxPaths, open);
 	return {
 		adjusted: sortIds(new Set(adjusted)),
 		valid: result.valid,
 		problems: [
 			...result.forbidden.map((f) => ({ kind: 'forbidden' as const, variable: g.ids[f.variable], why: f.why })),
 			...result.openPaths.map((p) => ({ kind: 'open-path' as const, path: named(g, p) }))
-		]
+		],
+		openPaths: result.openPathCount
 	};
 }
 
@@ -103,16 +116,41 @@ function reasonById(g: CompiledDag, r: NodeStatus): PathNodeReason {
 export function exposureOutcomePaths(d: Diagram, opts: QuestionOptions & { adjusted?: string[]; max?: number } = {}): PathListing {
 	const { g, X, Y } = prepare(d, opts);
 	const Z = indicesFor(g, opts.adjusted ?? d.adjusted, 'adjusted variable');
-	const max = opts.max ?? DEFAULT_LISTED_PATHS;
+	return pathsById(g, X, Y, Z, listedPaths(opts.max));
+}
+
+function listedPaths(asked: number | undefined): number {
+	const max = asked ?? DEFAULT_LISTED_PATHS;
 	if (max > MAX_LISTED_PATHS) throw new InputError(`At most ${MAX_LISTED_PATHS} paths can be listed at once (asked for ${max})`);
-	const listing = listPathsIdx(g, X, Y, Z, max);
+	return max;
+}
+
+function pathsById(g: CompiledDag, X: readonly number[], Y: readonly number[], Z: readonly number[], max: number, open?: OpenNonCausalListing): PathListing {
+	const listing = listPathsIdx(g, X, Y, Z, max, undefined, open);
 	const paths: PathInfo[] = listing.paths.map((p) => ({
 		nodes: named(g, p.nodes),
 		causal: p.causal,
 		open: p.open,
 		reasons: p.reasons.map((r) => reasonById(g, r))
 	}));
-	return { paths, truncated: listing.truncated };
+	return { paths, truncated: listing.truncated, openNonCausal: listing.openNonCausal };
+}
+
+/**
+ * The verdict on the diagram's planned set and the path listing together, from one search for
+ * the open non-causal paths: the Adjustment and Paths sections' counts come from one answer.
+ */
+export function checkAndPaths(
+	d: Diagram,
+	opts: QuestionOptions & { maxPaths?: number; maxProblemPaths?: number } = {}
+): { check: AdjustmentCheck; paths: PathListing } {
+	const { g, X, Y } = prepare(d, opts);
+	const Z = indicesFor(g, d.adjusted, 'adjusted variable');
+	const max = listedPaths(opts.maxPaths);
+	const maxProblemPaths = opts.maxProblemPaths ?? 50;
+	const ends = new Set([...X, ...Y]);
+	const open = openNonCausalPathsIdx(g, X, Y, Z.filter((z) => !ends.has(z)), { keep: Math.max(max, maxProblemPaths) });
+	return { check: checkById(g, X, Y, d.adjusted, Z, maxProblemPaths, open), paths: pathsById(g, X, Y, Z, max, open) };
 }
 
 /** The independencies the diagram implies, one per non-adjacent pair of measured variables. */
@@ -163,9 +201,8 @@ export function analyse(d: Diagram, opts: { maxSets?: number; maxPaths?: number;
 		ready,
 		sets: adjustmentSets(d, { max: opts.maxSets }),
 		directSets: direct ? adjustmentSets(d, { effect: 'direct', max: opts.maxSets }) : null,
-		check: checkAdjustment(d),
+		...checkAndPaths(d, { maxPaths: opts.maxPaths }),
 		roles: variableRoles(d),
-		paths: exposureOutcomePaths(d, { max: opts.maxPaths }),
 		claims
 	};
 }

@@ -16,6 +16,7 @@ export {
 	adjustmentSets,
 	analyse,
 	checkAdjustment,
+	checkAndPaths,
 	dSeparation,
 	exposureOutcomePaths,
 	impliedClaims,

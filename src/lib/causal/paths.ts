@@ -2,11 +2,13 @@
  * Every path between exposure and outcome with its status under the planned set: causal or
  * not, open or blocked, and which variables block it or hold it open (the d-separation rule,
  * Pearl 1988, applied node by node). Exponentially many paths can exist, so the listing is
- * capped and says when it was (open-paths.ts). O(L · p) for L listed paths of length ≤ p,
- * after an O(n + m) pass for An(Z).
+ * capped and says when it was; the open non-causal ones are also counted exactly up to
+ * 10,000. Listing: polynomial delay, O(p · (n + m)) per path of at most p variables
+ * (open-paths.ts, simple-paths.ts); classifying a path O(p) after an O(n + m) pass for An(Z).
  */
 import type { CompiledDag } from '../graph/compiled';
-import { walkPaths } from './open-paths';
+import { openNonCausalPathsIdx, OPEN_PATH_BUDGET, type OpenNonCausalListing, type OpenPathCount } from './open-paths';
+import { visitCausalPaths, visitSimplePaths } from './simple-paths';
 import { ancestorsOf, hasArrow, maskOf, type Mask } from './reach';
 
 export type NodeStatus =
@@ -41,8 +43,8 @@ function adjustedDescendant(g: CompiledDag, v: number, Z: Mask): number {
 	return -1;
 }
 
-/** Classifies one path node by node. */
-export function classifyPath(g: CompiledDag, nodes: readonly number[], Z: Mask, anZ: Mask): ClassifiedPath {
+/** Classifies one path node by node. `via` caches adjustedDescendant across the paths of one listing. */
+export function classifyPath(g: CompiledDag, nodes: readonly number[], Z: Mask, anZ: Mask, via = new Map<number, number>()): ClassifiedPath {
 	const blocking: NodeStatus[] = [];
 	const opened: NodeStatus[] = [];
 	let causal = true;
@@ -55,7 +57,9 @@ export function classifyPath(g: CompiledDag, nodes: readonly number[], Z: Mask, 
 		} else if (Z[v]) {
 			opened.push({ node: v, reason: 'collider-adjusted' });
 		} else if (anZ[v]) {
-			opened.push({ node: v, reason: 'collider-descendant-adjusted', via: adjustedDescendant(g, v, Z) });
+			let below = via.get(v);
+			if (below === undefined) via.set(v, (below = adjustedDescendant(g, v, Z)));
+			opened.push({ node: v, reason: 'collider-descendant-adjusted', via: below });
 		} else {
 			blocking.push({ node: v, reason: 'collider-not-adjusted' });
 		}
@@ -65,8 +69,14 @@ export function classifyPath(g: CompiledDag, nodes: readonly number[], Z: Mask, 
 }
 
 /**
- * Lists paths from X to Y (interior avoiding X ∪ Y), at most `max`, classified under Z.
- * Sorted: causal first, then open before blocked, then shorter first.
+ * Lists paths from X to Y (interior avoiding X ∪ Y), at most `max`, classified under Z, in
+ * three rounds: the open non-causal paths first (open-paths.ts, counted exactly up to
+ * OPEN_PATH_COUNT_CAP — the same function and count as the adjustment verdict), then the
+ * causal paths, then the blocked non-causal ones, each round with polynomial delay
+ * (simple-paths.ts) until `max` paths or the step budget. Z's members in X or Y are ignored,
+ * as the adjustment check does. Sorted: causal first, then open before blocked, then shorter.
+ * `given`: openNonCausalPathsIdx's answer for this question with keep ≥ max, when the caller
+ * has it already (the adjustment check's).
  */
 export function listPathsIdx(
 	g: CompiledDag,
@@ -74,26 +84,35 @@ export function listPathsIdx(
 	Y: readonly number[],
 	Z: readonly number[],
 	max = 1000,
-	budget = 500_000
-): { paths: ClassifiedPath[]; truncated: boolean } {
-	const zMask = maskOf(g.n, Z);
-	const anZ = ancestorsOf(g, Z);
-	const paths: ClassifiedPath[] = [];
-	let more = false;
-	const cut = walkPaths(
-		g,
-		X,
-		Y,
-		(nodes) => {
-			if (paths.length >= max) {
-				more = true;
-				return false;
-			}
-			paths.push(classifyPath(g, nodes, zMask, anZ));
-			return true;
-		},
-		{ onlyOpen: false, Z: zMask, budget }
-	);
+	budget = OPEN_PATH_BUDGET,
+	given?: OpenNonCausalListing
+): { paths: ClassifiedPath[]; truncated: boolean; openNonCausal: OpenPathCount } {
+	const ends = maskOf(g.n, [...X, ...Y]);
+	const usable = Z.filter((z) => !ends[z]);
+	const zMask = maskOf(g.n, usable);
+	const anZ = ancestorsOf(g, usable);
+	const open = given ?? openNonCausalPathsIdx(g, X, Y, usable, { keep: max, budget });
+	const via = new Map<number, number>();
+	const paths = open.paths.slice(0, max).map((p) => classifyPath(g, p, zMask, anZ, via));
+	const listed = new Set(open.paths.slice(0, max).map((p) => p.join()));
+	// full: a path was left out for want of room; stopped: the step budget ran out.
+	let full = open.count > paths.length;
+	let stopped = open.bound !== 'exact';
+	const left = { left: budget };
+	const take = (nodes: readonly number[], wanted: (p: ClassifiedPath) => boolean): boolean => {
+		if (listed.has(nodes.join())) return true;
+		const p = classifyPath(g, nodes, zMask, anZ, via);
+		if (!wanted(p)) return true;
+		if (paths.length >= max) {
+			full = true;
+			return false;
+		}
+		paths.push(p);
+		return true;
+	};
+	if (!full && visitCausalPaths(g, X, Y, (nodes) => take(nodes, () => true), left) && !full) stopped = true;
+	if (!full && left.left > 0 && visitSimplePaths(g, X, Y, (nodes) => take(nodes, (p) => !p.causal && !p.open), left) && !full) stopped = true;
+	const truncated = full || stopped;
 	paths.sort((p, q) => Number(q.causal) - Number(p.causal) || Number(q.open) - Number(p.open) || p.nodes.length - q.nodes.length);
-	return { paths, truncated: more || cut };
+	return { paths, truncated, openNonCausal: { count: open.count, bound: open.bound } };
 }

@@ -20,10 +20,22 @@ export type AdjustmentProblem =
 	| { kind: 'open-path'; path: string[] }
 	| { kind: 'forbidden'; variable: string; why: ForbiddenWhy };
 
+/**
+ * A count of paths that may be capped: exact; more-than (over `count` exist: counting stops at
+ * 10,000); at-least (the search's step budget ran out first).
+ */
+export interface PathCount {
+	count: number;
+	bound: 'exact' | 'more-than' | 'at-least';
+}
+
 export interface AdjustmentCheck {
 	adjusted: string[];
 	valid: boolean;
+	/** Forbidden members, then the first open non-causal paths (at most `maxPaths`). */
 	problems: AdjustmentProblem[];
+	/** All open non-causal paths: the same count as the path listing's `openNonCausal`. */
+	openPaths: PathCount;
 }
 
 export interface AdjustmentSets {
@@ -99,6 +111,8 @@ export interface PathInfo {
 export interface PathListing {
 	paths: PathInfo[];
 	truncated: boolean;
+	/** All open non-causal paths under the planned set (listed first). */
+	openNonCausal: PathCount;
 }
 
 export interface Claim {

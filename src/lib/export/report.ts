@@ -120,8 +120,8 @@ export function draftParagraph(d: Diagram, a: ReportAnalysis, absent: AbsentArro
 	if (check.valid) {
 		out.push(
 			planned.length === 0
-				? 'We will not adjust for any covariate: under the diagram no biasing path is open.'
-				: `We will adjust for ${names(planned)}, which is sufficient under the diagram: it blocks every biasing path between exposure and outcome and includes no mediator or consequence of the outcome.`
+				? 'We will not adjust for any covariate: under the diagram no non-causal path is open.'
+				: `We will adjust for ${names(planned)}, which is sufficient under the diagram: it blocks every non-causal path between exposure and outcome and includes no mediator or consequence of the outcome.`
 		);
 	} else {
 		out.push(`The planned adjustment for ${planned.length ? names(planned) : 'no covariate'} is not sufficient under the diagram and should be revised before the analysis.`);
@@ -165,7 +165,7 @@ function absentSentence(item: AbsentArrowReport['items'][number], d: Diagram, a:
 		const reason = !why
 			? ''
 			: why.kind === 'open-path'
-				? ` (a biasing path would open: ${pathText(why.path, withArrow, label)})`
+				? ` (a non-causal path would open: ${pathText(why.path, withArrow, label)})`
 				: ` (${problemText(why, withArrow, label).replace(/\.$/, '').replace(' is ', ' would be ')})`;
 		consequences.push(`the planned set would no longer be sufficient${reason}`);
 	}
@@ -292,7 +292,7 @@ export function buildReport(input: ReportInput): ReportModel {
 	else {
 		setBlocks.push({
 			kind: 'paragraph',
-			text: `Minimal sufficient adjustment sets for the total effect (each blocks every biasing path and leaves out mediators and consequences of the outcome; no variable can be dropped from one):`
+			text: `Minimal sufficient adjustment sets for the total effect (each blocks every non-causal path and leaves out mediators and consequences of the outcome; no variable can be dropped from one):`
 		});
 		setBlocks.push({ kind: 'list', items: a.sets.sets.map((s) => setText(s, label)) });
 		if (a.sets.truncated) setBlocks.push({ kind: 'paragraph', text: `The listing stopped after ${a.sets.sets.length} sets; more exist.` });

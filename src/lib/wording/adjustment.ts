@@ -5,7 +5,7 @@
 import type { AdjustmentCheck, AdjustmentProblem, ForbiddenWhy } from '../causal';
 import type { Diagram } from '../graph/diagram';
 import { adjustingFor, arrowSet, countText, listNames, type LabelOf } from './names';
-import { pathText } from './paths';
+import { pathCountText, pathText } from './paths';
 
 /** Why a variable must not be in the planned set, after its name. */
 export const FORBIDDEN_WHY: Readonly<Record<ForbiddenWhy, string>> = {
@@ -31,10 +31,12 @@ export function verdictSentence(check: AdjustmentCheck, labelOf: LabelOf): strin
 			? 'No adjustment is needed: with nothing adjusted for, every non-causal path is already blocked.'
 			: `${subject} is sufficient: it blocks every non-causal path and adjusts for no mediator or descendant of the outcome.`;
 	}
-	const open = check.problems.filter((p) => p.kind === 'open-path').length;
-	const bad = check.problems.length - open;
+	// The count, not the listed problems: the listing shows at most a few dozen paths, and the
+	// count is the one the Paths section shows (one engine function gives both).
+	const open = check.openPaths;
+	const bad = check.problems.filter((p) => p.kind !== 'open-path').length;
 	const parts: string[] = [];
-	if (open > 0) parts.push(`${open === 1 ? 'a non-causal path stays' : `${countText(open, 'non-causal path')} stay`} open`);
+	if (open.count > 0) parts.push(`${open.count > 1 ? `${pathCountText(open, 'non-causal path')} stay` : open.bound === 'exact' ? 'a non-causal path stays' : 'at least one non-causal path stays'} open`);
 	if (bad > 0) parts.push(`${bad === 1 ? 'one variable' : countText(bad, 'variable')} should not be adjusted for`);
 	return `${subject} is not sufficient: ${listNames(parts)}.`;
 }

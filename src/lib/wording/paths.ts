@@ -4,9 +4,9 @@
  * set; "back-door path" is said only of a non-causal path that starts with an arrow into the
  * exposure (Pearl 1995). Shared by the app, the command line and the report.
  */
-import type { PathInfo, PathNodeReason } from '../causal';
+import type { PathCount, PathInfo, PathNodeReason } from '../causal';
 import type { Diagram } from '../graph/diagram';
-import { arrowSet, arrowTest, listNames, pathWords, type ArrowTest, type LabelOf } from './names';
+import { arrowSet, arrowTest, countText, listNames, pathWords, type ArrowTest, type LabelOf } from './names';
 
 /** "A → B ← C": the path with each arrow's real direction. */
 export function pathText(nodes: readonly string[], d: Diagram, labelOf: LabelOf, arrows: ReadonlySet<string> = arrowSet(d)): string {
@@ -56,4 +56,27 @@ export function pathStatus(p: PathInfo, labelOf: LabelOf): string {
 export function pathKind(p: PathInfo): 'causal' | 'open' | 'blocked' {
 	if (!p.open) return 'blocked';
 	return p.causal ? 'causal' : 'open';
+}
+
+/**
+ * "3 open non-causal paths", "more than 10,000 …", "at least 40 …" (`what` names the paths).
+ * The app's Paths and Adjustment sections and the command line say counts this one way.
+ */
+export function pathCountText(c: PathCount, what = 'open non-causal path'): string {
+	const plain = countText(c.count, what);
+	if (c.bound === 'more-than') return `more than ${plain}`;
+	if (c.bound === 'at-least') return `at least ${plain}`;
+	return plain;
+}
+
+/** The number alone: "50", "more than 10,000", "at least 40". */
+export function countBoundText(c: PathCount): string {
+	const n = c.count.toLocaleString('en-GB');
+	return c.bound === 'more-than' ? `more than ${n}` : c.bound === 'at-least' ? `at least ${n}` : n;
+}
+
+/** "50 open non-causal paths under the planned set." — one sentence for the app and the command line. */
+export function pathCountSentence(c: PathCount): string {
+	const text = pathCountText(c);
+	return `${text[0].toUpperCase()}${text.slice(1)} under the planned set.`;
 }

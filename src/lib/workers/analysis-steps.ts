@@ -18,8 +18,7 @@ import type { DiagramIssue } from '../graph/validate';
 import { validateDiagram } from '../graph/validate';
 import {
 	adjustmentSets,
-	checkAdjustment,
-	exposureOutcomePaths,
+	checkAndPaths,
 	listImpliedClaims,
 	variableRoles,
 	type AdjustmentCheck,
@@ -79,7 +78,8 @@ export interface AppAnalysis extends Analysis {
 export function analyseVerdict(d: Diagram, limits: AnalysisLimits = DEFAULT_LIMITS): VerdictPart {
 	const issues = validateDiagram(d, { needQuestion: true });
 	if (issues.length > 0) return { issues, ready: false, check: null, paths: null };
-	return { issues, ready: true, check: checkAdjustment(d), paths: exposureOutcomePaths(d, { max: limits.maxPaths }) };
+	// One search for the open non-causal paths feeds the verdict and the Paths section.
+	return { issues, ready: true, ...checkAndPaths(d, { maxPaths: limits.maxPaths }) };
 }
 
 /** The sets part (empty when the diagram is not ready for analysis). */

@@ -43,9 +43,14 @@ describe('one word per idea', () => {
 	it('the empty set has one spelling, and sentences say what it means', () => {
 		expect(setText([], label)).toBe('{ }');
 		expect(braces([])).toBe('{ }');
-		const none: AdjustmentCheck = { adjusted: [], valid: false, problems: [{ kind: 'open-path', path: ['x', 'c', 'y'] }] };
+		const none: AdjustmentCheck = {
+			adjusted: [],
+			valid: false,
+			problems: [{ kind: 'open-path', path: ['x', 'c', 'y'] }],
+			openPaths: { count: 1, bound: 'exact' }
+		};
 		expect(verdictSentence(none, label)).toBe('Adjusting for nothing is not sufficient: a non-causal path stays open.');
-		expect(verdictSentence({ adjusted: [], valid: true, problems: [] }, label)).toMatch(/^No adjustment is needed/);
+		expect(verdictSentence({ adjusted: [], valid: true, problems: [], openPaths: { count: 0, bound: 'exact' } }, label)).toMatch(/^No adjustment is needed/);
 		expect(verdictSentence(none, label)).not.toMatch(/no adjustment needed/);
 	});
 
