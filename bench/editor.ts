@@ -91,25 +91,43 @@ type Until = 'verdict' | 'claims' | 'frame';
  * once the frame is drawn. Returns NaN after EDIT_TIMEOUT.
  */
 async function timeKey(page: Page, key: string, until: Until): Promise<number> {
+	return (await timeKeyTwice(page, key, until))[0];
+}
+
+/**
+ * As timeKey; for 'verdict' also the milliseconds until the frame that shows the open
+ * non-causal paths counted (the verdict arrives first, the exact count after it).
+ */
+async function timeKeyTwice(page: Page, key: string, until: Until): Promise<[number, number]> {
 	await page.evaluate((u) => {
 		const text = (sel: string) => document.querySelector(sel)?.textContent ?? '';
 		const serialNow = () => Number(document.querySelector('[data-analysis-serial]')?.getAttribute('data-analysis-serial') ?? 0);
-		const state = { t0: -1, done: -1, serial: serialNow(), announced: text('[data-testid="canvas-announcer"]') };
+		const state = { t0: -1, done: -1, counted: -1, serial: serialNow(), announced: text('[data-testid="canvas-announcer"]') };
 		(window as unknown as { __bench: typeof state }).__bench = state;
 		window.addEventListener('keydown', (e) => {
 			if (state.t0 < 0) state.t0 = e.timeStamp;
 		}, { capture: true, once: true });
 		const channel = new MessageChannel();
-		channel.port1.onmessage = () => (state.done = performance.now());
+		channel.port1.onmessage = (e) => {
+			if (e.data === 'counted') state.counted = performance.now();
+			else state.done = performance.now();
+		};
+		let shownOnce = false;
 		const tick = () => {
 			if (state.t0 >= 0) {
 				const working = document.querySelector('[data-testid="analysis-progress"]') !== null;
+				const newVerdict = serialNow() > state.serial && text('[data-testid="verdict"]') !== '';
 				const shown =
 					u === 'frame'
 						? text('[data-testid="canvas-announcer"]') !== state.announced
-						: serialNow() > state.serial && text('[data-testid="verdict"]') !== '' && (u === 'verdict' || (!working && /\d+\+? claims/.test(text('[data-section="claims"] h2'))));
-				if (shown) {
-					channel.port2.postMessage(0);
+						: newVerdict && (u === 'verdict' || (!working && /\d+\+? claims/.test(text('[data-section="claims"] h2'))));
+				if (shown && !shownOnce) {
+					shownOnce = true;
+					channel.port2.postMessage('shown');
+				}
+				const counted = newVerdict && document.querySelector('[data-testid="verdict"]')?.getAttribute('data-paths-pending') === 'false';
+				if (shownOnce && (u !== 'verdict' || counted)) {
+					if (u === 'verdict') channel.port2.postMessage('counted');
 					return;
 				}
 			}
@@ -118,17 +136,22 @@ async function timeKey(page: Page, key: string, until: Until): Promise<number> {
 		requestAnimationFrame(tick);
 	}, until);
 	await page.keyboard.press(key);
+	const read = () =>
+		page.evaluate(() => {
+			const s = (window as unknown as { __bench: { t0: number; done: number; counted: number } }).__bench;
+			return [s.done < 0 ? NaN : s.done - s.t0, s.counted < 0 ? NaN : s.counted - s.t0] as [number, number];
+		});
 	try {
-		await page.waitForFunction(() => (window as unknown as { __bench: { done: number } }).__bench.done >= 0, null, { timeout: EDIT_TIMEOUT, polling: 20 });
+		await page.waitForFunction((u) => {
+			const s = (window as unknown as { __bench: { done: number; counted: number } }).__bench;
+			return s.done >= 0 && (u !== 'verdict' || s.counted >= 0);
+		}, until, { timeout: EDIT_TIMEOUT, polling: 20 });
 	} catch {
-		return NaN; // shown as "> timeout" in the table
+		return read(); // NaN where not done: shown as "> timeout" in the table
 	}
-	const ms = await page.evaluate(() => {
-		const s = (window as unknown as { __bench: { t0: number; done: number } }).__bench;
-		return s.done - s.t0;
-	});
+	const times = await read();
 	if (until !== 'frame') await waitIdle(page);
-	return ms;
+	return times;
 }
 
 /** Until no analysis is pending and the claims are listed (the next edit starts from rest). */
@@ -177,7 +200,12 @@ async function benchSize(browser: Browser, url: string, n: number, repeats: numb
 	// A confounder-like variable between exposure and outcome for P; a low index for U.
 	await select(page, `v${Math.floor(n * 0.3) - 1}`);
 	const planned: number[] = [];
-	for (let i = 0; i < repeats; i++) planned.push(await timeKey(page, 'p', 'verdict'));
+	const plannedCounted: number[] = [];
+	for (let i = 0; i < repeats; i++) {
+		const [shown, counted] = await timeKeyTwice(page, 'p', 'verdict');
+		planned.push(shown);
+		plannedCounted.push(counted);
+	}
 	await select(page, 'v1');
 	const unmeasuredVerdict: number[] = [];
 	const unmeasuredClaims: number[] = [];
@@ -194,6 +222,7 @@ async function benchSize(browser: Browser, url: string, n: number, repeats: numb
 		'open + first full analysis': fmtMs(openMs),
 		claims: /\d+\+? claims/.exec(claimsText)?.[0] ?? claimsText,
 		'P → verdict (median)': fmtMedian(planned),
+		'P → paths counted (median)': fmtMedian(plannedCounted),
 		'U → verdict (median)': fmtMedian(unmeasuredVerdict),
 		'U → claims listed (median)': fmtMedian(unmeasuredClaims),
 		'selection → frame (median)': fmtMedian(selection),
@@ -205,7 +234,7 @@ async function benchSize(browser: Browser, url: string, n: number, repeats: numb
 const NOTE = (dragSize: number, repeats: number): string =>
 	'Times are taken in the page, from the keydown event to the end of the first frame that shows the result (a task queued from that frame\'s animation-frame callback). ' +
 	`Each edit is timed ${repeats} times per size; the median is shown (targets, issue "Interactive at 1,000 variables": P ≤ 100 ms at 300 and ≤ 300 ms at 1,000; U → verdict ≤ 250 ms at 1,000; selection → frame ≤ 33 ms at 1,000). ` +
-	'P toggles a variable in the planned set: done when the new verdict is on screen and nothing is pending (only the verdict is recomputed). ' +
+	'P toggles a variable in the planned set: done when the new verdict is on screen (only the verdict is recomputed); "paths counted" when the exact count of open non-causal paths (up to 10,000) and the path listing, which follow the verdict, are on screen too. ' +
 	'U toggles a variable unmeasured: "verdict" when the new verdict is on screen (the sets, roles and claims follow in their own workers), "claims" when the claims are listed again (capped at 20,000 pairs). ' +
 	'Selection: an arrow key moves the canvas selection to the nearest variable; done at the end of the frame that draws it (the overlay, no scene redraw). ' +
 	'Variables are chosen by name in the Question section and the canvas focused, as a keyboard user would (clicking them missed variables outside the view at 1,000). ' +

@@ -153,6 +153,22 @@ export function checkAndPaths(
 	return { check: checkById(g, X, Y, d.adjusted, Z, maxProblemPaths, open), paths: pathsById(g, X, Y, Z, max, open) };
 }
 
+/**
+ * The verdict on the planned set alone, before the open non-causal paths are counted: the
+ * search stops after the first `maxProblemPaths` of them, so the count is exact only when it is
+ * below that (bound 'more-than' otherwise). Valid or not is the same answer as checkAndPaths'
+ * (both rest on the adjustment criterion); the app shows this at once and the exact count and
+ * the listing from checkAndPaths when they follow. O(n + m) plus maxProblemPaths path delays.
+ */
+export function checkFirst(d: Diagram, opts: QuestionOptions & { maxProblemPaths?: number } = {}): AdjustmentCheck {
+	const { g, X, Y } = prepare(d, opts);
+	const Z = indicesFor(g, d.adjusted, 'adjusted variable');
+	const maxProblemPaths = opts.maxProblemPaths ?? 50;
+	const ends = new Set([...X, ...Y]);
+	const open = openNonCausalPathsIdx(g, X, Y, Z.filter((z) => !ends.has(z)), { keep: maxProblemPaths, countCap: maxProblemPaths });
+	return checkById(g, X, Y, d.adjusted, Z, maxProblemPaths, open);
+}
+
 /** The independencies the diagram implies, one per non-adjacent pair of measured variables. */
 export function impliedClaims(d: Diagram, opts: { max?: number } = {}): Claim[] {
 	return listImpliedClaims(d, opts).claims;

@@ -17,6 +17,7 @@ export {
 	analyse,
 	checkAdjustment,
 	checkAndPaths,
+	checkFirst,
 	dSeparation,
 	exposureOutcomePaths,
 	impliedClaims,

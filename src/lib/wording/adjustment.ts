@@ -23,8 +23,11 @@ export function problemText(p: AdjustmentProblem, d: Diagram, labelOf: LabelOf, 
 	return `${labelOf(p.variable)} ${FORBIDDEN_WHY[p.why]}.`;
 }
 
-/** The verdict on the planned set, in one sentence. */
-export function verdictSentence(check: AdjustmentCheck, labelOf: LabelOf): string {
+/**
+ * The verdict on the planned set, in one sentence. `counting`: the open non-causal paths are
+ * still being counted, so a count that is only a lower bound says so.
+ */
+export function verdictSentence(check: AdjustmentCheck, labelOf: LabelOf, counting = false): string {
 	const subject = capitalise(adjustingFor(check.adjusted, labelOf));
 	if (check.valid) {
 		return check.adjusted.length === 0
@@ -38,7 +41,8 @@ export function verdictSentence(check: AdjustmentCheck, labelOf: LabelOf): strin
 	const parts: string[] = [];
 	if (open.count > 0) parts.push(`${open.count > 1 ? `${pathCountText(open, 'non-causal path')} stay` : open.bound === 'exact' ? 'a non-causal path stays' : 'at least one non-causal path stays'} open`);
 	if (bad > 0) parts.push(`${bad === 1 ? 'one variable' : countText(bad, 'variable')} should not be adjusted for`);
-	return `${subject} is not sufficient: ${listNames(parts)}.`;
+	const still = counting && open.count > 0 && open.bound !== 'exact' ? ' (still counting the paths)' : '';
+	return `${subject} is not sufficient: ${listNames(parts)}${still}.`;
 }
 
 /** "Adjusting for …" at the start of a sentence. */

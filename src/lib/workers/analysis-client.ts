@@ -1,7 +1,8 @@
 /**
  * Runs the app's analysis: small diagrams on the main thread (results within the same frame,
  * no messaging), larger ones in three Web Workers, one per part (analysis-steps.ts), so that
- * the verdict on a planned-set edit is never queued behind the sets or the claims.
+ * the verdict on a planned-set edit is never queued behind the sets or the claims. The verdict
+ * worker answers twice: the verdict first, then the exact path count and listing.
  *
  * Each part is cached by the key of what it depends on and recomputed only when that key
  * changes: a planned-set edit recomputes the verdict alone, a question edit the verdict and
@@ -61,7 +62,7 @@ function defaultWorker(): Worker {
 	return new Worker(new URL('./analysis.worker.ts', import.meta.url), { type: 'module' });
 }
 
-type Cached = { verdict: { key: string; value: VerdictPart } | null; sets: { key: string; value: SetsPart } | null; claims: { key: string; value: ClaimsPart } | null };
+type Cached = { verdict: { key: string; value: VerdictPart; first?: true } | null; sets: { key: string; value: SetsPart } | null; claims: { key: string; value: ClaimsPart } | null };
 
 /** One worker computing one part at a time. */
 class PartChannel {
@@ -152,7 +153,8 @@ export class AnalysisRunner {
 			return false;
 		}
 		this.#latest = { diagram: d, keys };
-		const needed = PARTS.filter((p) => this.#cache[p]?.key !== keys[p]);
+		// A verdict whose paths are still being counted is not done yet either.
+		const needed = PARTS.filter((p) => this.#cache[p]?.key !== keys[p] || (p === 'verdict' && this.#cache.verdict?.first));
 		this.#deferred = [];
 		if (!this.usesWorker(d)) {
 			for (const p of PARTS) if (this.#channels[p].busyKey !== null) this.#channels[p].stop();
@@ -214,6 +216,12 @@ export class AnalysisRunner {
 				channel.fraction = reply.fraction;
 				this.#reportProgress();
 				break;
+			case 'first':
+				// The verdict before its paths are counted: shown at once; the counting goes on.
+				this.#cache.verdict = { key, value: reply.value, first: true };
+				this.#startDeferred(key);
+				if (this.#latest?.keys.verdict === key) this.#emit('worker', reply.ms);
+				break;
 			case 'done':
 				channel.busyKey = null;
 				if (reply.part === 'verdict') this.#cache.verdict = { key, value: reply.value };
@@ -258,6 +266,7 @@ export class AnalysisRunner {
 		if (running.length === 0) return;
 		// The first part still running names the stage; the claims give a fraction.
 		const part = running[0];
-		this.#events.progress({ stage: STAGE[part], fraction: part === 'claims' ? this.#channels.claims.fraction : 0 });
+		const stage = part === 'verdict' && this.#cache.verdict?.key === latest.keys.verdict ? 'Counting the paths' : STAGE[part];
+		this.#events.progress({ stage, fraction: part === 'claims' ? this.#channels.claims.fraction : 0 });
 	}
 }

@@ -2,8 +2,11 @@
  * The app's analysis in three parts, each recomputed only when what it depends on changes:
  *
  *  - verdict: the diagram's problems, the verdict on the planned set and the exposure–outcome
- *    paths under it. Depends on everything in `plannedKey`; milliseconds even at 1,000
- *    variables, so a planned-set edit (the most common one) waits for nothing else;
+ *    paths under it. Depends on everything in `plannedKey`. In a worker it arrives in two
+ *    steps: the verdict first (`analyseVerdictFirst`, milliseconds even at 1,000 variables),
+ *    then the exact count of open non-causal paths and the listing (up to 10,000 paths counted:
+ *    about 200 ms at 1,000 variables when there are that many), so a planned-set edit (the most
+ *    common one) waits for nothing else;
  *  - sets: minimal sufficient sets (total and direct effect) and the roles. Depends on the
  *    structure, what is measured and the question, not on the planned set (`questionKey`):
  *    at 1,000 variables this was 85 % of each planned-set edit before the split;
@@ -19,6 +22,7 @@ import { validateDiagram } from '../graph/validate';
 import {
 	adjustmentSets,
 	checkAndPaths,
+	checkFirst,
 	listImpliedClaims,
 	variableRoles,
 	type AdjustmentCheck,
@@ -51,6 +55,7 @@ export interface VerdictPart {
 	/** Acyclic, consistent, with an exposure and an outcome. */
 	ready: boolean;
 	check: AdjustmentCheck | null;
+	/** Null while the paths are still being counted and listed (the check's count is then a lower bound). */
 	paths: PathListing | null;
 }
 
@@ -72,6 +77,8 @@ export interface AppAnalysis extends Analysis {
 	complete: boolean;
 	/** True while the sets and roles for this diagram are still being computed. */
 	setsPending: boolean;
+	/** True while the open non-causal paths are being counted and listed (the verdict is final). */
+	pathsPending: boolean;
 }
 
 /** The verdict part. O(n + m) plus the capped path listing. */
@@ -80,6 +87,16 @@ export function analyseVerdict(d: Diagram, limits: AnalysisLimits = DEFAULT_LIMI
 	if (issues.length > 0) return { issues, ready: false, check: null, paths: null };
 	// One search for the open non-causal paths feeds the verdict and the Paths section.
 	return { issues, ready: true, ...checkAndPaths(d, { maxPaths: limits.maxPaths }) };
+}
+
+/**
+ * The verdict part's first step: the same problems and verdict, with the open non-causal paths
+ * counted only up to the few listed as reasons (see `checkFirst`), and no path listing yet.
+ */
+export function analyseVerdictFirst(d: Diagram): VerdictPart {
+	const issues = validateDiagram(d, { needQuestion: true });
+	if (issues.length > 0) return { issues, ready: false, check: null, paths: null };
+	return { issues, ready: true, check: checkFirst(d), paths: null };
 }
 
 /** The sets part (empty when the diagram is not ready for analysis). */
@@ -117,6 +134,7 @@ export function combine(verdict: VerdictPart, sets: SetsPart | null, claims: Cla
 		directSets: ready ? (sets?.directSets ?? null) : null,
 		roles: ready ? (sets?.roles ?? []) : [],
 		setsPending: ready && sets === null,
+		pathsPending: ready && verdict.paths === null,
 		claims: claims?.claims ?? [],
 		claimsTruncated: claims?.truncated ?? false,
 		complete: claims !== null

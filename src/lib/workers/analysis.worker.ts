@@ -5,7 +5,7 @@
  * structure are still being computed next to it; a worker still busy with a stale request is
  * terminated and replaced, since a running computation cannot be interrupted otherwise.
  */
-import { analyseSets, analyseVerdict, listClaims } from './analysis-steps';
+import { analyseSets, analyseVerdict, analyseVerdictFirst, listClaims } from './analysis-steps';
 import type { PartRequest, PartResult, WorkerReply } from './protocol';
 
 const post = (reply: WorkerReply) => (self as unknown as Worker).postMessage(reply);
@@ -13,8 +13,13 @@ const post = (reply: WorkerReply) => (self as unknown as Worker).postMessage(rep
 function compute(request: PartRequest): PartResult {
 	const { id, part, diagram, limits } = request;
 	switch (part) {
-		case 'verdict':
-			return { part, value: analyseVerdict(diagram, limits) };
+		case 'verdict': {
+			// The verdict first, so the page shows it while the paths are counted.
+			const started = performance.now();
+			const first = analyseVerdictFirst(diagram);
+			post({ id, kind: 'first', ms: performance.now() - started, part, value: first });
+			return { part, value: first.ready ? analyseVerdict(diagram, limits) : first };
+		}
 		case 'sets':
 			return { part, value: analyseSets(diagram, limits) };
 		case 'claims': {

@@ -12,5 +12,7 @@ export type PartResult =
 
 export type WorkerReply =
 	| { id: number; kind: 'progress'; fraction: number }
+	/** The verdict before its paths are counted; the complete part follows as 'done'. */
+	| { id: number; kind: 'first'; ms: number; part: 'verdict'; value: VerdictPart }
 	| ({ id: number; kind: 'done'; ms: number } & PartResult)
 	| { id: number; kind: 'failed'; message: string };

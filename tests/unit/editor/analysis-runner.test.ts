@@ -6,7 +6,7 @@
 import { describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
 import { AnalysisRunner } from '../../../src/lib/workers/analysis-client';
-import { analyseSets, analyseVerdict, DEFAULT_LIMITS, listClaims, runAnalysis, type AppAnalysis } from '../../../src/lib/workers/analysis-steps';
+import { analyseSets, analyseVerdict, analyseVerdictFirst, DEFAULT_LIMITS, listClaims, runAnalysis, type AppAnalysis } from '../../../src/lib/workers/analysis-steps';
 import type { PartRequest, WorkerReply } from '../../../src/lib/workers/protocol';
 import type { Diagram } from '../../../src/lib/graph/diagram';
 import { parseDiagramJson } from '../../../src/lib/graph/native-json';
@@ -23,6 +23,11 @@ class FakeWorker {
 	}
 	terminate() {
 		this.terminated = true;
+	}
+	/** The verdict worker's first answer: the verdict before its paths are counted. */
+	answerFirst() {
+		const r = this.sent[this.sent.length - 1];
+		this.onmessage?.({ data: { id: r.id, kind: 'first', ms: 1, part: 'verdict', value: analyseVerdictFirst(r.diagram) } } as MessageEvent<WorkerReply>);
 	}
 	/** Computes the last request as the real worker would and replies. */
 	answer() {
@@ -158,6 +163,27 @@ describe('AnalysisRunner', () => {
 		worker('sets')!.answer();
 		worker('claims')!.answer();
 		expect(results.at(-1)).toEqual(runAnalysis(edited, DEFAULT_LIMITS));
+	});
+
+	it('the verdict is shown before its paths are counted; the count and listing complete it', () => {
+		const { runner, results, worker, requests } = setup();
+		// Nothing planned: the diagram's back-door paths are open, the verdict is "not sufficient".
+		const none = withPlanned(demo, []);
+		runner.request(none);
+		worker('verdict')!.answerFirst();
+		const first = results.at(-1)!;
+		expect(first.pathsPending).toBe(true);
+		expect(first.paths).toBeNull();
+		expect(first.check!.valid).toBe(runAnalysis(none).check!.valid);
+		expect(runner.busy).toBe(true);
+		// The sets and claims start with the first answer.
+		expect([requests('sets'), requests('claims')]).toEqual([1, 1]);
+		worker('verdict')!.answer();
+		expect(results.at(-1)!.pathsPending).toBe(false);
+		expect(results.at(-1)!.check).toEqual(runAnalysis(none).check);
+		worker('sets')!.answer();
+		worker('claims')!.answer();
+		expect(results.at(-1)).toEqual(runAnalysis(none, DEFAULT_LIMITS));
 	});
 
 	it('small diagrams run on the main thread, without a worker', () => {

@@ -7,14 +7,15 @@ import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { readFileSync } from 'node:fs';
 import { analyse } from '../../../src/lib/causal/analysis';
-import { analyseSets, analyseVerdict, analysisKeys, combine, DEFAULT_LIMITS, listClaims, runAnalysis, type AppAnalysis } from '../../../src/lib/workers/analysis-steps';
+import { analyseSets, analyseVerdict, analyseVerdictFirst, analysisKeys, combine, DEFAULT_LIMITS, listClaims, runAnalysis, type AppAnalysis } from '../../../src/lib/workers/analysis-steps';
 import type { Diagram } from '../../../src/lib/graph/diagram';
 import { parseDiagramJson } from '../../../src/lib/graph/native-json';
+import { twoLadderArrows } from '../reference/two-ladders';
 
 const demo = parseDiagramJson(readFileSync('static/demo/cycling-hypertension.causeway.json', 'utf8'));
 
 function engineView(a: AppAnalysis) {
-	const { claimsTruncated: _t, complete: _c, setsPending: _p, ...rest } = a;
+	const { claimsTruncated: _t, complete: _c, setsPending: _p, pathsPending: _pp, ...rest } = a;
 	return rest;
 }
 
@@ -60,6 +61,32 @@ describe('stepwise analysis equals the engine façade', () => {
 			}),
 			{ numRuns: 200 }
 		);
+	});
+
+	it('the verdict before the paths are counted is the same verdict; its count is exact or a lower bound', () => {
+		fc.assert(
+			fc.property(randomDag, (d) => {
+				const first = analyseVerdictFirst(d);
+				const full = analyseVerdict(d, DEFAULT_LIMITS);
+				expect(first.ready).toBe(full.ready);
+				expect(first.paths).toBeNull();
+				if (!first.check || !full.check) return expect(first.check).toEqual(full.check);
+				expect(first.check.valid).toBe(full.check.valid);
+				const open = first.check.openPaths;
+				if (open.bound === 'exact') expect(first.check).toEqual(full.check);
+				else expect(open.count).toBeLessThanOrEqual(full.check.openPaths.count);
+			}),
+			{ numRuns: 300 }
+		);
+		// Past the first 50: 80 open back-door paths (x ← c_i → y), counted as "more than 50"
+		// first, then exactly.
+		const arrows = twoLadderArrows(50, 80, 47);
+		const ids = [...new Set(arrows.flat())];
+		const many: Diagram = { title: 'many', variables: ids.map((id) => ({ id, label: id, measured: true })), arrows: arrows.map(([from, to]) => ({ from, to })), exposures: ['x'], outcomes: ['y'], adjusted: [] };
+		const first = analyseVerdictFirst(many).check!;
+		const full = analyseVerdict(many, DEFAULT_LIMITS).check!;
+		expect([first.valid, first.openPaths]).toEqual([false, { count: 50, bound: 'more-than' }]);
+		expect([full.valid, full.openPaths]).toEqual([false, { count: 80, bound: 'exact' }]);
 	});
 
 	it('parts computed for another diagram are left out, as pending', () => {

@@ -52,6 +52,11 @@ describe('one word per idea', () => {
 		expect(verdictSentence(none, label)).toBe('Adjusting for nothing is not sufficient: a non-causal path stays open.');
 		expect(verdictSentence({ adjusted: [], valid: true, problems: [], openPaths: { count: 0, bound: 'exact' } }, label)).toMatch(/^No adjustment is needed/);
 		expect(verdictSentence(none, label)).not.toMatch(/no adjustment needed/);
+		// While the paths are still being counted, a lower bound says so; an exact count does not.
+		const many = { adjusted: [], valid: false, problems: [], openPaths: { count: 50, bound: 'more-than' as const } };
+		expect(verdictSentence(many, label, true)).toBe('Adjusting for nothing is not sufficient: more than 50 non-causal paths stay open (still counting the paths).');
+		expect(verdictSentence(many, label, false)).toBe('Adjusting for nothing is not sufficient: more than 50 non-causal paths stay open.');
+		expect(verdictSentence(none, label, true)).toBe(verdictSentence(none, label));
 	});
 
 	it('paths: causal, back-door (into the exposure) or non-causal; never "biasing"', () => {
