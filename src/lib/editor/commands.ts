@@ -198,11 +198,13 @@ function applySetRole(d: Diagram, list: RoleList, id: string, member: boolean): 
 	if (!member) {
 		return { ok: true, diagram: { ...d, [list]: d[list].filter((x) => x !== id) }, summary: removeSummary(list, name) };
 	}
+	// Lists that do not change keep their identity: the canvas redraws only what changed.
+	const without = (xs: string[]) => (xs.includes(id) ? xs.filter((x) => x !== id) : xs);
 	const next: Diagram = {
 		...d,
-		exposures: list === 'exposures' ? [...d.exposures, id] : d.exposures.filter((x) => x !== id),
-		outcomes: list === 'outcomes' ? [...d.outcomes, id] : d.outcomes.filter((x) => x !== id),
-		adjusted: list === 'adjusted' ? [...d.adjusted, id] : d.adjusted.filter((x) => x !== id)
+		exposures: list === 'exposures' ? [...d.exposures, id] : without(d.exposures),
+		outcomes: list === 'outcomes' ? [...d.outcomes, id] : without(d.outcomes),
+		adjusted: list === 'adjusted' ? [...d.adjusted, id] : without(d.adjusted)
 	};
 	return { ok: true, diagram: next, summary: addSummary(list, name) };
 }

@@ -27,6 +27,8 @@ export class AnalysisState {
 	 * the Adjustment section says the sets are being updated meanwhile).
 	 */
 	roles = $state.raw<ReadonlyMap<string, readonly Role[]>>(NO_ROLES);
+	/** The engine's list the roles map was made from: a planned-set edit brings the same list. */
+	#rolesFrom: unknown = null;
 
 	#runner: AnalysisRunner;
 
@@ -36,8 +38,14 @@ export class AnalysisState {
 				result: (a, info) => {
 					this.analysis = a;
 					this.serial++;
-					if (!a.ready) this.roles = NO_ROLES;
-					else if (!a.setsPending) this.roles = new Map(a.roles.map((r) => [r.id, r.roles]));
+					if (!a.ready) {
+						this.roles = NO_ROLES;
+						this.#rolesFrom = null;
+					} else if (!a.setsPending && a.roles !== this.#rolesFrom) {
+						// A new map only for new roles, so the canvas is not redrawn for nothing.
+						this.roles = new Map(a.roles.map((r) => [r.id, r.roles]));
+						this.#rolesFrom = a.roles;
+					}
 					this.status = info.busy ? 'working' : 'idle';
 					if (!info.busy) this.progress = null;
 					this.error = null;

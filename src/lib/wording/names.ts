@@ -38,10 +38,19 @@ export function adjustingFor(ids: readonly string[], labelOf: LabelOf): string {
 	return ids.length === 0 ? 'adjusting for nothing' : `adjusting for ${listNames(ids.map(labelOf))}`;
 }
 
-/** The arrows of a diagram as a set of "from\0to" keys. O(m). */
+/**
+ * The arrows of a diagram as a set of "from\0to" keys. O(m) once per arrow list: kept for the
+ * list it was made from (the editor's diagrams are immutable snapshots; a list that grew is
+ * read again), since every sentence about a path needs it and a verdict has up to 50 of them.
+ */
 export function arrowSet(d: Diagram): ReadonlySet<string> {
-	return new Set(d.arrows.map((a) => `${a.from}\u0000${a.to}`));
+	const known = arrowSets.get(d.arrows);
+	if (known && known.length === d.arrows.length) return known.set;
+	const set = new Set(d.arrows.map((a) => `${a.from}\u0000${a.to}`));
+	arrowSets.set(d.arrows, { length: d.arrows.length, set });
+	return set;
 }
+const arrowSets = new WeakMap<readonly object[], { length: number; set: ReadonlySet<string> }>();
 
 /** The arrow test of a list of arrows. O(m) to build, O(1) per call. */
 export function arrowTest(arrows: readonly { from: string; to: string }[] | ReadonlySet<string>): ArrowTest {
