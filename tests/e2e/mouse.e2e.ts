@@ -42,6 +42,9 @@ test('M-bias built by mouse: sets, verdict, reasons, then undo everything', asyn
 	// Adjusting for the collider alone opens the non-causal path.
 	await variableMenu(page, 'sports_club_membership', 'In the planned set');
 	await expect(verdict(page)).toContainText('Adjusting for Sports-club membership is not sufficient: a non-causal path stays open.');
+	// The Paths section gives the verdict's count, in the same words (one engine search feeds both).
+	await expect(page.locator('[data-section="paths"]')).toContainText('1 open non-causal path under the planned set.');
+	await expect(page.locator('[data-section="paths"]')).not.toContainText('biasing');
 	const reason = adj.getByRole('button', { name: /A non-causal path stays open: Cycling ← Health consciousness → Sports-club membership ← Family history → Hypertension/ });
 	await reason.click();
 	await expect(reason).toHaveAttribute('aria-pressed', 'true');

@@ -14,7 +14,7 @@
  * The search is iterative (an explicit stack): paths can be as long as the diagram.
  */
 import type { CompiledDag } from '../graph/compiled';
-import { Completions, DOWN, toChildren, toParents, UP, type OpenPathContext } from './open-completion';
+import { Completions, DOWN, goesToChildren, goesToParents, UP, type OpenPathContext } from './open-completion';
 import { ancestorsOf, maskOf, type Mask } from './reach';
 
 /** How far a count can be trusted. */
@@ -90,12 +90,12 @@ export function openNonCausalPathsIdx(
 	const expand = (s: number, turned: boolean): number[] => {
 		const v = s >> 1;
 		const out: number[] = [];
-		if (toParents(c, v, s & 1))
+		if (goesToParents(c, v, s & 1))
 			for (let k = g.parentStart[v]; k < g.parentStart[v + 1]; k++) {
 				const w = g.parentList[k];
 				if (!onPath[w] && !c.excluded[w]) out.push(2 * w + UP);
 			}
-		if (toChildren(c, v))
+		if (goesToChildren(c, v))
 			for (let k = g.childStart[v]; k < g.childStart[v + 1]; k++) {
 				const w = g.childList[k];
 				if (!onPath[w] && !c.excluded[w]) out.push(2 * w + DOWN);
