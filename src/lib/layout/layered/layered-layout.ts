@@ -9,7 +9,7 @@
 import type { LayoutInput, Positions } from '../types';
 import { indexGraph } from './index-graph';
 import { assignLayers } from './layering';
-import { orderLayers } from './ordering';
+import { orderLayers, SWEEP_PAIRS } from './ordering';
 import { coordinates, wrapRows, wrapWidth } from './coordinates';
 
 export interface LayeredDrawing {
@@ -18,10 +18,11 @@ export interface LayeredDrawing {
 	layer: Int32Array;
 }
 
-export function layeredDrawing(input: LayoutInput): LayeredDrawing {
+/** `sweepPairs` is for tests and benchmarks (the effect of crossing reduction). */
+export function layeredDrawing(input: LayoutInput, sweepPairs = SWEEP_PAIRS): LayeredDrawing {
 	const g = indexGraph(input);
 	const layering = assignLayers(g);
-	const layers = orderLayers(layering);
+	const layers = orderLayers(layering, sweepPairs);
 	const boxes = input.nodes;
 	const { rows, firstOfLayer } = wrapRows(layers, boxes, wrapWidth(boxes));
 	const { x, y } = coordinates(layering.dag, rows, firstOfLayer, boxes);
