@@ -13,8 +13,8 @@
  * - its time grows quickly with arrows that span layers (each becomes a chain of dummy
  *   nodes): 300 variables took 0.3 s as a chain, 1.2 s with 600 arrows, 4.9 s with 1,500;
  *   a 2,000-variable, 10,000-arrow diagram took over two minutes of CPU.
- * The layered layout took 1 ms at 300 variables with 1,500 arrows, 25 ms at 2,000 with 10,000
- * and 0.14 s for a 10,000-variable chain. dagre stays below the limits because its drawing is
+ * The layered layout took a few milliseconds at 300 variables with 1,500 arrows, 25–100 ms at
+ * 2,000 with 10,000 and 0.15–0.2 s for a 10,000-variable chain (load average 5–10). dagre stays below the limits because its drawing is
  * tidier (ranks by network simplex, long arrows routed around boxes by dummy nodes).
  */
 import { dagrePositions } from './dagre-layout';
