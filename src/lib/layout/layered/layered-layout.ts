@@ -1,7 +1,7 @@
 /**
  * Our own layered drawing (Sugiyama, Tagawa & Toda 1981), for diagrams past dagre's reach
  * (see ../tidy.ts for where and why): longest-path layers from a topological order, a few
- * barycentre sweeps against crossings, rows wrapped when a layer is too wide, and x chosen
+ * barycentre sweeps and a transposition pass against crossings, rows wrapped when a layer is too wide, and x chosen
  * near the neighbours. Arrows are drawn straight by the canvas and the figure writers, so
  * only node positions are computed. Iterative, typed arrays: O(n + m) apart from the sorts
  * of the sweeps, O(sweeps · (m + n log n)) in all.

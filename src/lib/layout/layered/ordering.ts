@@ -3,6 +3,7 @@
  * the order of the nodes within each layer, by the barycentre heuristic. Layers are swept top
  * to bottom, each node keyed by the mean position of its predecessors, then bottom to top by
  * its successors; a few sweep pairs settle most crossings (the heuristic is exact on trees).
+ * Then neighbours are swapped where that crosses fewer arrows (transpose.ts).
  *
  * Arrows that skip layers are not split into chains of dummy nodes, as dagre and dot do: a
  * predecessor's position is taken as its fraction of the way along its own layer, wherever
@@ -11,6 +12,7 @@
  * diagram), at the price of a few more crossings among long arrows.
  */
 import type { Layering } from './layering';
+import { transpose } from './transpose';
 
 /** Down-and-up sweep pairs; after four, further sweeps rarely change an order. */
 export const SWEEP_PAIRS = 4;
@@ -39,5 +41,6 @@ export function orderLayers({ dag, order, layer, layerCount }: Layering, sweepPa
 		for (let l = 1; l < layerCount; l++) sortRow(layers[l], dag.predStart, dag.pred);
 		for (let l = layerCount - 2; l >= 0; l--) sortRow(layers[l], dag.succStart, dag.succ);
 	}
+	if (sweepPairs > 0) transpose(dag, layers, layer, slot);
 	return layers;
 }
