@@ -4,7 +4,8 @@
  * barycentre sweeps and a transposition pass against crossings, rows wrapped when a layer is too wide, and x chosen
  * near the neighbours. Arrows are drawn straight by the canvas and the figure writers, so
  * only node positions are computed. Iterative, typed arrays: O(n + m) apart from the sorts
- * of the sweeps, O(sweeps · (m + n log n)) in all.
+ * of the sweeps, O(sweeps · (m + n log n)), and the transposition passes, O(passes · n) with
+ * a fixed budget per pair of neighbours.
  */
 import type { LayoutInput, Positions } from '../types';
 import { indexGraph } from './index-graph';
