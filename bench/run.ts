@@ -7,6 +7,7 @@
  *   npm run bench -- --quick      smaller sizes of every section (about 2–3 minutes); not written
  *   npm run bench -- --only=1,3   some sections only (1 d-sep, 2 listing, 3 claims, 4 data,
  *                                 5 editor, 6 bundle, 7 reviewer tools, 8 paths); not written
+ *   npm run bench -- --only=layout   layout and SVG export of large diagrams (bench/layout.ts)
  *   --no-write / --write          override whether bench/RESULTS.md is written
  *
  * A section whose tool is missing (networkx, R, Chromium) prints why and what it skipped.
@@ -20,6 +21,7 @@ import { benchLogistic } from './logistic';
 import { benchEditor } from './editor';
 import { benchBundle } from './bundle';
 import { benchPaths } from './paths';
+import { benchLayout } from './layout';
 import { buildApp, launchChromium, removeApp, serveApp, type BuiltApp } from './app';
 import { describeMachine } from './machine';
 import { chromium } from './tools';
@@ -104,6 +106,7 @@ async function main(): Promise<void> {
 	}
 
 	await section('8', () => benchPaths(quick ? [300] : [300, 1_000], 3));
+	await section('layout', () => benchLayout(quick));
 
 	emit(`_Whole run: ${fmtMs(performance.now() - started)}._`);
 	if (write) writeFileSync(new URL('./RESULTS.md', import.meta.url), output.join('\n') + '\n');

@@ -15,7 +15,7 @@ import { reportDataFromChecks } from '../../lib/export/from-datacheck';
 import { parseTable } from '../../lib/stats';
 import { runDataChecks } from '../../lib/datacheck';
 import { labelLookup } from '../../lib/wording';
-import { dagrePositions, needsLayout, withPositions } from '../../lib/layout';
+import { needsLayout, tidyPositions, withPositions } from '../../lib/layout';
 import { UsageError } from '../io';
 import { QUESTION, QUESTION_HELP, type Command, type Context } from '../command';
 
@@ -158,7 +158,7 @@ ${QUESTION_HELP}`,
 		}
 		if (['svg', 'tikz', 'report-md', 'report-html'].includes(format) && needsLayout(d)) {
 			const fig = figureOf({ ...d, variables: d.variables.map((v) => ({ ...v, x: 0, y: 0 })) }, analysis.roles);
-			d = withPositions(d, dagrePositions({ nodes: fig.nodes.map((n) => ({ id: n.id, w: n.w, h: n.h })), arrows: d.arrows.map((a) => ({ from: a.from, to: a.to })) }));
+			d = withPositions(d, tidyPositions({ nodes: fig.nodes.map((n) => ({ id: n.id, w: n.w, h: n.h })), arrows: d.arrows.map((a) => ({ from: a.from, to: a.to })) }));
 		}
 		const text = exportText(format, d, {
 			analysis,

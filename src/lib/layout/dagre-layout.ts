@@ -1,22 +1,11 @@
 /**
- * Tidy layout of a diagram: the layered drawing of directed graphs (Sugiyama, Tagawa & Toda
- * 1981; ranks by network simplex, Gansner et al. 1993) as implemented by dagre, run on an
- * @dagrejs/graphlib graph. No canvas library and no DOM, so the same code runs in the app's
- * layout worker and in `causeway export`. Node sizes come from the caller (the app measures
- * its drawn boxes; the CLI uses the figure's geometry).
+ * Tidy layout by dagre: the layered drawing of directed graphs (Sugiyama, Tagawa & Toda
+ * 1981; ranks by network simplex, Gansner et al. 1993) run on an @dagrejs/graphlib graph.
+ * No canvas library and no DOM. Used for the sizes where it is safe and quick (tidy.ts).
  */
 import dagre from '@dagrejs/dagre';
 import type { Diagram } from '../graph/diagram';
-
-export interface LayoutInput {
-	nodes: { id: string; w: number; h: number }[];
-	arrows: { from: string; to: string }[];
-}
-
-export type Positions = { id: string; x: number; y: number }[];
-
-/** The spacing of the drawing, in canvas pixels. */
-const SPACING = { rankdir: 'TB', nodesep: 36, ranksep: 80, edgesep: 12 } as const;
+import { SPACING, type LayoutInput, type Positions } from './types';
 
 /** True when some variable has no position (as in DOT files and hand-written JSON). O(n). */
 export function needsLayout(d: Diagram): boolean {
@@ -27,11 +16,12 @@ export function needsLayout(d: Diagram): boolean {
  * Centre positions for every node, arranged top to bottom in the direction of the arrows.
  * Nodes are keyed by their index ("n0", "n1", …), never by the user's id, so that ids such as
  * "__proto__" cannot reach graphlib's internal tables. Arrows to unlisted nodes are ignored.
- * Cost: dagre's, about O((n + m) log(n + m)) per crossing-reduction sweep in practice.
+ * Cost: dagre's, about O((n + m) log(n + m)) per crossing-reduction sweep in practice, and it
+ * recurses as deep as the graph is long (tidy.ts keeps it to sizes where that is safe).
  */
 export function dagrePositions(input: LayoutInput): Positions {
 	const g = new dagre.graphlib.Graph<object, { width: number; height: number; x?: number; y?: number }, object>();
-	g.setGraph({ ...SPACING });
+	g.setGraph({ rankdir: 'TB', ...SPACING });
 	g.setDefaultEdgeLabel(() => ({}));
 	const keyOf = new Map<string, string>();
 	input.nodes.forEach((n, i) => {

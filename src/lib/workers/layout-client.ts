@@ -2,9 +2,10 @@
  * Tidy layout in a Web Worker: one short-lived worker per layout (layouts are occasional),
  * terminated when done, so the canvas stays responsive while dagre works (about a second of
  * CPU at 300 variables). Small diagrams are laid out on the main thread, where starting a
- * worker and loading dagre into it would cost more than the layout itself.
+ * worker and loading dagre into it would cost more than the layout itself. Both paths call
+ * the same entry point, `tidyPositions` (src/lib/layout/tidy.ts), as `causeway export` does.
  */
-import { dagrePositions, type LayoutInput, type Positions } from '../layout';
+import { tidyPositions, type LayoutInput, type Positions } from '../layout';
 
 /** Up to this many variables the layout takes a few tens of milliseconds: no worker needed. */
 export const MAIN_THREAD_LAYOUT_LIMIT = 60;
@@ -12,7 +13,7 @@ export const MAIN_THREAD_LAYOUT_LIMIT = 60;
 export function layoutInWorker(input: LayoutInput): Promise<Positions> {
 	if (input.nodes.length <= MAIN_THREAD_LAYOUT_LIMIT) {
 		try {
-			return Promise.resolve(dagrePositions(input));
+			return Promise.resolve(tidyPositions(input));
 		} catch (e) {
 			return Promise.reject(e instanceof Error ? e : new Error(String(e)));
 		}

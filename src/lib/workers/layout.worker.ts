@@ -1,9 +1,9 @@
-/** Runs the dagre layout off the main thread (src/lib/layout). */
-import { dagrePositions, type LayoutInput } from '../layout';
+/** Runs the tidy layout off the main thread: the same entry point as the page and the CLI (src/lib/layout/tidy.ts). */
+import { tidyPositions, type LayoutInput } from '../layout';
 
 self.onmessage = (event: MessageEvent<LayoutInput>) => {
 	try {
-		(self as unknown as Worker).postMessage({ ok: true, positions: dagrePositions(event.data) });
+		(self as unknown as Worker).postMessage({ ok: true, positions: tidyPositions(event.data) });
 	} catch (e) {
 		(self as unknown as Worker).postMessage({ ok: false, message: e instanceof Error ? e.message : String(e) });
 	}
