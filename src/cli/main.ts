@@ -5,11 +5,10 @@
  * stderr and no stack trace.
  */
 import { adjustTogetherText, CONFOUNDER_UNDECIDED, optimalSetSentence } from '../lib/wording';
-import { readFile, writeFile } from 'node:fs/promises';
+import { writeFile } from 'node:fs/promises';
 import { parseArgs } from 'node:util';
 import type { Diagram } from '../lib/graph/diagram';
 import { InputError } from '../lib/graph/errors';
-import { readDiagramBytes, readDiagramText } from '../lib/graph/read-file';
 import { writeDiagramJson } from '../lib/graph/native-json';
 import { writeDot } from '../lib/graph/dot';
 import {
@@ -21,16 +20,15 @@ import {
 	variableRoles
 } from '../lib/causal';
 import type { Effect } from '../lib/causal';
-import { UsageError, type CliIo } from './io';
+import { OutputError, UsageError, type CliIo } from './io';
+import { readDiagramInput } from './read-input';
+import { processIo, writeFailure } from './process-io';
 import { COMMON, QUESTION, QUESTION_HELP, type Command, type Context, type Values } from './command';
 import { braces, pathText, problemText, reasonText, ROLE_TEXT } from '../lib/wording/command-line';
-import { estimateCommand } from './commands/estimate';
-import { testCommand } from './commands/test';
-import { exportCommand } from './commands/export';
-import { codeCommand } from './commands/code';
-import { review, robust, diff, instruments } from './commands/reviewer';
+import { SUMMARY, type LazyName } from './summaries';
 
 export type { CliIo } from './io';
+export { processIo };
 
 const VERSION = '0.1.0';
 
@@ -228,12 +226,34 @@ OUT's extension (.json, .dot or .gv). "-o -" writes native JSON to standard outp
 			return 0;
 		}
 	},
-	test: testCommand,
-	estimate: estimateCommand,
-	export: exportCommand,
-	code: codeCommand,
-	review, robust, diff, instruments
 };
+
+/**
+ * The commands beyond the core ones, each loaded only when called: esbuild splits every
+ * dynamic import into its own chunk (scripts/build-cli.mjs), so a core command's start-up never
+ * reads the data, export or reviewer code (measured in bench/cli.ts).
+ */
+const LAZY: Record<LazyName, () => Promise<Command>> = {
+	test: async () => (await import('./commands/test')).testCommand,
+	estimate: async () => (await import('./commands/estimate')).estimateCommand,
+	export: async () => (await import('./commands/export')).exportCommand,
+	code: async () => (await import('./commands/code')).codeCommand,
+	review: async () => (await import('./commands/review')).review,
+	robust: async () => (await import('./commands/robust')).robust,
+	diff: async () => (await import('./commands/diff')).diff,
+	instruments: async () => (await import('./commands/instruments')).instruments
+};
+
+/** Every command's name and one-line summary, in the order the help lists them. */
+function summaries(): [string, string][] {
+	return [...Object.entries(commands).map(([name, c]): [string, string] => [name, c.summary]), ...Object.entries(SUMMARY)];
+}
+
+async function findCommand(name: string): Promise<Command | undefined> {
+	if (Object.hasOwn(commands, name)) return commands[name];
+	if (Object.hasOwn(LAZY, name)) return LAZY[name as LazyName]();
+	return undefined;
+}
 
 function formatFromName(name: string): 'json' | 'dot' {
 	if (name === '-') return 'json';
@@ -244,7 +264,8 @@ function formatFromName(name: string): 'json' | 'dot' {
 }
 
 function generalHelp(): string {
-	const width = Math.max(...Object.keys(commands).map((c) => c.length));
+	const all = summaries();
+	const width = Math.max(...all.map(([name]) => name.length));
 	return `causeway ${VERSION} — causal diagrams for choosing and justifying adjustment sets
 
 Usage: causeway COMMAND DIAGRAM [options]
@@ -252,8 +273,8 @@ Usage: causeway COMMAND DIAGRAM [options]
 DIAGRAM is a native JSON (.json) or DOT (.dot, .gv) file, or - for standard input.
 
 Commands:
-${Object.entries(commands)
-	.map(([name, c]) => `  ${name.padEnd(width)}  ${c.summary}`)
+${all
+	.map(([name, summary]) => `  ${name.padEnd(width)}  ${summary}`)
 	.join('\n')}
 
 Options for every command: --json (one JSON object on stdout), --help.
@@ -271,23 +292,41 @@ function splitList(value: string | boolean | string[] | undefined): string[] | u
 	return parts.map((p) => p.trim()).filter((p) => p.length > 0);
 }
 
-/** Text from the injected reader (tests), else bytes, decoded strictly by readDiagramBytes. */
-async function readInput(io: CliIo, path: string): Promise<string | Uint8Array> {
-	if (io.readFile) return io.readFile(path);
-	if (path === '-') {
-		const chunks: Buffer[] = [];
-		for await (const chunk of process.stdin) chunks.push(chunk as Buffer);
-		return Buffer.concat(chunks);
-	}
-	return readFile(path);
+/**
+ * Output is gathered and handed on in pieces of at least this many characters: `claims` on 2,000
+ * variables used to spend 11% of its time in 1.7 million separate writes (one per line);
+ * buffered, it makes a few dozen (bench/cli.ts).
+ */
+const OUTPUT_PIECE = 1 << 18;
+
+/** Collects printed text and passes it to `write` in large pieces; `flush` sends the rest. */
+function bufferedOutput(write: (text: string) => void): { write: (text: string) => void; flush: () => void } {
+	let pending = '';
+	const flush = () => {
+		if (pending === '') return;
+		const text = pending;
+		pending = '';
+		write(text);
+	};
+	return {
+		write(text) {
+			pending += text;
+			if (pending.length >= OUTPUT_PIECE) flush();
+		},
+		flush
+	};
 }
 
-function describeFsError(err: unknown, path: string): string | null {
-	const code = (err as { code?: unknown } | null)?.code;
-	if (code === 'ENOENT') return `cannot read "${path}": no such file`;
-	if (code === 'EISDIR') return `cannot read "${path}": it is a folder`;
-	if (code === 'EACCES') return `cannot read "${path}": permission denied`;
-	return null;
+/** The file writer given to commands: failures become one OutputError line. */
+function checkedWriter(write: NonNullable<CliIo['writeFile']>): NonNullable<CliIo['writeFile']> {
+	return async (path, content) => {
+		try {
+			await write(path, content);
+		} catch (err) {
+			if (err instanceof OutputError) throw err;
+			throw new OutputError(writeFailure(err, `"${path}"`));
+		}
+	};
 }
 
 export async function main(argv: readonly string[], io: CliIo): Promise<number> {
@@ -305,7 +344,7 @@ export async function main(argv: readonly string[], io: CliIo): Promise<number> 
 		io.stdout(`${VERSION}\n`);
 		return 0;
 	}
-	const command = Object.hasOwn(commands, name) ? commands[name] : undefined;
+	const command = await findCommand(name);
 	if (!command) return fail(`unknown command "${name}"; run "causeway --help" for the list`);
 	let parsed: { values: Values; positionals: string[] };
 	try {
@@ -321,25 +360,19 @@ export async function main(argv: readonly string[], io: CliIo): Promise<number> 
 		return 0;
 	}
 	const json = parsed.values.json === true;
+	const out = bufferedOutput(io.stdout);
+	const commandIo: CliIo = { ...io, stdout: out.write, writeFile: checkedWriter(io.writeFile ?? writeFile) };
 	const ctx: Context = {
-		io,
+		io: commandIo,
 		values: parsed.values,
 		positionals: parsed.positionals,
 		json,
-		print: (text) => io.stdout(`${text}\n`),
-		printJson: (value) => io.stdout(`${JSON.stringify(value)}\n`),
+		print: (text) => out.write(`${text}\n`),
+		printJson: (value) => out.write(`${JSON.stringify(value)}\n`),
 		async diagram() {
 			if (parsed.positionals.length === 0) throw new UsageError(`${name} needs a diagram file (usage: ${command.usage})`);
 			if (parsed.positionals.length > 1) throw new UsageError(`${name} takes one diagram file, got ${parsed.positionals.length}: ${parsed.positionals.join(' ')}`);
-			const path = parsed.positionals[0];
-			let input: string | Uint8Array;
-			try {
-				input = await readInput(io, path);
-			} catch (err) {
-				throw new UsageError(describeFsError(err, path) ?? `cannot read "${path}": ${(err as Error).message}`);
-			}
-			const shown = path === '-' ? 'stdin' : path;
-			return typeof input === 'string' ? readDiagramText(shown, input) : readDiagramBytes(shown, input);
+			return readDiagramInput(io, parsed.positionals[0]);
 		},
 		question() {
 			return { exposures: splitList(parsed.values.exposure), outcomes: splitList(parsed.values.outcome) };
@@ -356,9 +389,22 @@ export async function main(argv: readonly string[], io: CliIo): Promise<number> 
 		}
 	};
 	try {
-		return await command.run(ctx);
+		const status = await command.run(ctx);
+		out.flush();
+		return status;
 	} catch (err) {
-		if (err instanceof UsageError || err instanceof InputError) return fail(err.message);
+		if (!(err instanceof OutputError)) {
+			try {
+				out.flush(); // what was printed before the failure still goes out, before the message
+			} catch (flushErr) {
+				if (flushErr instanceof OutputError) return fail(flushErr.message);
+				throw flushErr;
+			}
+		}
+		if (err instanceof UsageError || err instanceof InputError || err instanceof OutputError) return fail(err.message);
+		if (err instanceof RangeError && /allocation|memory|Invalid (string|array) length/i.test(err.message)) {
+			return fail(`the diagram is too large for this command: ${err.message}`);
+		}
 		return fail(`internal error: ${(err as Error)?.message ?? String(err)} (please report this)`);
 	}
 }

@@ -48,6 +48,20 @@ export const MAX_TABLE_COLUMNS = 500;
 export const DEFAULT_LISTED_PATHS = 1_000;
 export const MAX_LISTED_PATHS = 10_000;
 
+/**
+ * The command line's own, larger limits (`causeway …` in pipelines; docs/cli.md). The app's
+ * limits above are about drawing and staying responsive; the command draws nothing, so its
+ * limits are about memory and time instead. Measured (bench/cli.ts): a diagram of 100,000
+ * variables and 200,000 arrows is about 12 MiB of native JSON and is read, checked and answered
+ * by `dsep` in about a second, with a peak of about 0.5 GB of memory; JSON.parse needs roughly
+ * 20 bytes of memory per byte of text, so 64 MiB of text stays under ~1.5 GB, within Node's
+ * default heap on a 64-bit machine. 250,000 variables and 1,000,000 arrows fit in 64 MiB.
+ */
+export const CLI_MAX_VARIABLES = 250_000;
+export const CLI_MAX_ARROWS = 1_000_000;
+/** Longest diagram the command reads, in bytes of a file or of standard input (and characters of text). */
+export const CLI_MAX_DIAGRAM_BYTES = 64 * 1024 * 1024;
+
 /** "5 MiB", "512 MiB", "1,000": sizes as messages state them. */
 export function describeBytes(bytes: number): string {
 	if (bytes >= 1024 * 1024) return `${Number((bytes / (1024 * 1024)).toFixed(1))} MiB`;

@@ -9,10 +9,10 @@ import { createReadStream } from 'node:fs';
 import { readFile, stat } from 'node:fs/promises';
 import type { Diagram } from '../../lib/graph/diagram';
 import { InputError } from '../../lib/graph/errors';
-import { readDiagramText } from '../../lib/graph/read-file';
 import { parseTable, parseTableStream, StatsError, type ColumnKind, type TableSource } from '../../lib/stats';
 import { parseSummaryMatrix, runDataChecks, runSummaryChecks, SETTINGS_WHERE, type DataCheckOptions, type DataCheckReport } from '../../lib/datacheck';
 import { UsageError } from '../io';
+import { readDiagramInput } from '../read-input';
 import type { Context, Options } from '../command';
 
 export const DATA_OPTIONS: Options = {
@@ -78,7 +78,7 @@ export interface DataInput {
 export async function runOnData(ctx: Context, usage: string, extra: Partial<DataCheckOptions> = {}): Promise<DataInput> {
 	if (ctx.positionals.length !== 2) throw new UsageError(`expected a diagram file and a data file (usage: ${usage})`);
 	const [diagramPath, dataPath] = ctx.positionals;
-	let diagram = readDiagramText(diagramPath, await readText(ctx, diagramPath));
+	let diagram = await readDiagramInput(ctx.io, diagramPath);
 	const q = ctx.question();
 	diagram = { ...diagram, exposures: q.exposures ?? diagram.exposures, outcomes: q.outcomes ?? diagram.outcomes };
 	const mapping: Record<string, string | null> = {};

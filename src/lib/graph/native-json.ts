@@ -25,7 +25,7 @@ import schema from './diagram.schema.json';
 import { validate as validateSchema } from './diagram-schema-validate.js';
 import { DIAGRAM_FORMAT, DIAGRAM_VERSION, isEmptyVariableData, isUnsafeKey, READABLE_VERSIONS, type Arrow, type DataKind, type Diagram, type Extra, type Variable, type VariableData } from './diagram';
 import { describeFound, describePosition, InputError, lineColumn, quote } from './errors';
-import { assertDiagramTextSize, assertDiagramWithinLimits } from './size-limits';
+import { APP_READ_LIMITS, assertDiagramTextSize, assertDiagramWithinLimits, type ReadLimits } from './size-limits';
 
 /** The shape diagram.schema.json accepts; keys beyond these are allowed and kept. */
 interface FileVariable {
@@ -83,10 +83,11 @@ function matchesSchema(data: unknown): data is DiagramFile {
 
 /**
  * Reads a native diagram file. Throws InputError naming the line and column of a syntax error
- * or the path of a structure error; never returns a half-read diagram.
+ * or the path of a structure error; never returns a half-read diagram. `limits` are the app's
+ * unless the caller (the command line) gives its own.
  */
-export function parseDiagramJson(text: string): Diagram {
-	assertDiagramTextSize(text);
+export function parseDiagramJson(text: string, limits: ReadLimits = APP_READ_LIMITS): Diagram {
+	assertDiagramTextSize(text, limits);
 	const body = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
 	const data = parseJsonSyntax(body);
 	checkFormatAndVersion(data, body);
@@ -95,7 +96,7 @@ export function parseDiagramJson(text: string): Diagram {
 		throw first ? structureError(first, data, body) : new InputError('The diagram file does not match the Causeway diagram format');
 	}
 	const diagram = toDiagram(data);
-	assertDiagramWithinLimits(diagram);
+	assertDiagramWithinLimits(diagram, limits);
 	return diagram;
 }
 

@@ -1,0 +1,107 @@
+/**
+ * Reading a diagram for the command line: from a file or standard input, never more than the
+ * command's limit (CLI_MAX_DIAGRAM_BYTES) — a file's size is checked before reading, a pipe is
+ * read in pieces and refused as soon as it passes the limit — then decoded and read with the
+ * command's own, larger limits (CLI_READ_LIMITS). The DOT reader (and its parser library) is
+ * loaded only for DOT files.
+ */
+import { open } from 'node:fs/promises';
+import type { Diagram } from '../lib/graph/diagram';
+import { requireDiagramFileKind, withFileName } from '../lib/graph/file-kind';
+import { parseDiagramJson } from '../lib/graph/native-json';
+import { CLI_READ_LIMITS, diagramTooLarge } from '../lib/graph/size-limits';
+import { decodeTextFile } from '../lib/graph/text-decoding';
+import { describeBytes } from '../lib/limits';
+import { InputError } from '../lib/graph/errors';
+import { UsageError, type CliIo } from './io';
+
+const PIECE = 1 << 20;
+
+function describeFsError(err: unknown, path: string): string {
+	const code = (err as { code?: unknown } | null)?.code;
+	if (code === 'ENOENT') return `cannot read "${path}": no such file`;
+	if (code === 'EISDIR') return `cannot read "${path}": it is a folder`;
+	if (code === 'EACCES') return `cannot read "${path}": permission denied`;
+	return `cannot read "${path}": ${(err as Error)?.message ?? String(err)}`;
+}
+
+/** "big.json: The file is too large: …", before any of it is parsed. */
+function tooLarge(name: string, size: string): InputError {
+	return new InputError(`${name}: ${diagramTooLarge(size, CLI_READ_LIMITS).message}`, name);
+}
+
+/** Joins pieces read so far, refusing once their total passes `max`. */
+class Bounded {
+	private pieces: Uint8Array[] = [];
+	private total = 0;
+	constructor(
+		private readonly name: string,
+		private readonly max: number
+	) {}
+	add(piece: Uint8Array): void {
+		this.total += piece.length;
+		if (this.total > this.max) throw tooLarge(this.name, `more than ${describeBytes(this.max)}`);
+		this.pieces.push(piece);
+	}
+	bytes(): Uint8Array {
+		return Buffer.concat(this.pieces, this.total);
+	}
+}
+
+/** At most `max` bytes of a file (of any kind: regular, FIFO, device), else InputError. */
+async function readFileBounded(path: string, max: number): Promise<Uint8Array> {
+	let handle;
+	try {
+		handle = await open(path, 'r');
+	} catch (err) {
+		throw new UsageError(describeFsError(err, path));
+	}
+	try {
+		const info = await handle.stat();
+		if (info.isDirectory()) throw new UsageError(`cannot read "${path}": it is a folder`);
+		if (info.isFile() && info.size > max) throw tooLarge(path, describeBytes(info.size));
+		const out = new Bounded(path, max);
+		for (;;) {
+			const piece = Buffer.allocUnsafe(info.isFile() ? Math.min(max + 1, Math.max(info.size + 1, 1)) : PIECE);
+			let got;
+			try {
+				got = (await handle.read(piece, 0, piece.length, null)).bytesRead;
+			} catch (err) {
+				throw new UsageError(describeFsError(err, path));
+			}
+			if (got === 0) break;
+			out.add(piece.subarray(0, got));
+		}
+		return out.bytes();
+	} finally {
+		await handle.close();
+	}
+}
+
+/** At most `max` bytes of standard input, else InputError (the rest is not read). */
+async function readStdinBounded(max: number): Promise<Uint8Array> {
+	const out = new Bounded('stdin', max);
+	for await (const chunk of process.stdin) out.add(chunk as Buffer);
+	return out.bytes();
+}
+
+/** Reads and checks the diagram at `path` ("-" = standard input) with the command's limits. */
+export async function readDiagramInput(io: CliIo, path: string): Promise<Diagram> {
+	const shown = path === '-' ? 'stdin' : path;
+	let text: string;
+	if (io.readFile) {
+		try {
+			text = await io.readFile(path);
+		} catch (err) {
+			throw new UsageError(describeFsError(err, path));
+		}
+	} else {
+		const max = CLI_READ_LIMITS.chars;
+		const bytes = path === '-' ? await readStdinBounded(max) : await readFileBounded(path, max);
+		text = withFileName(shown, () => decodeTextFile(bytes));
+	}
+	const kind = requireDiagramFileKind(shown, text);
+	if (kind === 'json') return withFileName(shown, () => parseDiagramJson(text, CLI_READ_LIMITS));
+	const { parseDot } = await import('../lib/graph/dot');
+	return withFileName(shown, () => parseDot(text, CLI_READ_LIMITS));
+}
