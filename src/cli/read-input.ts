@@ -5,6 +5,7 @@
  * command's own, larger limits (CLI_READ_LIMITS). The DOT reader (and its parser library) is
  * loaded only for DOT files.
  */
+import { isUtf8 } from 'node:buffer';
 import { open } from 'node:fs/promises';
 import type { Diagram } from '../lib/graph/diagram';
 import { requireDiagramFileKind, withFileName } from '../lib/graph/file-kind';
@@ -44,7 +45,8 @@ class Bounded {
 		this.pieces.push(piece);
 	}
 	bytes(): Uint8Array {
-		return Buffer.concat(this.pieces, this.total);
+		// One piece (a regular file read whole) is returned as it is: copying 12 MiB took 0.2 s.
+		return this.pieces.length === 1 ? this.pieces[0] : Buffer.concat(this.pieces, this.total);
 	}
 }
 
@@ -85,6 +87,19 @@ async function readStdinBounded(max: number): Promise<Uint8Array> {
 	return out.bytes();
 }
 
+/**
+ * Bytes → text. Plain UTF-8 (no NUL in the first 64 KiB, no UTF-16 byte-order mark) is checked
+ * by Node's isUtf8 and decoded by Buffer.toString, several times faster than TextDecoder on a
+ * large file (0.84 s of a 3.3 s profile of `dsep` on 12 MiB); anything else goes to the shared
+ * strict decoder, which refuses it with the place of the first bad byte.
+ */
+function decode(bytes: Uint8Array): string {
+	const plain = bytes[0] !== 0xff && bytes[0] !== 0xfe && bytes.subarray(0, 64 * 1024).indexOf(0) < 0 && isUtf8(bytes);
+	if (!plain) return decodeTextFile(bytes);
+	const text = Buffer.from(bytes.buffer, bytes.byteOffset, bytes.length).toString('utf8');
+	return text.charCodeAt(0) === 0xfeff ? text.slice(1) : text; // as TextDecoder drops a UTF-8 byte-order mark
+}
+
 /** Reads and checks the diagram at `path` ("-" = standard input) with the command's limits. */
 export async function readDiagramInput(io: CliIo, path: string): Promise<Diagram> {
 	const shown = path === '-' ? 'stdin' : path;
@@ -98,7 +113,7 @@ export async function readDiagramInput(io: CliIo, path: string): Promise<Diagram
 	} else {
 		const max = CLI_READ_LIMITS.chars;
 		const bytes = path === '-' ? await readStdinBounded(max) : await readFileBounded(path, max);
-		text = withFileName(shown, () => decodeTextFile(bytes));
+		text = withFileName(shown, () => decode(bytes));
 	}
 	const kind = requireDiagramFileKind(shown, text);
 	if (kind === 'json') return withFileName(shown, () => parseDiagramJson(text, CLI_READ_LIMITS));
