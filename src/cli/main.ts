@@ -24,6 +24,7 @@ import { OutputError, UsageError, type CliIo } from './io';
 import { readDiagramInput } from './read-input';
 import { processIo, writeFailure } from './process-io';
 import { COMMON, QUESTION, QUESTION_HELP, type Command, type Context, type Values } from './command';
+import { CLI_DEFAULT_LISTED_SETS, CLI_MAX_CLAIM_PAIRS, describeCount } from '../lib/limits';
 import { braces, pathText, problemText, reasonText, ROLE_TEXT } from '../lib/wording/command-line';
 import { SUMMARY, type LazyName } from './summaries';
 
@@ -48,14 +49,16 @@ Also prints a minimum-size set and the efficiency-optimal set O (Henckel, Perkov
 Maathuis 2022) when it is made of measured variables. --effect direct lists the sets for the
 direct effect by Pearl's single-door criterion (one exposure, one outcome).
   --effect total|direct   which effect (default total)
-  --max N                 stop after N sets (the output says it was truncated)
+  --max N                 list at most N sets (default ${describeCount(CLI_DEFAULT_LISTED_SETS)}; the output states
+                          the cap and says when more sets exist)
 ${QUESTION_HELP}`,
 		options: { ...QUESTION, effect: { type: 'string' }, max: { type: 'string' } },
 		async run(ctx) {
 			const d = await ctx.diagram();
 			const effect = ctx.values.effect ?? 'total';
 			if (effect !== 'total' && effect !== 'direct') throw new UsageError(`--effect must be "total" or "direct", not "${String(effect)}"`);
-			const r = adjustmentSets(d, { ...ctx.question(), effect: effect as Effect, max: ctx.count('max') });
+			const max = ctx.count('max') ?? CLI_DEFAULT_LISTED_SETS;
+			const r = adjustmentSets(d, { ...ctx.question(), effect: effect as Effect, max });
 			if (ctx.json) {
 				ctx.printJson({
 					exposures: r.exposures,
@@ -64,6 +67,7 @@ ${QUESTION_HELP}`,
 					identifiable: r.identifiable,
 					sets: r.sets,
 					truncated: r.truncated,
+					max,
 					optimal: r.optimal,
 					minimum: r.minimum
 				});
@@ -74,9 +78,9 @@ ${QUESTION_HELP}`,
 				ctx.print(`The ${what} cannot be identified by adjustment: no set of measured variables is sufficient.`);
 				return 0;
 			}
-			ctx.print(`Minimal sufficient adjustment sets for the ${what}:`);
+			ctx.print(`Minimal sufficient adjustment sets for the ${what} (at most ${describeCount(max)} listed; --max N to change):`);
 			for (const s of r.sets) ctx.print(`  ${braces(s)}`);
-			if (r.truncated) ctx.print(`  … stopped after ${r.sets.length} sets (--max); more exist`);
+			if (r.truncated) ctx.print(`  … stopped after ${r.sets.length} sets (the cap, --max ${max}); more exist`);
 			if (r.minimum) ctx.print(`Smallest set: ${braces(r.minimum)}`);
 			if (r.effect === 'total') ctx.print(optimalSetSentence(r, braces).replace(/\.$/, ''));
 			return 0;
@@ -164,12 +168,21 @@ ${QUESTION_HELP}`,
 		usage: 'causeway claims DIAGRAM [--max N] [--json]',
 		details: `For each pair of measured variables with no arrow between them, prints a minimal set of
 measured variables given which the diagram says they are independent (d-separated), or says
-that no measured set makes them independent.
+that no measured set makes them independent. Without --max every pair is listed, up to
+${describeCount(CLI_MAX_CLAIM_PAIRS)} pairs (about 3,160 variables); a larger diagram needs --max.
   --max N   list at most N claims`,
 		options: { max: { type: 'string' } },
 		async run(ctx) {
 			const d = await ctx.diagram();
-			const claims = impliedClaims(d, { max: ctx.count('max') });
+			const max = ctx.count('max');
+			const n = d.variables.length;
+			const pairs = (n * (n - 1)) / 2;
+			if (max === undefined && pairs > CLI_MAX_CLAIM_PAIRS) {
+				throw new UsageError(
+					`claims looks at every pair of variables: this diagram has ${describeCount(n)} variables, so ${describeCount(pairs)} pairs, more than the ${describeCount(CLI_MAX_CLAIM_PAIRS)} the command goes through in full (its limit); give --max N to list the first N claims`
+				);
+			}
+			const claims = impliedClaims(d, { max });
 			if (ctx.json) {
 				ctx.printJson({ claims });
 				return 0;

@@ -62,6 +62,21 @@ export const CLI_MAX_ARROWS = 1_000_000;
 /** Longest diagram the command reads, in bytes of a file or of standard input (and characters of text). */
 export const CLI_MAX_DIAGRAM_BYTES = 64 * 1024 * 1024;
 
+/**
+ * Sets `causeway sets` lists unless --max says otherwise. The listing has polynomial delay but
+ * each set costs a pass over the diagram: measured (bench/cli.ts) about 1 ms per set at 2,000
+ * variables and 0.25 s per set at 100,000, so 100 sets answer a 2,000-variable diagram in well
+ * under a second and a 100,000-variable one in about half a minute; the number of minimal sets
+ * itself can grow exponentially with the diagram, so some cap is always needed.
+ */
+export const CLI_DEFAULT_LISTED_SETS = 100;
+/**
+ * Most pairs `causeway claims` goes through without --max: one claim per non-adjacent pair,
+ * n(n − 1)/2 pairs in all; 5,000,000 pairs is about 3,160 variables. Measured: all claims of
+ * 2,000 variables (2 million pairs) take about a minute, so a larger diagram needs --max N.
+ */
+export const CLI_MAX_CLAIM_PAIRS = 5_000_000;
+
 /** "5 MiB", "512 MiB", "1,000": sizes as messages state them. */
 export function describeBytes(bytes: number): string {
 	if (bytes >= 1024 * 1024) return `${Number((bytes / (1024 * 1024)).toFixed(1))} MiB`;

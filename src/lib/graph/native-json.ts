@@ -343,11 +343,30 @@ function structureError(error: ErrorObject, data: unknown, body: string): InputE
 // ---------------------------------------------------------------------------------------------
 // Step 3: model
 
+/**
+ * Deepest nesting kept in a value the format does not know. JSON.parse reads any depth, but
+ * writing such a value back (JSON.stringify) and copying it recurse, so a hostile file could
+ * overflow the stack later; the known keys have a fixed shallow shape checked by the schema.
+ */
+const MAX_KEPT_DEPTH = 1_000;
+
+/** Refuses a kept value nested deeper than MAX_KEPT_DEPTH; iterative, O(size of the value). */
+function assertShallow(value: unknown): void {
+	const stack: [unknown, number][] = [[value, 1]];
+	while (stack.length > 0) {
+		const [v, depth] = stack.pop() as [unknown, number];
+		if (typeof v !== 'object' || v === null) continue;
+		if (depth > MAX_KEPT_DEPTH) throw new InputError('The JSON is nested too deeply to read');
+		for (const child of Array.isArray(v) ? v : Object.values(v)) stack.push([child, depth + 1]);
+	}
+}
+
 /** Copies the keys that `known` does not list into a fresh object; undefined when none. */
 function extraOf(source: Record<string, unknown>, known: ReadonlySet<string>): Extra | undefined {
 	let extra: Extra | undefined;
 	for (const key of Object.keys(source)) {
 		if (known.has(key) || isUnsafeKey(key)) continue;
+		assertShallow(source[key]);
 		extra ??= {};
 		extra[key] = source[key];
 	}

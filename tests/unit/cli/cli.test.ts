@@ -16,7 +16,7 @@ describe('causeway sets', () => {
 		expect(r.code).toBe(0);
 		expect(r.err).toBe('');
 		const j = JSON.parse(r.out);
-		expect(Object.keys(j)).toEqual(['exposures', 'outcomes', 'effect', 'identifiable', 'sets', 'truncated', 'optimal', 'minimum']);
+		expect(Object.keys(j)).toEqual(['exposures', 'outcomes', 'effect', 'identifiable', 'sets', 'truncated', 'max', 'optimal', 'minimum']);
 		expect(j.sets).toEqual([['age', 'diet', 'income']]);
 		expect(j.identifiable).toBe(true);
 		expect(j.effect).toBe('total');
