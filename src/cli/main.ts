@@ -24,7 +24,7 @@ import { OutputError, UsageError, type CliIo } from './io';
 import { readDiagramInput } from './read-input';
 import { processIo, writeFailure } from './process-io';
 import { COMMON, QUESTION, QUESTION_HELP, type Command, type Context, type Values } from './command';
-import { CLI_DEFAULT_LISTED_SETS, CLI_MAX_CLAIM_PAIRS, describeCount } from '../lib/limits';
+import { CLI_DEFAULT_LISTED_SETS, CLI_MAX_CLAIM_PAIRS, CLI_MAX_ROLES_WORK, describeCount } from '../lib/limits';
 import { braces, pathText, problemText, reasonText, ROLE_TEXT } from '../lib/wording/command-line';
 import { SUMMARY, type LazyName } from './summaries';
 
@@ -200,17 +200,28 @@ ${describeCount(CLI_MAX_CLAIM_PAIRS)} pairs (about 3,160 variables); a larger di
 	},
 	roles: {
 		summary: 'give each variable its role for the question',
-		usage: 'causeway roles DIAGRAM [--exposure …] [--outcome …] [--json]',
+		usage: 'causeway roles DIAGRAM [--only a,b] [--exposure …] [--outcome …] [--json]',
 		details: `Prints the role of each variable for the effect of the exposure(s) on the outcome(s):
 confounder (a pre-exposure variable in some minimal sufficient adjustment set, VanderWeele &
 Shpitser 2013), common cause, mediator, collider, descendant of exposure or outcome,
 instrument-like, precision variable or unrelated (several may apply; a confounder that is
 also a collider is printed with what it must be adjusted together with).
+Each variable's collider test searches the whole diagram, so without --only the command
+takes on at most ${describeCount(CLI_MAX_ROLES_WORK)} steps of variables × (variables + arrows), about 14,000
+variables of average degree 4 (its limit); --only asks about chosen variables at any size.
+  --only a,b     give the roles of these variables only
 ${QUESTION_HELP}`,
-		options: { ...QUESTION },
+		options: { ...QUESTION, only: { type: 'string', multiple: true } },
 		async run(ctx) {
 			const d = await ctx.diagram();
-			const roles = variableRoles(d, ctx.question());
+			const only = ctx.list('only');
+			const work = d.variables.length * (d.variables.length + d.arrows.length);
+			if (only === undefined && work > CLI_MAX_ROLES_WORK) {
+				throw new UsageError(
+					`roles tests each variable with a search over the whole diagram: ${describeCount(d.variables.length)} variables × (${describeCount(d.variables.length)} + ${describeCount(d.arrows.length)} arrows) = ${work.toExponential(1)} steps, over the command's limit of ${CLI_MAX_ROLES_WORK.toExponential(1)} (about 20 s); give --only a,b for the roles of chosen variables`
+				);
+			}
+			const roles = variableRoles(d, { ...ctx.question(), only });
 			if (ctx.json) {
 				ctx.printJson({ roles });
 				return 0;

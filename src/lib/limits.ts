@@ -77,6 +77,16 @@ export const CLI_DEFAULT_LISTED_SETS = 100;
  */
 export const CLI_MAX_CLAIM_PAIRS = 5_000_000;
 
+/**
+ * Most work `causeway roles` takes on without --only, as variables × (variables + arrows): the
+ * collider test is one flow search over the diagram per variable (roles.ts). Measured
+ * (bench/cli.ts, node --cpu-prof): 10,000 variables and 20,000 arrows (3·10⁸) take about 10 s
+ * of CPU, all but a few percent in that test, so the limit of 6·10⁸ is about 20 s — some
+ * 14,000 variables of average degree 4. A 100,000-variable diagram (3·10¹⁰) would take about
+ * a quarter of an hour; --only a,b asks about chosen variables at O(n + m) each.
+ */
+export const CLI_MAX_ROLES_WORK = 600_000_000;
+
 /** "5 MiB", "512 MiB", "1,000": sizes as messages state them. */
 export function describeBytes(bytes: number): string {
 	if (bytes >= 1024 * 1024) return `${Number((bytes / (1024 * 1024)).toFixed(1))} MiB`;

@@ -343,14 +343,15 @@ function searchFor(r: ReducedGraph, v: number, budget: number): number[] | null 
 }
 
 /**
- * Membership of every variable, with a witness set for each member. O(n (n + m)) for steps 1
- * and 2; step 3 and the listing are bounded by SEARCH_BUDGET and LISTING_CAP.
+ * Membership of every variable (of `candidates` when given; others may be found members as parts
+ * of a witness set), with a witness set for each member. O(k (n + m)) for steps 1 and 2 over k
+ * candidates; step 3 and the listing are bounded by SEARCH_BUDGET and LISTING_CAP.
  */
 export function confounderMembershipIdx(
 	g: CompiledDag,
 	X: readonly number[],
 	Y: readonly number[],
-	limits: { searchBudget?: number; listingCap?: number } = {}
+	limits: { searchBudget?: number; listingCap?: number; candidates?: readonly number[] } = {}
 ): ConfounderMembership {
 	const n = g.n;
 	const member = new Uint8Array(n);
@@ -372,7 +373,9 @@ export function confounderMembershipIdx(
 	const joined = reach(r, r.source, new Uint8Array(r.size));
 	if (!joined[r.sink]) return { member, witness, undecided, settledByListing: 0 };
 	const open: number[] = [];
-	for (let v = 0; v < n; v++) {
+	// Only the variables asked about are tested (all by default); members found on the way as
+	// parts of another's witness set are kept too.
+	for (const v of limits.candidates ?? Array.from({ length: n }, (_, i) => i)) {
 		if (member[v] || !h.removable[v] || !joined[v]) continue;
 		if (!onSomeSimplePath(r, v)) continue;
 		const quick = greedyFrom(r, v, r.source, r.sink) ?? greedyFrom(r, v, r.sink, r.source);

@@ -124,18 +124,28 @@ export function variableRolesIdx(g: CompiledDag, X: readonly number[], Y: readon
 	return variableRoleDetailsIdx(g, X, Y).map((r) => r.roles);
 }
 
-/** Roles, and for each confounder the rest of one minimal sufficient set containing it. */
-export function variableRoleDetailsIdx(g: CompiledDag, X: readonly number[], Y: readonly number[]): { roles: Role[]; adjustWith: number[] | null; undecided: boolean }[] {
-	const membership = confounderMembershipIdx(g, X, Y);
-	const roles = rolesWithout(g, X, Y, membership.member);
-	return roles.map((r, v) => ({
-		roles: r,
+/**
+ * Roles, and for each confounder the rest of one minimal sufficient set containing it; for the
+ * variables in `only` (in that order) when given, else for every variable. Asking for k
+ * variables costs O(k (n + m)) for the per-variable tests instead of O(n (n + m)).
+ */
+export function variableRoleDetailsIdx(
+	g: CompiledDag,
+	X: readonly number[],
+	Y: readonly number[],
+	only?: readonly number[]
+): { roles: Role[]; adjustWith: number[] | null; undecided: boolean }[] {
+	const which = only ?? Array.from({ length: g.n }, (_, v) => v);
+	const membership = confounderMembershipIdx(g, X, Y, { candidates: which });
+	const roles = rolesWithout(g, X, Y, membership.member, which);
+	return which.map((v, i) => ({
+		roles: roles[i],
 		adjustWith: membership.member[v] ? (membership.witness[v] ?? []).filter((w) => w !== v) : null,
 		undecided: membership.undecided[v] === 1
 	}));
 }
 
-function rolesWithout(g: CompiledDag, X: readonly number[], Y: readonly number[], confounder: Uint8Array): Role[][] {
+function rolesWithout(g: CompiledDag, X: readonly number[], Y: readonly number[], confounder: Uint8Array, which: readonly number[]): Role[][] {
 	const n = g.n;
 	const inX = maskOf(n, X);
 	const inY = maskOf(n, Y);
@@ -158,7 +168,7 @@ function rolesWithout(g: CompiledDag, X: readonly number[], Y: readonly number[]
 	const linkedToX = descendantsOf(g, membersOf(ancestorsOf(g, X)));
 	const isCollider = colliderTester(g, inX, inY);
 
-	return Array.from({ length: n }, (_, v): Role[] => {
+	return which.map((v): Role[] => {
 		if (inX[v]) return ['exposure'];
 		if (inY[v]) return ['outcome'];
 		const roles: Role[] = [];
