@@ -10,7 +10,6 @@ import { parseArgs } from 'node:util';
 import type { Diagram } from '../lib/graph/diagram';
 import { InputError } from '../lib/graph/errors';
 import { writeDiagramJson } from '../lib/graph/native-json';
-import { writeDot } from '../lib/graph/dot';
 import {
 	adjustmentSets,
 	checkAdjustment,
@@ -244,7 +243,8 @@ OUT's extension (.json, .dot or .gv). "-o -" writes native JSON to standard outp
 			if (typeof out !== 'string' || out === '') throw new UsageError('convert needs -o OUT');
 			const d = await ctx.diagram();
 			const format = typeof ctx.values.to === 'string' ? ctx.values.to : formatFromName(out);
-			const text = format === 'dot' ? writeDot(d) : writeDiagramJson(d);
+			// The DOT writer (and its parser library) is loaded only when DOT is asked for.
+			const text = format === 'dot' ? (await import('../lib/graph/dot')).writeDot(d) : writeDiagramJson(d);
 			if (out === '-') ctx.io.stdout(text.endsWith('\n') ? text : `${text}\n`);
 			else await (ctx.io.writeFile ?? writeFile)(out, text);
 			return 0;
