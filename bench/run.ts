@@ -6,7 +6,7 @@
  *   npm run bench                 full run (about 10–15 minutes on a 2-core machine)
  *   npm run bench -- --quick      smaller sizes of every section (about 2–3 minutes); not written
  *   npm run bench -- --only=1,3   some sections only (1 d-sep, 2 listing, 3 claims, 4 data,
- *                                 5 editor, 6 bundle, 7 reviewer tools); not written
+ *                                 5 editor, 6 bundle, 7 reviewer tools, cli command line); not written
  *   --no-write / --write          override whether bench/RESULTS.md is written
  *
  * A section whose tool is missing (networkx, R, Chromium) prints why and what it skipped.
@@ -19,6 +19,7 @@ import { benchData } from './data';
 import { benchLogistic } from './logistic';
 import { benchEditor } from './editor';
 import { benchBundle } from './bundle';
+import { benchCli } from './cli';
 import { buildApp, launchChromium, removeApp, serveApp, type BuiltApp } from './app';
 import { describeMachine } from './machine';
 import { chromium } from './tools';
@@ -101,6 +102,8 @@ async function main(): Promise<void> {
 			else emit('### 7. Reviewer tools\n\nSkipped: bench/review.ts exports no reviewBenchmarkSection().\n');
 		} else emit('### 7. Reviewer tools\n\nSkipped: bench/review.ts is not there.\n');
 	}
+
+	await section('cli', () => benchCli(quick));
 
 	emit(`_Whole run: ${fmtMs(performance.now() - started)}._`);
 	if (write) writeFileSync(new URL('./RESULTS.md', import.meta.url), output.join('\n') + '\n');
