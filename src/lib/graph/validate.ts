@@ -48,6 +48,22 @@ const ROLE_LISTS = [
  * roles name known variables. O(n + m).
  */
 export function validateDiagram(d: Diagram, opts: ValidateOptions = {}): DiagramIssue[] {
+	return inspectDiagram(d, opts).issues;
+}
+
+/** Each id's first variable index, and each arrow's ends as indices (-1: not a variable). */
+export interface ResolvedArrows {
+	indexOf: ReadonlyMap<string, number>;
+	tail: Int32Array;
+	head: Int32Array;
+}
+
+/**
+ * validateDiagram, also returning the id → index map and arrow ends it built, so that
+ * compiling a checked diagram (causal/question.ts) does not hash every id again: on 100,000
+ * variables and 200,000 arrows the second pass was about 0.1 s (node --cpu-prof).
+ */
+export function inspectDiagram(d: Diagram, opts: ValidateOptions = {}): { issues: DiagramIssue[]; resolved: ResolvedArrows } {
 	const issues: DiagramIssue[] = [];
 
 	// Variables: the first occurrence of an id is the variable; later ones are duplicates.
@@ -158,7 +174,7 @@ export function validateDiagram(d: Diagram, opts: ValidateOptions = {}): Diagram
 		if (d.exposures.length === 0) issues.push({ code: 'missing-exposure', message: 'No exposure is chosen: mark at least one variable as the exposure', ids: [] });
 		if (d.outcomes.length === 0) issues.push({ code: 'missing-outcome', message: 'No outcome is chosen: mark at least one variable as the outcome', ids: [] });
 	}
-	return issues;
+	return { issues, resolved: { indexOf: firstIndex, tail, head } };
 }
 
 /**
