@@ -18,6 +18,7 @@ import { join } from 'node:path';
 import { randomDiagramJson } from './cli-diagram';
 import { fmtBytes, fmtInt, fmtMs, type Row, type Section } from './table';
 import { networkx } from './tools';
+import { eagerOutputs, readBundleMeta } from '../tests/unit/cli/bundle-meta';
 
 interface Run {
 	wall: number;
@@ -120,15 +121,8 @@ export async function benchCli(quick: boolean): Promise<Section> {
 			CPU: '',
 			result: `ratio ${ratio.toFixed(2)} (fastest runs ${(Math.min(...ours) / Math.min(...bare)).toFixed(2)}); target ≤ 1.5`
 		});
-		const meta = JSON.parse(readFileSync('dist-cli/meta.json', 'utf8')) as { outputs: Record<string, { bytes: number; imports: { path: string; kind: string }[] }> };
-		const eager = new Set<string>();
-		const visit = (f: string) => {
-			if (eager.has(f) || !meta.outputs[f]) return;
-			eager.add(f);
-			for (const i of meta.outputs[f].imports) if (i.kind === 'import-statement') visit(i.path);
-		};
-		visit('dist-cli/causeway.mjs');
-		const eagerBytes = [...eager].reduce((s, f) => s + meta.outputs[f].bytes, 0);
+		const meta = readBundleMeta();
+		const eagerBytes = eagerOutputs(meta).reduce((sum, f) => sum + meta.outputs[f].bytes, 0);
 		const allBytes = Object.entries(meta.outputs).filter(([f]) => f.endsWith('.mjs')).reduce((s, [, o]) => s + o.bytes, 0);
 		notes.push(`Start-up loads ${fmtBytes(eagerBytes)} of the ${fmtBytes(allBytes)} bundle (esbuild metafile, dist-cli/meta.json); the rest is loaded by the command that needs it.`);
 

@@ -19,7 +19,8 @@ import { UsageError, type CliIo } from './io';
 const PIECE = 1 << 20;
 const PAUSE = new Int32Array(new SharedArrayBuffer(4));
 
-function describeFsError(err: unknown, path: string): string {
+/** One line for a failed read of `path`, from a Node system error's code. */
+export function describeFsError(err: unknown, path: string): string {
 	const code = (err as { code?: unknown } | null)?.code;
 	if (code === 'ENOENT') return `cannot read "${path}": no such file`;
 	if (code === 'EISDIR') return `cannot read "${path}": it is a folder`;

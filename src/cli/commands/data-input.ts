@@ -12,7 +12,7 @@ import { InputError } from '../../lib/graph/errors';
 import { parseTable, parseTableStream, StatsError, type ColumnKind, type TableSource } from '../../lib/stats';
 import { parseSummaryMatrix, runDataChecks, runSummaryChecks, SETTINGS_WHERE, type DataCheckOptions, type DataCheckReport } from '../../lib/datacheck';
 import { UsageError } from '../io';
-import { readDiagramInput } from '../read-input';
+import { describeFsError, readDiagramInput } from '../read-input';
 import type { Context, Options } from '../command';
 
 export const DATA_OPTIONS: Options = {
@@ -39,14 +39,6 @@ function pairs(ctx: Context, name: string): [string, string][] {
 		if (eq <= 0) throw new UsageError(`--${name} takes name=value pairs, not "${item}"`);
 		return [item.slice(0, eq).trim(), item.slice(eq + 1).trim()];
 	});
-}
-
-function describeFsError(err: unknown, path: string): string {
-	const code = (err as { code?: unknown } | null)?.code;
-	if (code === 'ENOENT') return `cannot read "${path}": no such file`;
-	if (code === 'EISDIR') return `cannot read "${path}": it is a folder`;
-	if (code === 'EACCES') return `cannot read "${path}": permission denied`;
-	return `cannot read "${path}": ${(err as Error)?.message ?? String(err)}`;
 }
 
 async function readText(ctx: Context, path: string): Promise<string> {

@@ -12,6 +12,7 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { parseDiagramJson } from '../../../src/lib/graph/native-json';
 import { CLI_DEFAULT_LISTED_SETS, CLI_MAX_DIAGRAM_BYTES, CLI_MAX_VARIABLES, MAX_VARIABLES } from '../../../src/lib/limits';
 import { main } from '../../../src/cli/main';
+import { eagerOutputs, readBundleMeta } from './bundle-meta';
 import { runCli } from './harness';
 
 const BIG = 'tests/fixtures/networkx/cli-dsep-3000.causeway.json';
@@ -189,23 +190,14 @@ describe('output that cannot be written: one line, exit 2', () => {
 
 describe('the bundle', () => {
 	it('holds no canvas library and loads each further command as its own chunk (esbuild metafile)', () => {
-		const meta = JSON.parse(readFileSync('dist-cli/meta.json', 'utf8')) as {
-			outputs: Record<string, { inputs: Record<string, unknown>; entryPoint?: string; imports: { path: string; kind: string }[] }>;
-		};
+		const meta = readBundleMeta();
 		const inputs = Object.values(meta.outputs).flatMap((o) => Object.keys(o.inputs));
 		expect(inputs.some((i) => /cytoscape/i.test(i))).toBe(false);
 		expect(inputs.some((i) => i.startsWith('src/lib/ui/'))).toBe(false);
 		const entry = meta.outputs['dist-cli/causeway.mjs'];
 		expect(entry.imports.filter((i) => i.kind === 'dynamic-import').length).toBeGreaterThanOrEqual(8);
 		// What start-up loads (the entry and its static imports) holds neither the data side nor the figure code.
-		const eager = new Set<string>();
-		const visit = (file: string) => {
-			if (eager.has(file) || !meta.outputs[file]) return;
-			eager.add(file);
-			for (const i of meta.outputs[file].imports) if (i.kind === 'import-statement') visit(i.path);
-		};
-		visit('dist-cli/causeway.mjs');
-		const eagerInputs = [...eager].flatMap((f) => Object.keys(meta.outputs[f].inputs));
+		const eagerInputs = eagerOutputs(meta).flatMap((f) => Object.keys(meta.outputs[f].inputs));
 		for (const heavy of ['papaparse', '@dagrejs', 'src/lib/stats/', 'src/lib/export/', 'ts-graphviz']) expect(eagerInputs.some((i) => i.includes(heavy))).toBe(false);
 	});
 });
