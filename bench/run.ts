@@ -6,7 +6,7 @@
  *   npm run bench                 full run (about 10–15 minutes on a 2-core machine)
  *   npm run bench -- --quick      smaller sizes of every section (about 2–3 minutes); not written
  *   npm run bench -- --only=1,3   some sections only (1 d-sep, 2 listing, 3 claims, 4 data,
- *                                 5 editor, 6 bundle, 7 reviewer tools, 8 paths); not written
+ *                                 5 editor, 6 bundle, 7 reviewer tools, 8 paths, cli command line); not written
  *   npm run bench -- --only=layout   layout and SVG export of large diagrams (bench/layout.ts)
  *   --no-write / --write          override whether bench/RESULTS.md is written
  *
@@ -22,6 +22,7 @@ import { benchEditor } from './editor';
 import { benchBundle } from './bundle';
 import { benchPaths } from './paths';
 import { benchLayout } from './layout';
+import { benchCli } from './cli';
 import { buildApp, launchChromium, removeApp, serveApp, type BuiltApp } from './app';
 import { describeMachine } from './machine';
 import { chromium } from './tools';
@@ -107,6 +108,7 @@ async function main(): Promise<void> {
 
 	await section('8', () => benchPaths(quick ? [300] : [300, 1_000], 3));
 	await section('layout', () => benchLayout(quick));
+	await section('cli', () => benchCli(quick));
 
 	emit(`_Whole run: ${fmtMs(performance.now() - started)}._`);
 	if (write) writeFileSync(new URL('./RESULTS.md', import.meta.url), output.join('\n') + '\n');

@@ -10,15 +10,8 @@ if (!existsSync(bundle)) {
 	process.stderr.write('causeway: the command is not built yet; run `npm install` (or `npm run build:cli`) in the project folder\n');
 	process.exit(2);
 }
-// A reader that stops early (`causeway claims d.json | head`) closes the pipe: that is not an
-// error of ours, so end quietly as other Unix tools do instead of printing a stack trace.
-process.stdout.on('error', (err) => {
-	if (err && err.code === 'EPIPE') process.exit(process.exitCode ?? 0);
-	throw err;
-});
-const { main } = await import(pathToFileURL(bundle).href);
-process.exitCode = await main(process.argv.slice(2), {
-	stdout: (s) => process.stdout.write(s),
-	stderr: (s) => process.stderr.write(s),
-	readFile: undefined
-});
+// Standard output and error are written synchronously by the bundle's processIo (no stream
+// objects, so nothing is loaded for them at start-up and a closed pipe or a full disk is one
+// line on stderr and exit status 2, never a stack trace).
+const { main, processIo } = await import(pathToFileURL(bundle).href);
+process.exitCode = await main(process.argv.slice(2), processIo());

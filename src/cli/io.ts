@@ -1,5 +1,6 @@
 /** What the command needs from its surroundings, so tests can run it in-process. */
 export interface CliIo {
+	/** Receives the output in large pieces (main.ts buffers it); may throw OutputError. */
 	stdout: (text: string) => void;
 	stderr: (text: string) => void;
 	/** Reads a file as text; defaults to the file system. "-" means standard input. */
@@ -13,5 +14,13 @@ export class UsageError extends Error {
 	constructor(message: string) {
 		super(message);
 		this.name = 'UsageError';
+	}
+}
+
+/** The output could not be written (closed pipe, full disk, missing folder): one line, exit 2. */
+export class OutputError extends Error {
+	constructor(message: string) {
+		super(message);
+		this.name = 'OutputError';
 	}
 }

@@ -5,13 +5,11 @@
  * stderr and no stack trace.
  */
 import { adjustTogetherText, CONFOUNDER_UNDECIDED, optimalSetSentence, pathCountSentence } from '../lib/wording';
-import { readFile, writeFile } from 'node:fs/promises';
+import { writeFile } from 'node:fs/promises';
 import { parseArgs } from 'node:util';
 import type { Diagram } from '../lib/graph/diagram';
 import { InputError } from '../lib/graph/errors';
-import { readDiagramBytes, readDiagramText } from '../lib/graph/read-file';
 import { writeDiagramJson } from '../lib/graph/native-json';
-import { writeDot } from '../lib/graph/dot';
 import {
 	adjustmentSets,
 	checkAdjustment,
@@ -21,16 +19,16 @@ import {
 	variableRoles
 } from '../lib/causal';
 import type { Effect } from '../lib/causal';
-import { UsageError, type CliIo } from './io';
+import { OutputError, UsageError, type CliIo } from './io';
+import { readDiagramInput } from './read-input';
+import { processIo, writeFailure } from './process-io';
 import { COMMON, QUESTION, QUESTION_HELP, type Command, type Context, type Values } from './command';
+import { CLI_DEFAULT_LISTED_SETS, CLI_MAX_CLAIM_PAIRS, CLI_MAX_ROLES_WORK, describeCount } from '../lib/limits';
 import { braces, pathText, problemText, reasonText, ROLE_TEXT } from '../lib/wording/command-line';
-import { estimateCommand } from './commands/estimate';
-import { testCommand } from './commands/test';
-import { exportCommand } from './commands/export';
-import { codeCommand } from './commands/code';
-import { review, robust, diff, instruments } from './commands/reviewer';
+import { SUMMARY, type LazyName } from './summaries';
 
 export type { CliIo } from './io';
+export { processIo };
 
 const VERSION = '0.1.0';
 
@@ -50,14 +48,16 @@ Also prints a minimum-size set and the efficiency-optimal set O (Henckel, Perkov
 Maathuis 2022) when it is made of measured variables. --effect direct lists the sets for the
 direct effect by Pearl's single-door criterion (one exposure, one outcome).
   --effect total|direct   which effect (default total)
-  --max N                 stop after N sets (the output says it was truncated)
+  --max N                 list at most N sets (default ${describeCount(CLI_DEFAULT_LISTED_SETS)}; the output states
+                          the cap and says when more sets exist)
 ${QUESTION_HELP}`,
 		options: { ...QUESTION, effect: { type: 'string' }, max: { type: 'string' } },
 		async run(ctx) {
 			const d = await ctx.diagram();
 			const effect = ctx.values.effect ?? 'total';
 			if (effect !== 'total' && effect !== 'direct') throw new UsageError(`--effect must be "total" or "direct", not "${String(effect)}"`);
-			const r = adjustmentSets(d, { ...ctx.question(), effect: effect as Effect, max: ctx.count('max') });
+			const max = ctx.count('max') ?? CLI_DEFAULT_LISTED_SETS;
+			const r = adjustmentSets(d, { ...ctx.question(), effect: effect as Effect, max });
 			if (ctx.json) {
 				ctx.printJson({
 					exposures: r.exposures,
@@ -66,6 +66,7 @@ ${QUESTION_HELP}`,
 					identifiable: r.identifiable,
 					sets: r.sets,
 					truncated: r.truncated,
+					max,
 					optimal: r.optimal,
 					minimum: r.minimum
 				});
@@ -76,9 +77,9 @@ ${QUESTION_HELP}`,
 				ctx.print(`The ${what} cannot be identified by adjustment: no set of measured variables is sufficient.`);
 				return 0;
 			}
-			ctx.print(`Minimal sufficient adjustment sets for the ${what}:`);
+			ctx.print(`Minimal sufficient adjustment sets for the ${what} (at most ${describeCount(max)} listed; --max N to change):`);
 			for (const s of r.sets) ctx.print(`  ${braces(s)}`);
-			if (r.truncated) ctx.print(`  … stopped after ${r.sets.length} sets (--max); more exist`);
+			if (r.truncated) ctx.print(`  … stopped after ${r.sets.length} sets (the cap, --max ${max}); more exist`);
 			if (r.minimum) ctx.print(`Smallest set: ${braces(r.minimum)}`);
 			if (r.effect === 'total') ctx.print(optimalSetSentence(r, braces).replace(/\.$/, ''));
 			return 0;
@@ -169,12 +170,21 @@ ${QUESTION_HELP}`,
 		usage: 'causeway claims DIAGRAM [--max N] [--json]',
 		details: `For each pair of measured variables with no arrow between them, prints a minimal set of
 measured variables given which the diagram says they are independent (d-separated), or says
-that no measured set makes them independent.
+that no measured set makes them independent. Without --max every pair is listed, up to
+${describeCount(CLI_MAX_CLAIM_PAIRS)} pairs (about 3,160 variables); a larger diagram needs --max.
   --max N   list at most N claims`,
 		options: { max: { type: 'string' } },
 		async run(ctx) {
 			const d = await ctx.diagram();
-			const claims = impliedClaims(d, { max: ctx.count('max') });
+			const max = ctx.count('max');
+			const n = d.variables.length;
+			const pairs = (n * (n - 1)) / 2;
+			if (max === undefined && pairs > CLI_MAX_CLAIM_PAIRS) {
+				throw new UsageError(
+					`claims looks at every pair of variables: this diagram has ${describeCount(n)} variables, so ${describeCount(pairs)} pairs, more than the ${describeCount(CLI_MAX_CLAIM_PAIRS)} the command goes through in full (its limit); give --max N to list the first N claims`
+				);
+			}
+			const claims = impliedClaims(d, { max });
 			if (ctx.json) {
 				ctx.printJson({ claims });
 				return 0;
@@ -192,17 +202,28 @@ that no measured set makes them independent.
 	},
 	roles: {
 		summary: 'give each variable its role for the question',
-		usage: 'causeway roles DIAGRAM [--exposure …] [--outcome …] [--json]',
+		usage: 'causeway roles DIAGRAM [--only a,b] [--exposure …] [--outcome …] [--json]',
 		details: `Prints the role of each variable for the effect of the exposure(s) on the outcome(s):
 confounder (a pre-exposure variable in some minimal sufficient adjustment set, VanderWeele &
 Shpitser 2013), common cause, mediator, collider, descendant of exposure or outcome,
 instrument-like, precision variable or unrelated (several may apply; a confounder that is
 also a collider is printed with what it must be adjusted together with).
+Each variable's collider test searches the whole diagram, so without --only the command
+takes on at most ${describeCount(CLI_MAX_ROLES_WORK)} steps of variables × (variables + arrows), about 14,000
+variables of average degree 4 (its limit); --only asks about chosen variables at any size.
+  --only a,b     give the roles of these variables only
 ${QUESTION_HELP}`,
-		options: { ...QUESTION },
+		options: { ...QUESTION, only: { type: 'string', multiple: true } },
 		async run(ctx) {
 			const d = await ctx.diagram();
-			const roles = variableRoles(d, ctx.question());
+			const only = ctx.list('only');
+			const work = d.variables.length * (d.variables.length + d.arrows.length);
+			if (only === undefined && work > CLI_MAX_ROLES_WORK) {
+				throw new UsageError(
+					`roles tests each variable with a search over the whole diagram: ${describeCount(d.variables.length)} variables × (${describeCount(d.variables.length)} + ${describeCount(d.arrows.length)} arrows) = ${work.toExponential(1)} steps, over the command's limit of ${CLI_MAX_ROLES_WORK.toExponential(1)} (about 20 s); give --only a,b for the roles of chosen variables`
+				);
+			}
+			const roles = variableRoles(d, { ...ctx.question(), only });
 			if (ctx.json) {
 				ctx.printJson({ roles });
 				return 0;
@@ -225,18 +246,41 @@ OUT's extension (.json, .dot or .gv). "-o -" writes native JSON to standard outp
 			if (typeof out !== 'string' || out === '') throw new UsageError('convert needs -o OUT');
 			const d = await ctx.diagram();
 			const format = typeof ctx.values.to === 'string' ? ctx.values.to : formatFromName(out);
-			const text = format === 'dot' ? writeDot(d) : writeDiagramJson(d);
+			// The DOT writer (and its parser library) is loaded only when DOT is asked for.
+			const text = format === 'dot' ? (await import('../lib/graph/dot')).writeDot(d) : writeDiagramJson(d);
 			if (out === '-') ctx.io.stdout(text.endsWith('\n') ? text : `${text}\n`);
 			else await (ctx.io.writeFile ?? writeFile)(out, text);
 			return 0;
 		}
 	},
-	test: testCommand,
-	estimate: estimateCommand,
-	export: exportCommand,
-	code: codeCommand,
-	review, robust, diff, instruments
 };
+
+/**
+ * The commands beyond the core ones, each loaded only when called: esbuild splits every
+ * dynamic import into its own chunk (scripts/build-cli.mjs), so a core command's start-up never
+ * reads the data, export or reviewer code (measured in bench/cli.ts).
+ */
+const LAZY: Record<LazyName, () => Promise<Command>> = {
+	test: async () => (await import('./commands/test')).testCommand,
+	estimate: async () => (await import('./commands/estimate')).estimateCommand,
+	export: async () => (await import('./commands/export')).exportCommand,
+	code: async () => (await import('./commands/code')).codeCommand,
+	review: async () => (await import('./commands/review')).review,
+	robust: async () => (await import('./commands/robust')).robust,
+	diff: async () => (await import('./commands/diff')).diff,
+	instruments: async () => (await import('./commands/instruments')).instruments
+};
+
+/** Every command's name and one-line summary, in the order the help lists them. */
+function summaries(): [string, string][] {
+	return [...Object.entries(commands).map(([name, c]): [string, string] => [name, c.summary]), ...Object.entries(SUMMARY)];
+}
+
+async function findCommand(name: string): Promise<Command | undefined> {
+	if (Object.hasOwn(commands, name)) return commands[name];
+	if (Object.hasOwn(LAZY, name)) return LAZY[name as LazyName]();
+	return undefined;
+}
 
 function formatFromName(name: string): 'json' | 'dot' {
 	if (name === '-') return 'json';
@@ -247,7 +291,8 @@ function formatFromName(name: string): 'json' | 'dot' {
 }
 
 function generalHelp(): string {
-	const width = Math.max(...Object.keys(commands).map((c) => c.length));
+	const all = summaries();
+	const width = Math.max(...all.map(([name]) => name.length));
 	return `causeway ${VERSION} — causal diagrams for choosing and justifying adjustment sets
 
 Usage: causeway COMMAND DIAGRAM [options]
@@ -255,8 +300,8 @@ Usage: causeway COMMAND DIAGRAM [options]
 DIAGRAM is a native JSON (.json) or DOT (.dot, .gv) file, or - for standard input.
 
 Commands:
-${Object.entries(commands)
-	.map(([name, c]) => `  ${name.padEnd(width)}  ${c.summary}`)
+${all
+	.map(([name, summary]) => `  ${name.padEnd(width)}  ${summary}`)
 	.join('\n')}
 
 Options for every command: --json (one JSON object on stdout), --help.
@@ -274,23 +319,41 @@ function splitList(value: string | boolean | string[] | undefined): string[] | u
 	return parts.map((p) => p.trim()).filter((p) => p.length > 0);
 }
 
-/** Text from the injected reader (tests), else bytes, decoded strictly by readDiagramBytes. */
-async function readInput(io: CliIo, path: string): Promise<string | Uint8Array> {
-	if (io.readFile) return io.readFile(path);
-	if (path === '-') {
-		const chunks: Buffer[] = [];
-		for await (const chunk of process.stdin) chunks.push(chunk as Buffer);
-		return Buffer.concat(chunks);
-	}
-	return readFile(path);
+/**
+ * Output is gathered and handed on in pieces of at least this many characters: `claims` on 2,000
+ * variables used to spend 11% of its time in 1.7 million separate writes (one per line);
+ * buffered, it makes a few dozen (bench/cli.ts).
+ */
+const OUTPUT_PIECE = 1 << 18;
+
+/** Collects printed text and passes it to `write` in large pieces; `flush` sends the rest. */
+function bufferedOutput(write: (text: string) => void): { write: (text: string) => void; flush: () => void } {
+	let pending = '';
+	const flush = () => {
+		if (pending === '') return;
+		const text = pending;
+		pending = '';
+		write(text);
+	};
+	return {
+		write(text) {
+			pending += text;
+			if (pending.length >= OUTPUT_PIECE) flush();
+		},
+		flush
+	};
 }
 
-function describeFsError(err: unknown, path: string): string | null {
-	const code = (err as { code?: unknown } | null)?.code;
-	if (code === 'ENOENT') return `cannot read "${path}": no such file`;
-	if (code === 'EISDIR') return `cannot read "${path}": it is a folder`;
-	if (code === 'EACCES') return `cannot read "${path}": permission denied`;
-	return null;
+/** The file writer given to commands: failures become one OutputError line. */
+function checkedWriter(write: NonNullable<CliIo['writeFile']>): NonNullable<CliIo['writeFile']> {
+	return async (path, content) => {
+		try {
+			await write(path, content);
+		} catch (err) {
+			if (err instanceof OutputError) throw err;
+			throw new OutputError(writeFailure(err, `"${path}"`));
+		}
+	};
 }
 
 export async function main(argv: readonly string[], io: CliIo): Promise<number> {
@@ -308,7 +371,7 @@ export async function main(argv: readonly string[], io: CliIo): Promise<number> 
 		io.stdout(`${VERSION}\n`);
 		return 0;
 	}
-	const command = Object.hasOwn(commands, name) ? commands[name] : undefined;
+	const command = await findCommand(name);
 	if (!command) return fail(`unknown command "${name}"; run "causeway --help" for the list`);
 	let parsed: { values: Values; positionals: string[] };
 	try {
@@ -324,25 +387,19 @@ export async function main(argv: readonly string[], io: CliIo): Promise<number> 
 		return 0;
 	}
 	const json = parsed.values.json === true;
+	const out = bufferedOutput(io.stdout);
+	const commandIo: CliIo = { ...io, stdout: out.write, writeFile: checkedWriter(io.writeFile ?? writeFile) };
 	const ctx: Context = {
-		io,
+		io: commandIo,
 		values: parsed.values,
 		positionals: parsed.positionals,
 		json,
-		print: (text) => io.stdout(`${text}\n`),
-		printJson: (value) => io.stdout(`${JSON.stringify(value)}\n`),
+		print: (text) => out.write(`${text}\n`),
+		printJson: (value) => out.write(`${JSON.stringify(value)}\n`),
 		async diagram() {
 			if (parsed.positionals.length === 0) throw new UsageError(`${name} needs a diagram file (usage: ${command.usage})`);
 			if (parsed.positionals.length > 1) throw new UsageError(`${name} takes one diagram file, got ${parsed.positionals.length}: ${parsed.positionals.join(' ')}`);
-			const path = parsed.positionals[0];
-			let input: string | Uint8Array;
-			try {
-				input = await readInput(io, path);
-			} catch (err) {
-				throw new UsageError(describeFsError(err, path) ?? `cannot read "${path}": ${(err as Error).message}`);
-			}
-			const shown = path === '-' ? 'stdin' : path;
-			return typeof input === 'string' ? readDiagramText(shown, input) : readDiagramBytes(shown, input);
+			return readDiagramInput(io, parsed.positionals[0]);
 		},
 		question() {
 			return { exposures: splitList(parsed.values.exposure), outcomes: splitList(parsed.values.outcome) };
@@ -359,9 +416,22 @@ export async function main(argv: readonly string[], io: CliIo): Promise<number> 
 		}
 	};
 	try {
-		return await command.run(ctx);
+		const status = await command.run(ctx);
+		out.flush();
+		return status;
 	} catch (err) {
-		if (err instanceof UsageError || err instanceof InputError) return fail(err.message);
+		if (!(err instanceof OutputError)) {
+			try {
+				out.flush(); // what was printed before the failure still goes out, before the message
+			} catch (flushErr) {
+				if (flushErr instanceof OutputError) return fail(flushErr.message);
+				throw flushErr;
+			}
+		}
+		if (err instanceof UsageError || err instanceof InputError || err instanceof OutputError) return fail(err.message);
+		if (err instanceof RangeError && /allocation|memory|Invalid (string|array) length/i.test(err.message)) {
+			return fail(`the diagram is too large for this command: ${err.message}`);
+		}
 		return fail(`internal error: ${(err as Error)?.message ?? String(err)} (please report this)`);
 	}
 }

@@ -12,6 +12,7 @@ import { SOFTWARE_NAME, SOFTWARE_VERSION } from '../../lib/export/version';
 import { QUESTION, QUESTION_HELP, type Command } from '../command';
 import { UsageError } from '../io';
 import { DATA_HELP, DATA_OPTIONS, runOnData } from './data-input';
+import { SUMMARY } from '../summaries';
 
 const USAGE = `causeway code DIAGRAM DATA.csv --language ${CODE_LANGUAGES.join('|')} [--set planned|optimal|minimal[:N]|crude] [--adjust a,b] [-o FILE] [--json]`;
 
@@ -42,7 +43,7 @@ function pickRow(rows: readonly EstimateRow[], wanted: string): EstimateRow {
 }
 
 export const codeCommand: Command = {
-	summary: 'analysis code (R, Stata, SAS, Python) for an adjustment set, from the diagram and the data settings',
+	summary: SUMMARY.code,
 	usage: USAGE,
 	details: `Writes the analysis code for one adjustment set, for the statistical analysis plan: reading
 the data file, complete cases, categorical columns as factors with Causeway's reference level,

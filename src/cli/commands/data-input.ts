@@ -9,10 +9,10 @@ import { createReadStream } from 'node:fs';
 import { readFile, stat } from 'node:fs/promises';
 import type { Diagram } from '../../lib/graph/diagram';
 import { InputError } from '../../lib/graph/errors';
-import { readDiagramText } from '../../lib/graph/read-file';
 import { parseTable, parseTableStream, StatsError, type ColumnKind, type TableSource } from '../../lib/stats';
 import { parseSummaryMatrix, runDataChecks, runSummaryChecks, SETTINGS_WHERE, type DataCheckOptions, type DataCheckReport } from '../../lib/datacheck';
 import { UsageError } from '../io';
+import { describeFsError, readDiagramInput } from '../read-input';
 import type { Context, Options } from '../command';
 
 export const DATA_OPTIONS: Options = {
@@ -39,14 +39,6 @@ function pairs(ctx: Context, name: string): [string, string][] {
 		if (eq <= 0) throw new UsageError(`--${name} takes name=value pairs, not "${item}"`);
 		return [item.slice(0, eq).trim(), item.slice(eq + 1).trim()];
 	});
-}
-
-function describeFsError(err: unknown, path: string): string {
-	const code = (err as { code?: unknown } | null)?.code;
-	if (code === 'ENOENT') return `cannot read "${path}": no such file`;
-	if (code === 'EISDIR') return `cannot read "${path}": it is a folder`;
-	if (code === 'EACCES') return `cannot read "${path}": permission denied`;
-	return `cannot read "${path}": ${(err as Error)?.message ?? String(err)}`;
 }
 
 async function readText(ctx: Context, path: string): Promise<string> {
@@ -78,7 +70,7 @@ export interface DataInput {
 export async function runOnData(ctx: Context, usage: string, extra: Partial<DataCheckOptions> = {}): Promise<DataInput> {
 	if (ctx.positionals.length !== 2) throw new UsageError(`expected a diagram file and a data file (usage: ${usage})`);
 	const [diagramPath, dataPath] = ctx.positionals;
-	let diagram = readDiagramText(diagramPath, await readText(ctx, diagramPath));
+	let diagram = await readDiagramInput(ctx.io, diagramPath);
 	const q = ctx.question();
 	diagram = { ...diagram, exposures: q.exposures ?? diagram.exposures, outcomes: q.outcomes ?? diagram.outcomes };
 	const mapping: Record<string, string | null> = {};

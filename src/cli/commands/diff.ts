@@ -1,31 +1,21 @@
 /** `causeway diff`: compare two diagrams of the same question. */
-import { readFile } from 'node:fs/promises';
 import type { Diagram } from '../../lib/graph/diagram';
-import { readDiagramBytes, readDiagramText } from '../../lib/graph/read-file';
 import { compareDiagrams } from '../../lib/causal';
 import { setWords } from '../../lib/wording';
 import { UsageError } from '../io';
+import { readDiagramInput } from '../read-input';
 import type { Command, Context } from '../command';
+import { SUMMARY } from '../summaries';
 
 const id = (x: string) => x;
 
-async function readDiagram(ctx: Context, path: string): Promise<Diagram> {
-	// Same reading rules as the other commands: injected text in tests, else bytes decoded strictly.
-	let input: string | Uint8Array;
-	try {
-		input = ctx.io.readFile ? await ctx.io.readFile(path) : await readFile(path);
-	} catch (err) {
-		const code = (err as { code?: unknown } | null)?.code;
-		const why = code === 'ENOENT' ? 'no such file' : code === 'EISDIR' ? 'it is a folder' : code === 'EACCES' ? 'permission denied' : (err as Error).message;
-		throw new UsageError(`cannot read "${path}": ${why}`);
-	}
-	return typeof input === 'string' ? readDiagramText(path, input) : readDiagramBytes(path, input);
-}
+/** Same reading rules and limits as the other commands (read-input.ts). */
+const readDiagram = (ctx: Context, path: string): Promise<Diagram> => readDiagramInput(ctx.io, path);
 
 const arrowList = (arrows: readonly { from: string; to: string }[]) => arrows.map((a) => `${a.from} → ${a.to}`).join(', ');
 
 export const diff: Command = {
-	summary: 'compare two diagrams: variables, arrows, minimal sets and the verdict on the planned set',
+	summary: SUMMARY.diff,
 	usage: 'causeway diff FIRST SECOND [--json]',
 	details: `Compares two diagrams (for example the authors' and a reviewer's). Variables are matched by
 id, then by label (ignoring case, spaces, "_", "-" and "."), then id against label, then by

@@ -10,11 +10,12 @@ import { QUESTION, QUESTION_HELP } from '../command';
 import { printConfounderCheck, printStandardized } from './confounder-print';
 import { COMMON_DATA_PRINT, kindOf, type Command } from './data-print';
 import { CAUTION, DATA_HELP, DATA_OPTIONS, reportJson, runOnData } from './data-input';
+import { SUMMARY } from '../summaries';
 
 const USAGE = 'causeway estimate DIAGRAM DATA.csv [--adjust a,b] [--exposure x] [--outcome y] [--map …] [--type …] [--max N] [--summary] [--json]';
 
 export const estimateCommand: Command = {
-	summary: 'crude vs adjusted estimates of the effect, for each sufficient set and the planned set',
+	summary: SUMMARY.estimate,
 	usage: USAGE,
 	details: `Estimates the effect of the exposure on the outcome: an odds ratio from logistic regression
 for a binary outcome, a difference from linear regression otherwise; crude, then adjusted for

@@ -18,6 +18,7 @@ import { labelLookup } from '../../lib/wording';
 import { needsLayout, tidyPositions, withPositions } from '../../lib/layout';
 import { UsageError } from '../io';
 import { QUESTION, QUESTION_HELP, type Command, type Context } from '../command';
+import { SUMMARY } from '../summaries';
 
 const FORMAT_NAMES = Object.keys(EXPORT_FORMATS).join('|');
 
@@ -57,7 +58,7 @@ function withQuestion(d: Diagram, q: { exposures?: string[]; outcomes?: string[]
 }
 
 export const exportCommand: Command = {
-	summary: 'export the figure, tables or the protocol report',
+	summary: SUMMARY.export,
 	usage: `causeway export DIAGRAM --format ${FORMAT_NAMES} [-o OUT] [options]`,
 	details: `Writes one export of the diagram (to OUT, or to standard output when -o is left out or "-"):
   svg            the figure (vector, text as text, role badges and legend)

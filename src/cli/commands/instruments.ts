@@ -1,9 +1,10 @@
 /** `causeway instruments`: conditional instruments for the exposure, with their conditioning sets. */
 import { conditionalInstruments } from '../../lib/causal';
 import { QUESTION, QUESTION_HELP, type Command } from '../command';
+import { SUMMARY } from '../summaries';
 
 export const instruments: Command = {
-	summary: 'list conditional instruments for the exposure with their conditioning sets',
+	summary: SUMMARY.instruments,
 	usage: 'causeway instruments DIAGRAM [--exposure x] [--outcome y] [--json]',
 	details: `Lists the measured variables that are instruments for the total effect of the (single)
 exposure on the (single) outcome, each with a conditioning set: ancestral instruments found

@@ -2,11 +2,12 @@
 import { efficiencyAdvice, reviewAdjustment } from '../../lib/causal';
 import { arrowTest, reasonWords, reviewVerdict, setWords } from '../../lib/wording';
 import { QUESTION, QUESTION_HELP, type Command } from '../command';
+import { SUMMARY } from '../summaries';
 
 const id = (x: string) => x;
 
 export const review: Command = {
-	summary: 'review a stated adjustment set: verdict, reasons, fixes (exit 1 when not sufficient)',
+	summary: SUMMARY.review,
 	usage: 'causeway review DIAGRAM [--adjust a,b] [--exposure …] [--outcome …] [--json]',
 	details: `Reviews the set a paper adjusted for (--adjust, else the file's planned set) for the total
 effect, by the adjustment criterion (Shpitser, VanderWeele & Robins 2010). Prints the verdict

@@ -2,11 +2,12 @@
 import { planRobustness, setsRobustToAdditions } from '../../lib/causal';
 import { setWords, weaknessWords } from '../../lib/wording';
 import { QUESTION, QUESTION_HELP, type Command } from '../command';
+import { SUMMARY } from '../summaries';
 
 const id = (x: string) => x;
 
 export const robust: Command = {
-	summary: 'stress-test the planned set against single changes to the diagram (exit 1 when the set is not sufficient to begin with)',
+	summary: SUMMARY.robust,
 	usage: 'causeway robust DIAGRAM [--adjust a,b] [--max N] [--exposure …] [--outcome …] [--json]',
 	details: `Lists every single change to the assumptions that would make the planned set (--adjust,
 else the file's) insufficient: adding one missing arrow (keeping the diagram acyclic),

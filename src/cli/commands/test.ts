@@ -7,13 +7,14 @@ import { COMMON_DATA_PRINT, kindOf, twoWayLines, type Command } from './data-pri
 import { formatNumber, formatP, pText, resultText, smallSizeRule, testSummary } from '../../lib/wording';
 import { CAUTION, DATA_HELP, DATA_OPTIONS, reportJson, runOnData } from './data-input';
 import { UsageError } from '../io';
+import { SUMMARY } from '../summaries';
 
 const USAGE = 'causeway test DIAGRAM DATA.csv [--map var=column,…] [--type column=kind,…] [--alpha 0.05] [--max N] [--summary] [--json]';
 
 const SUPPORT_WORD = { supported: 'supported', weak: 'weak', absent: 'not found', untested: 'not tested' } as const;
 
 export const testCommand: Command = {
-	summary: "check the diagram's arrows and implied independencies against data",
+	summary: SUMMARY.test,
 	usage: USAGE,
 	details: `For every arrow between two variables with data: the marginal association (test chosen by
 the column kinds), its size in the measure one reads (odds ratio per level against the

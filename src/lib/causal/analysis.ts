@@ -96,11 +96,12 @@ export function dSeparation(d: Diagram, from: readonly string[], to: readonly st
 	return { separated: r.separated, path: r.path && named(g, r.path) };
 }
 
-/** Roles of every variable for the question, in the diagram's order. */
-export function variableRoles(d: Diagram, opts: QuestionOptions = {}): VariableRoles[] {
+/** Roles of every variable for the question, in the diagram's order (or of the `only` ones, in their order). */
+export function variableRoles(d: Diagram, opts: QuestionOptions & { only?: readonly string[] } = {}): VariableRoles[] {
 	const { g, X, Y } = prepare(d, opts);
-	return variableRoleDetailsIdx(g, X, Y).map((r, i) => {
-		const out: VariableRoles = { id: g.ids[i], roles: r.roles };
+	const only = opts.only && indicesFor(g, opts.only, 'variable');
+	return variableRoleDetailsIdx(g, X, Y, only).map((r, i) => {
+		const out: VariableRoles = { id: g.ids[only ? only[i] : i], roles: r.roles };
 		if (r.adjustWith !== null) out.adjustWith = sortIds(r.adjustWith.map((w) => g.ids[w]));
 		if (r.undecided) out.confounderUndecided = true;
 		return out;

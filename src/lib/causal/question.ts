@@ -4,9 +4,9 @@
  * output. Shared by the façade modules (analysis.ts, reviewer.ts). O(n + m).
  */
 import type { Diagram } from '../graph/diagram';
-import { compileDiagram, type CompiledDag } from '../graph/compiled';
+import { compileIndexed, type CompiledDag } from '../graph/compiled';
 import { InputError } from '../graph/errors';
-import { validateDiagram, type DiagramIssue } from '../graph/validate';
+import { inspectDiagram, type DiagramIssue } from '../graph/validate';
 
 export interface QuestionOptions {
 	exposures?: string[];
@@ -42,10 +42,18 @@ export function compareSets(a: readonly string[], b: readonly string[]): number 
 
 /** Throws InputError for the first structural error (duplicate ids, unknown ends, cycles). */
 export function compileChecked(d: Diagram): CompiledDag {
-	const errors = validateDiagram(d).filter((issue) => issue.code !== 'missing-exposure' && issue.code !== 'missing-outcome');
-	const blocking = errors.filter((issue) => STRUCTURAL.has(issue.code));
+	const { issues, resolved } = inspectDiagram(d);
+	const blocking = issues.filter((issue) => STRUCTURAL.has(issue.code));
 	if (blocking.length > 0) throw new InputError(blocking[0].message);
-	return compileDiagram(d);
+	// Without structural problems ids are unique and every arrow end is a variable, so the
+	// indices validation resolved are the compiled form's (O(n + m), no second pass over ids).
+	return compileIndexed(
+		d.variables.map((v) => v.id),
+		resolved.indexOf,
+		resolved.tail,
+		resolved.head,
+		d.variables.map((v) => v.measured)
+	);
 }
 
 export const STRUCTURAL: ReadonlySet<DiagramIssue['code']> = new Set<DiagramIssue['code']>(['duplicate-id', 'unknown-arrow-end', 'self-loop', 'cycle']);

@@ -16,14 +16,14 @@
  *   d-separated from Y once the arrows out of X are cut (the usual instrument conditions);
  * - precision: causes Y by a path avoiding X, is no ancestor or descendant of X and is
  *   d-separated from X (adjusting it can only sharpen the estimate; Henckel et al. 2022).
- * O(n (n + m)) for all but the confounder test: one flow or one d-separation test per
- * variable; confounders.ts gives the cost of that one.
+ * O(n + m) for all but the collider and confounder tests (the d-separations given the empty
+ * set are one reachability pass for all variables); the collider test is one flow search per
+ * variable, O(n + m) each, with early exits; confounders.ts gives the cost of its test.
  */
 import type { CompiledDag } from '../graph/compiled';
 import type { Role } from './types';
 import { confounderMembershipIdx } from './confounders';
-import { dSeparated } from './dsep';
-import { ancestorsOf, descendantsOf, maskOf, withoutArrows, type Mask } from './reach';
+import { ancestorsOf, descendantsOf, maskOf, membersOf, withoutArrows, type Mask } from './reach';
 
 /**
  * Tests "is v a collider on some simple path between X and Y (interior avoiding X ∪ Y)?" for
@@ -62,24 +62,27 @@ export function colliderTester(g: CompiledDag, inX: Mask, inY: Mask): (v: number
 	}
 	const toNode = Int32Array.from(to);
 	const nextArc = Int32Array.from(next);
-	const baseCap = Int8Array.from(base);
-	const cap = new Int8Array(baseCap.length);
+	const cap = Int8Array.from(base);
 	const via = new Int32Array(nodes);
-	const seen = new Uint8Array(nodes);
+	// Per-query state is reset by what the query touched, not by refilling whole arrays: the
+	// refills (capacities, marks, a fresh array per query) were O(n + m) per variable even when
+	// the search stopped after a few steps (node --cpu-prof on 10,000 variables).
+	const seenIn = new Int32Array(nodes); // search number that last marked the node
+	let search = 0;
+	const changed: number[] = []; // arcs whose capacity the augmentations changed
 	const parentOfV = new Uint8Array(n);
+	const usedParent = new Uint8Array(n);
 	const queue = new Int32Array(nodes);
 	return (v: number): boolean => {
 		if (g.parentStart[v + 1] - g.parentStart[v] < 2) return false;
-		cap.set(baseCap);
 		for (let k = g.parentStart[v]; k < g.parentStart[v + 1]; k++) parentOfV[g.parentList[k]] = 1;
 		// Each parent reaches the sink through its out-node once (a unit per parent).
-		const usedParent = new Uint8Array(n);
 		let flow = 0;
 		while (flow < 2) {
-			seen.fill(0);
+			search++;
 			let tail = 0;
 			queue[tail++] = source;
-			seen[source] = 1;
+			seenIn[source] = search;
 			let end = -1;
 			for (let i = 0; i < tail && end === -1; i++) {
 				const a = queue[i];
@@ -89,8 +92,8 @@ export function colliderTester(g: CompiledDag, inX: Mask, inY: Mask): (v: number
 				}
 				for (let e = head[a]; e !== -1; e = nextArc[e]) {
 					const b = toNode[e];
-					if (seen[b] || cap[e] <= 0 || b >> 1 === v) continue;
-					seen[b] = 1;
+					if (seenIn[b] === search || cap[e] <= 0 || b >> 1 === v) continue;
+					seenIn[b] = search;
 					via[b] = e;
 					queue[tail++] = b;
 				}
@@ -100,10 +103,19 @@ export function colliderTester(g: CompiledDag, inX: Mask, inY: Mask): (v: number
 			for (let b = end; b !== source; b = toNode[via[b] ^ 1]) {
 				cap[via[b]] -= 1;
 				cap[via[b] ^ 1] += 1;
+				changed.push(via[b]);
 			}
 			flow++;
 		}
-		for (let k = g.parentStart[v]; k < g.parentStart[v + 1]; k++) parentOfV[g.parentList[k]] = 0;
+		for (const e of changed) {
+			cap[e] = base[e];
+			cap[e ^ 1] = base[e ^ 1];
+		}
+		changed.length = 0;
+		for (let k = g.parentStart[v]; k < g.parentStart[v + 1]; k++) {
+			parentOfV[g.parentList[k]] = 0;
+			usedParent[g.parentList[k]] = 0;
+		}
 		return flow === 2;
 	};
 }
@@ -112,18 +124,28 @@ export function variableRolesIdx(g: CompiledDag, X: readonly number[], Y: readon
 	return variableRoleDetailsIdx(g, X, Y).map((r) => r.roles);
 }
 
-/** Roles, and for each confounder the rest of one minimal sufficient set containing it. */
-export function variableRoleDetailsIdx(g: CompiledDag, X: readonly number[], Y: readonly number[]): { roles: Role[]; adjustWith: number[] | null; undecided: boolean }[] {
-	const membership = confounderMembershipIdx(g, X, Y);
-	const roles = rolesWithout(g, X, Y, membership.member);
-	return roles.map((r, v) => ({
-		roles: r,
+/**
+ * Roles, and for each confounder the rest of one minimal sufficient set containing it; for the
+ * variables in `only` (in that order) when given, else for every variable. Asking for k
+ * variables costs O(k (n + m)) for the per-variable tests instead of O(n (n + m)).
+ */
+export function variableRoleDetailsIdx(
+	g: CompiledDag,
+	X: readonly number[],
+	Y: readonly number[],
+	only?: readonly number[]
+): { roles: Role[]; adjustWith: number[] | null; undecided: boolean }[] {
+	const which = only ?? Array.from({ length: g.n }, (_, v) => v);
+	const membership = confounderMembershipIdx(g, X, Y, { candidates: which });
+	const roles = rolesWithout(g, X, Y, membership.member, which);
+	return which.map((v, i) => ({
+		roles: roles[i],
 		adjustWith: membership.member[v] ? (membership.witness[v] ?? []).filter((w) => w !== v) : null,
 		undecided: membership.undecided[v] === 1
 	}));
 }
 
-function rolesWithout(g: CompiledDag, X: readonly number[], Y: readonly number[], confounder: Uint8Array): Role[][] {
+function rolesWithout(g: CompiledDag, X: readonly number[], Y: readonly number[], confounder: Uint8Array, which: readonly number[]): Role[][] {
 	const n = g.n;
 	const inX = maskOf(n, X);
 	const inY = maskOf(n, Y);
@@ -137,9 +159,16 @@ function rolesWithout(g: CompiledDag, X: readonly number[], Y: readonly number[]
 	const belowY = descendantsOf(g, Y);
 	const aboveX = ancestorsOf(g, X);
 	const cutOutOfX = withoutArrows(g, (from) => inX[from] === 1);
+	// Given the empty set, v and a set S are d-connected exactly when a path without colliders
+	// joins them, i.e. when they have a common ancestor (a trek; Spirtes, Glymour & Scheines,
+	// Causation, Prediction, and Search, 2000): v ∈ De(An(S)). One pass for all variables,
+	// O(n + m), instead of one d-separation test per variable — which was 28% of `roles` on
+	// 10,000 variables (node --cpu-prof) and O(n (n + m)) in all.
+	const linkedToYWithoutX = descendantsOf(cutOutOfX, membersOf(ancestorsOf(cutOutOfX, Y)));
+	const linkedToX = descendantsOf(g, membersOf(ancestorsOf(g, X)));
 	const isCollider = colliderTester(g, inX, inY);
 
-	return Array.from({ length: n }, (_, v): Role[] => {
+	return which.map((v): Role[] => {
 		if (inX[v]) return ['exposure'];
 		if (inY[v]) return ['outcome'];
 		const roles: Role[] = [];
@@ -150,8 +179,8 @@ function rolesWithout(g: CompiledDag, X: readonly number[], Y: readonly number[]
 		if (isCollider(v)) roles.push('collider');
 		if (belowY[v]) roles.push('descendant-of-outcome');
 		if (belowX[v] && !mediator) roles.push('descendant-of-exposure');
-		if (!belowX[v] && aboveX[v] && !toYAvoidingX[v] && dSeparated(cutOutOfX, [v], Y, []).separated) roles.push('instrument-like');
-		if (toYAvoidingX[v] && !aboveX[v] && !belowX[v] && dSeparated(g, [v], X, []).separated) roles.push('precision');
+		if (!belowX[v] && aboveX[v] && !toYAvoidingX[v] && !linkedToYWithoutX[v]) roles.push('instrument-like');
+		if (toYAvoidingX[v] && !aboveX[v] && !belowX[v] && !linkedToX[v]) roles.push('precision');
 		if (roles.length === 0) roles.push('unrelated');
 		return roles;
 	});

@@ -28,14 +28,11 @@ export class UnknownVariableError extends Error {
 
 /** Builds the CSR form from plain lists. Arrows must name existing ids (O(n + m)). */
 export function compileDag(ids: readonly string[], arrows: readonly { from: string; to: string }[], measured?: readonly boolean[]): CompiledDag {
-	const n = ids.length;
 	const indexOf = new Map<string, number>();
 	ids.forEach((id, i) => indexOf.set(id, i));
 	const m = arrows.length;
 	const from = new Int32Array(m);
 	const to = new Int32Array(m);
-	const indeg = new Int32Array(n);
-	const outdeg = new Int32Array(n);
 	for (let e = 0; e < m; e++) {
 		const f = indexOf.get(arrows[e].from);
 		const t = indexOf.get(arrows[e].to);
@@ -43,8 +40,28 @@ export function compileDag(ids: readonly string[], arrows: readonly { from: stri
 		if (t === undefined) throw new UnknownVariableError(arrows[e].to, `Arrow ${e + 1}`);
 		from[e] = f;
 		to[e] = t;
-		outdeg[f]++;
-		indeg[t]++;
+	}
+	return compileIndexed(ids, indexOf, from, to, measured);
+}
+
+/**
+ * The CSR form from arrows already given as indices (ids unique, every end a variable: what a
+ * diagram without structural problems gives, validate.ts inspectDiagram). O(n + m).
+ */
+export function compileIndexed(
+	ids: readonly string[],
+	indexOf: ReadonlyMap<string, number>,
+	from: Int32Array,
+	to: Int32Array,
+	measured?: readonly boolean[]
+): CompiledDag {
+	const n = ids.length;
+	const m = from.length;
+	const indeg = new Int32Array(n);
+	const outdeg = new Int32Array(n);
+	for (let e = 0; e < m; e++) {
+		outdeg[from[e]]++;
+		indeg[to[e]]++;
 	}
 	const parentStart = new Int32Array(n + 1);
 	const childStart = new Int32Array(n + 1);

@@ -31,8 +31,8 @@ import { parse, type AttributeASTNode, type GraphASTNode, type ClusterStatementA
 import { DATA_KINDS, isEmptyVariableData, isUnsafeKey, type Arrow, type DataKind, type Diagram, type Extra, type Variable, type VariableData } from './diagram';
 import { describePosition, InputError, lineColumn, quote } from './errors';
 import { validateDiagram } from './validate';
-import { assertDiagramTextSize, assertDiagramWithinLimits } from './size-limits';
-import { describeCount, MAX_ARROWS, MAX_DOT_NESTING, MAX_VARIABLES } from '../limits';
+import { APP_READ_LIMITS, assertDiagramTextSize, assertDiagramWithinLimits, type ReadLimits } from './size-limits';
+import { describeCount, MAX_DOT_NESTING } from '../limits';
 
 // ---------------------------------------------------------------------------------------------
 // Text codecs
@@ -268,8 +268,8 @@ interface Scope {
  * Reads a DOT digraph. Throws InputError naming the line and column of a syntax error, of an
  * undirected graph or edge, or of a Causeway attribute with a bad value (role, measured, pos).
  */
-export function parseDot(text: string): Diagram {
-	assertDiagramTextSize(text);
+export function parseDot(text: string, limits: ReadLimits = APP_READ_LIMITS): Diagram {
+	assertDiagramTextSize(text, limits);
 	const source = text.charCodeAt(0) === 0xfeff ? ' ' + text.slice(1) : text;
 	if (source.trim() === '') throw new InputError('The file is empty: expected a DOT digraph', '1:1');
 	const { text: guarded, restore } = protectLineBreaksInStrings(source);
@@ -310,7 +310,7 @@ export function parseDot(text: string): Diagram {
 	const ensureNode = (id: string, scope: Scope): NodeInfo => {
 		let node = nodes.get(id);
 		if (!node) {
-			if (nodes.size >= MAX_VARIABLES) throw tooManyVariables();
+			if (nodes.size >= limits.variables) throw tooManyVariables(limits);
 			node = { id, attrs: new Map(scope.nodeDefaults) };
 			nodes.set(id, node);
 		}
@@ -350,9 +350,9 @@ export function parseDot(text: string): Diagram {
 				const groups = stmt.targets.map(refsOf);
 				// Groups multiply ({a b} -> {c d} is four arrows): count before expanding, so a
 				// small hostile file cannot ask for billions of arrows (strict graphs merge repeats,
-				// hence the allowance beyond MAX_ARROWS).
+				// hence the allowance beyond the arrow limit).
 				for (let g = 0; g + 1 < groups.length; g++) expanded += groups[g].length * groups[g + 1].length;
-				if (expanded > 4 * MAX_ARROWS) throw tooManyArrows();
+				if (expanded > 4 * limits.arrows) throw tooManyArrows(limits);
 				for (const group of groups) for (const ref of group) ensureNode(literal(ref.id), scope);
 				const explicit: [string, Attr][] = [];
 				for (const a of stmt.children) if (a.type === 'Attribute') explicit.push(attrOf(a));
@@ -389,7 +389,7 @@ export function parseDot(text: string): Diagram {
 
 	function addEdge(edge: EdgeInfo): void {
 		if (!strictIndex) {
-			if (edges.length >= MAX_ARROWS) throw tooManyArrows();
+			if (edges.length >= limits.arrows) throw tooManyArrows(limits);
 			edges.push(edge);
 			return;
 		}
@@ -398,7 +398,7 @@ export function parseDot(text: string): Diagram {
 		const existing = strictIndex.get(key);
 		if (existing) for (const [k, v] of edge.attrs) existing.attrs.set(k, v);
 		else {
-			if (edges.length >= MAX_ARROWS) throw tooManyArrows();
+			if (edges.length >= limits.arrows) throw tooManyArrows(limits);
 			strictIndex.set(key, edge);
 			edges.push(edge);
 		}
@@ -406,14 +406,16 @@ export function parseDot(text: string): Diagram {
 
 	const graphName = graph.id ? literal(graph.id) : '';
 	const diagram = toDiagram(graphName, graphAttrs, [...nodes.values()], edges, at);
-	assertDiagramWithinLimits(diagram);
+	assertDiagramWithinLimits(diagram, limits);
 	return diagram;
 }
 
 type At = (offset: number) => { phrase: string; where: string };
 
-const tooManyVariables = () => new InputError(`The DOT file names more than ${describeCount(MAX_VARIABLES)} nodes; Causeway handles at most ${describeCount(MAX_VARIABLES)} variables`, 'variables');
-const tooManyArrows = () => new InputError(`The DOT file makes more than ${describeCount(MAX_ARROWS)} edges; Causeway handles at most ${describeCount(MAX_ARROWS)} arrows`, 'arrows');
+const tooManyVariables = (l: ReadLimits) =>
+	new InputError(`The DOT file names more than ${describeCount(l.variables)} nodes; ${l.reader} handles at most ${describeCount(l.variables)} variables${l.hint}`, 'variables');
+const tooManyArrows = (l: ReadLimits) =>
+	new InputError(`The DOT file makes more than ${describeCount(l.arrows)} edges; ${l.reader} handles at most ${describeCount(l.arrows)} arrows${l.hint}`, 'arrows');
 
 function dotSyntaxError(e: unknown, at: At): InputError {
 	const cause = e instanceof Error ? e.cause : undefined;

@@ -9,7 +9,43 @@
  */
 import type { Diagram, VariableData } from './diagram';
 import { InputError, quote } from './errors';
-import { describeBytes, describeCount, MAX_ARROWS, MAX_DIAGRAM_CHARS, MAX_LABEL_CHARS, MAX_NOTE_CHARS, MAX_VALUE_LABELS, MAX_VARIABLES } from '../limits';
+import {
+	CLI_MAX_ARROWS,
+	CLI_MAX_DIAGRAM_BYTES,
+	CLI_MAX_VARIABLES,
+	describeBytes,
+	describeCount,
+	MAX_ARROWS,
+	MAX_DIAGRAM_CHARS,
+	MAX_LABEL_CHARS,
+	MAX_NOTE_CHARS,
+	MAX_VALUE_LABELS,
+	MAX_VARIABLES
+} from '../limits';
+
+/**
+ * How large a diagram a reader accepts, and who says so in the refusal: the app (the default
+ * everywhere) or the command line, whose limits are larger because it draws nothing.
+ */
+export interface ReadLimits {
+	variables: number;
+	arrows: number;
+	/** Longest text, in characters. */
+	chars: number;
+	/** Who refuses, as the messages say it: "Causeway handles at most …". */
+	reader: string;
+	/** Said after a count refusal, e.g. where a larger limit applies; may be empty. */
+	hint: string;
+}
+
+export const APP_READ_LIMITS: ReadLimits = { variables: MAX_VARIABLES, arrows: MAX_ARROWS, chars: MAX_DIAGRAM_CHARS, reader: 'Causeway', hint: '' };
+export const CLI_READ_LIMITS: ReadLimits = {
+	variables: CLI_MAX_VARIABLES,
+	arrows: CLI_MAX_ARROWS,
+	chars: CLI_MAX_DIAGRAM_BYTES,
+	reader: 'the causeway command',
+	hint: ' (its limit for pipelines; see docs/cli.md)'
+};
 
 /** The fields with a length limit, and their limit. */
 export const TEXT_LIMITS = {
@@ -59,11 +95,16 @@ export function variableDataProblem(name: string, data: VariableData | undefined
 	return null;
 }
 
-/** Refuses a diagram text longer than MAX_DIAGRAM_CHARS before any parsing work is done. */
-export function assertDiagramTextSize(text: string): void {
-	if (text.length > MAX_DIAGRAM_CHARS) {
-		throw new InputError(`The file is too large: ${describeBytes(text.length)} of text, but a diagram file may have at most ${describeBytes(MAX_DIAGRAM_CHARS)}`);
-	}
+/** Refuses a diagram text longer than the limit (MAX_DIAGRAM_CHARS in the app) before any parsing work is done. */
+export function assertDiagramTextSize(text: string, limits: ReadLimits = APP_READ_LIMITS): void {
+	if (text.length > limits.chars) throw diagramTooLarge(describeBytes(text.length), limits);
+}
+
+/** "The file is too large: 70 MiB of text, but …", for a text or a byte count. */
+export function diagramTooLarge(size: string, limits: ReadLimits = APP_READ_LIMITS): InputError {
+	return limits === APP_READ_LIMITS
+		? new InputError(`The file is too large: ${size} of text, but a diagram file may have at most ${describeBytes(limits.chars)}`)
+		: new InputError(`The file is too large: ${size}, but ${limits.reader} reads at most ${describeBytes(limits.chars)} of diagram${limits.hint}`);
 }
 
 function tooLong(what: string, length: number, max: number, where: string): InputError {
@@ -71,20 +112,21 @@ function tooLong(what: string, length: number, max: number, where: string): Inpu
 }
 
 /** Refuses a diagram with more variables or arrows than the limits, or an over-long text field. */
-export function assertDiagramWithinLimits(d: Diagram): void {
-	if (d.variables.length > MAX_VARIABLES) {
-		throw new InputError(`The diagram has ${describeCount(d.variables.length)} variables; Causeway handles at most ${describeCount(MAX_VARIABLES)}`, 'variables');
+export function assertDiagramWithinLimits(d: Diagram, limits: ReadLimits = APP_READ_LIMITS): void {
+	if (d.variables.length > limits.variables) {
+		throw new InputError(`The diagram has ${describeCount(d.variables.length)} variables; ${limits.reader} handles at most ${describeCount(limits.variables)}${limits.hint}`, 'variables');
 	}
-	if (d.arrows.length > MAX_ARROWS) {
-		throw new InputError(`The diagram has ${describeCount(d.arrows.length)} arrows; Causeway handles at most ${describeCount(MAX_ARROWS)}`, 'arrows');
+	if (d.arrows.length > limits.arrows) {
+		throw new InputError(`The diagram has ${describeCount(d.arrows.length)} arrows; ${limits.reader} handles at most ${describeCount(limits.arrows)}${limits.hint}`, 'arrows');
 	}
 	if (d.title.length > MAX_LABEL_CHARS) throw tooLong('The title', d.title.length, MAX_LABEL_CHARS, 'title');
 	d.variables.forEach((v, i) => {
-		const name = `Variable ${i + 1} (${quote(v.id)})`;
+		// The name is built only when needed: 100,000 variables are checked in milliseconds.
+		const name = () => `Variable ${i + 1} (${quote(v.id)})`;
 		if (v.id.length > MAX_LABEL_CHARS) throw tooLong(`The id of variable ${i + 1} (${quote(v.id)})`, v.id.length, MAX_LABEL_CHARS, `variables[${i}].id`);
-		if (v.label.length > MAX_LABEL_CHARS) throw tooLong(`The label of ${name}`, v.label.length, MAX_LABEL_CHARS, `variables[${i}].label`);
-		if (v.note !== undefined && v.note.length > MAX_NOTE_CHARS) throw tooLong(`The note of ${name}`, v.note.length, MAX_NOTE_CHARS, `variables[${i}].note`);
-		const data = variableDataProblem(name, v.data);
+		if (v.label.length > MAX_LABEL_CHARS) throw tooLong(`The label of ${name()}`, v.label.length, MAX_LABEL_CHARS, `variables[${i}].label`);
+		if (v.note !== undefined && v.note.length > MAX_NOTE_CHARS) throw tooLong(`The note of ${name()}`, v.note.length, MAX_NOTE_CHARS, `variables[${i}].note`);
+		const data = v.data && variableDataProblem(name(), v.data);
 		if (data) throw new InputError(data, `variables[${i}].data`);
 	});
 	d.arrows.forEach((a, i) => {

@@ -52,6 +52,13 @@ export function decodeTextFile(bytes: Uint8Array): string {
 	if (nul >= 0) {
 		throw new InputError(`This is a binary file, not text (a NUL byte at byte ${nul + 1}); expected a Causeway diagram (JSON) or a DOT file saved as UTF-8`);
 	}
+	// The engine's own strict decoder is fast (about 10× the scan below on a 12 MiB file,
+	// measured in bench/cli.ts); the scan runs only to say where a refused file goes wrong.
+	try {
+		return new TextDecoder('utf-8', { fatal: true }).decode(bytes);
+	} catch {
+		// fall through to find the first bad byte
+	}
 	const bad = firstInvalidUtf8(bytes);
 	if (bad >= 0) {
 		const before = new TextDecoder('utf-8').decode(bytes.subarray(0, bad));

@@ -16,7 +16,7 @@ describe('causeway sets', () => {
 		expect(r.code).toBe(0);
 		expect(r.err).toBe('');
 		const j = JSON.parse(r.out);
-		expect(Object.keys(j)).toEqual(['exposures', 'outcomes', 'effect', 'identifiable', 'sets', 'truncated', 'optimal', 'minimum']);
+		expect(Object.keys(j)).toEqual(['exposures', 'outcomes', 'effect', 'identifiable', 'sets', 'truncated', 'max', 'optimal', 'minimum']);
 		expect(j.sets).toEqual([['age', 'diet', 'income']]);
 		expect(j.identifiable).toBe(true);
 		expect(j.effect).toBe('total');
@@ -195,7 +195,7 @@ describe('convert and the installed command', () => {
 });
 
 describe('the bundled command in a pipeline', () => {
-	it('ends quietly when the reader closes the pipe early (`causeway claims big.json | head -1`)', () => {
+	it('says in one line, exit 2, when the reader closes the pipe early (`causeway claims big.json | head -1`)', () => {
 		const dir = mkdtempSync(join(tmpdir(), 'causeway-pipe-'));
 		const file = join(dir, 'chain.json');
 		// A 400-variable chain implies 79,401 claims: far more output than one pipe buffer.
@@ -211,6 +211,7 @@ describe('the bundled command in a pipeline', () => {
 		);
 		const run = spawnSync('bash', ['-c', `node bin/causeway.js claims "${file}" | head -1; echo "status \${PIPESTATUS[0]}" >&2`], { encoding: 'utf8' });
 		expect(run.stdout).toMatch(/^v0 ⟂ v2 \| v1\n$/);
-		expect(run.stderr).toBe('status 0\n');
+		// Output that did not reach its reader is a failure a pipeline must be able to see.
+		expect(run.stderr).toBe('causeway: cannot write the output: the reader closed the pipe (EPIPE)\nstatus 2\n');
 	});
 });
