@@ -12,7 +12,7 @@ import { InputError } from '../lib/graph/errors';
 import { writeDiagramJson } from '../lib/graph/native-json';
 import {
 	adjustmentSets,
-	checkAdjustment,
+	checkFirst,
 	dSeparation,
 	exposureOutcomePaths,
 	impliedClaims,
@@ -97,7 +97,10 @@ ${QUESTION_HELP}`,
 		options: { ...QUESTION, adjust: { type: 'string', multiple: true } },
 		async run(ctx) {
 			const d = await ctx.diagram();
-			const r = checkAdjustment(d, { ...ctx.question(), adjusted: ctx.list('adjust') });
+			// The reasons list at most 50 open paths and the count is not printed, so the search
+			// stops there (`causeway paths` counts them): on 100,000 variables counting to 10,000
+			// took 25 s.
+			const r = checkFirst(d, { ...ctx.question(), adjusted: ctx.list('adjust') });
 			if (ctx.json) {
 				ctx.printJson({ adjusted: r.adjusted, valid: r.valid, problems: r.problems });
 			} else {

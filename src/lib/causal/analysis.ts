@@ -161,13 +161,14 @@ export function checkAndPaths(
  * (both rest on the adjustment criterion); the app shows this at once and the exact count and
  * the listing from checkAndPaths when they follow. O(n + m) plus maxProblemPaths path delays.
  */
-export function checkFirst(d: Diagram, opts: QuestionOptions & { maxProblemPaths?: number } = {}): AdjustmentCheck {
+export function checkFirst(d: Diagram, opts: QuestionOptions & { adjusted?: string[]; maxProblemPaths?: number } = {}): AdjustmentCheck {
 	const { g, X, Y } = prepare(d, opts);
-	const Z = indicesFor(g, d.adjusted, 'adjusted variable');
+	const adjusted = opts.adjusted ?? d.adjusted;
+	const Z = indicesFor(g, adjusted, 'adjusted variable');
 	const maxProblemPaths = opts.maxProblemPaths ?? 50;
 	const ends = new Set([...X, ...Y]);
 	const open = openNonCausalPathsIdx(g, X, Y, Z.filter((z) => !ends.has(z)), { keep: maxProblemPaths, countCap: maxProblemPaths });
-	return checkById(g, X, Y, d.adjusted, Z, maxProblemPaths, open);
+	return checkById(g, X, Y, adjusted, Z, maxProblemPaths, open);
 }
 
 /** The independencies the diagram implies, one per non-adjacent pair of measured variables. */
