@@ -38,3 +38,25 @@ test('a 1,000-variable chain without positions is laid out and drawn, and Tidy l
 	expect(await counts(page)).toEqual({ variables: N, arrows: N - 1 });
 	expect(errors).toEqual([]);
 });
+
+test('a diagram too large to fit at the smallest zoom opens on its top-left corner', async ({ page }) => {
+	test.setTimeout(300_000);
+	// 1,000 variables on a grid of 40 columns, 170 px apart: 6,800 px wide, more than the canvas
+	// holds at the smallest zoom. The clamped fit used to leave its top-left corner mid-screen.
+	const cols = 40;
+	const grid = {
+		...chain,
+		title: 'A grid of 1,000 variables',
+		variables: chain.variables.map((v, i) => ({ ...v, x: (i % cols) * 170, y: Math.floor(i / cols) * 110 }))
+	};
+	await openEmpty(page);
+	await page.locator('header.toolbar input[type=file]').setInputFiles({ name: 'grid.json', mimeType: 'application/json', buffer: Buffer.from(JSON.stringify(grid)) });
+	await expect.poll(() => counts(page), { timeout: 90_000 }).toEqual({ variables: N, arrows: N - 1 });
+	await page.getByRole('button', { name: 'Fit' }).click();
+	const canvasBox = (await page.getByRole('application', { name: 'Diagram canvas' }).boundingBox())!;
+	const first = await nodeCentre(page, 'v0');
+	expect(first.x).toBeGreaterThan(canvasBox.x);
+	expect(first.x).toBeLessThan(canvasBox.x + canvasBox.width / 4);
+	expect(first.y).toBeGreaterThan(canvasBox.y);
+	expect(first.y).toBeLessThan(canvasBox.y + canvasBox.height / 4);
+});
