@@ -4,6 +4,7 @@
  * with 95 % CIs, the change from crude, warnings and the E-value of the planned estimate.
  * Same pipeline as the app's data pane.
  */
+import { own } from '../../lib/stats/own';
 import { braces } from '../../lib/datacheck';
 import { DATA_VIEW_TEXT, formatCi, formatCount, formatNumber, formatPercent } from '../../lib/wording';
 import { QUESTION, QUESTION_HELP } from '../command';
@@ -52,7 +53,7 @@ ${QUESTION_HELP}`,
 			return 0;
 		}
 		const kind = kindOf(report);
-		const columnOf = (id: string) => report.mapping.columns[id] ?? id;
+		const columnOf = (id: string) => own(report.mapping.columns, id) ?? id;
 		ctx.print(`\nEffect of ${e.exposure} on ${e.outcome}: ${e.measure} (${e.model} regression), 95 % CI`);
 		const width = Math.max(...e.rows.map((r) => r.label.length));
 		// Sufficiency is judged on the diagram as the data see it: variables without a column are unmeasured.

@@ -5,6 +5,7 @@
  * A weak or absent association is reported, never hidden. Cost: one association test per
  * arrow, O(n) or O(n log n) each.
  */
+import { own } from '../stats/own';
 import type { Diagram } from '../graph/diagram';
 import { associate, completeRows, StatsError, type Column, type TestResult } from '../stats';
 import { pictureData } from './pictures';
@@ -123,10 +124,10 @@ export function checkArrows(diagram: Diagram, columnOf: (name: string) => Column
 	const skipped: ArrowChecks['skipped'] = [];
 	diagram.arrows.forEach((a, index) => {
 		options.onProgress?.(index, diagram.arrows.length);
-		const cf = mapping.columns[a.from];
-		const ct = mapping.columns[a.to];
+		const cf = own(mapping.columns, a.from);
+		const ct = own(mapping.columns, a.to);
 		if (cf === undefined || ct === undefined) {
-			const missing = [a.from, a.to].filter((id) => mapping.columns[id] === undefined);
+			const missing = [a.from, a.to].filter((id) => own(mapping.columns, id) === undefined);
 			skipped.push({ from: a.from, to: a.to, why: `no data for ${missing.map((id) => `"${id}"`).join(' and ')}` });
 			return;
 		}

@@ -1,3 +1,4 @@
+import { mappedColumn } from './mapping';
 /**
  * Claim checks: each independence the diagram implies among variables with data
  * (src/lib/causal/claims.ts, on the diagram as the data see it) tested on the data
@@ -8,6 +9,7 @@
  * would remove it without closing a cycle are suggested. Cost: one test per claim plus
  * O(m log m) for the adjustments.
  */
+import { own } from '../stats/own';
 import type { Diagram } from '../graph/diagram';
 import { findCycle } from '../graph/validate';
 import { impliedClaims } from '../causal';
@@ -90,7 +92,7 @@ export function checkClaims(seen: Diagram, columnOf: (name: string) => Column, m
 	const listed = impliedClaims(seen, { max: options.max === undefined ? undefined : options.max + 1 });
 	const truncated = options.max !== undefined && listed.length > options.max;
 	const claims = truncated ? listed.slice(0, options.max) : listed;
-	const col = (id: string) => columnOf(mapping.columns[id]);
+	const col = (id: string) => columnOf(mappedColumn(mapping, id));
 	return claimFamily(
 		claims,
 		(a, b, given) => {

@@ -1,3 +1,4 @@
+import { mappedColumn } from './mapping';
 /**
  * The classic numeric check of each candidate confounder, for every candidate at once: is it
  * associated with the exposure, is it associated with the outcome (each in the measure a
@@ -11,6 +12,7 @@
  * whether a variable is a confounder, only describe these associations.
  * Cost per candidate: two association tests, two regression fits, O(n) for the strata.
  */
+import { own } from '../stats/own';
 import type { Diagram } from '../graph/diagram';
 import { InputError } from '../graph/errors';
 import { variableRoles } from '../causal';
@@ -63,14 +65,14 @@ export function checkConfounders(seen: Diagram, columnOf: (name: string) => Colu
 	if (seen.exposures.length !== 1 || seen.outcomes.length !== 1) return null;
 	const [xId] = seen.exposures;
 	const [yId] = seen.outcomes;
-	if (mapping.columns[xId] === undefined || mapping.columns[yId] === undefined) return null;
-	const x = columnOf(mapping.columns[xId]);
-	const y = columnOf(mapping.columns[yId]);
+	if (own(mapping.columns, xId) === undefined || own(mapping.columns, yId) === undefined) return null;
+	const x = columnOf(mappedColumn(mapping, xId));
+	const y = columnOf(mappedColumn(mapping, yId));
 	const roles = new Map(variableRoles(seen).map((r) => [r.id, r]));
 	const candidates: CandidateCheck[] = [];
 	for (const v of seen.variables) {
-		if (v.id === xId || v.id === yId || mapping.columns[v.id] === undefined) continue;
-		const c = columnOf(mapping.columns[v.id]);
+		if (v.id === xId || v.id === yId || own(mapping.columns, v.id) === undefined) continue;
+		const c = columnOf(mappedColumn(mapping, v.id));
 		const r = roles.get(v.id);
 		const rs = r?.roles ?? [];
 		const preExposure = !rs.includes('mediator') && !rs.includes('descendant-of-exposure') && !rs.includes('descendant-of-outcome');

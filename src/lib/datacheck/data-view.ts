@@ -6,6 +6,7 @@
  * the Adjustment section without saying why. Pure; O(n + m) for the verdict plus the capped
  * listing of sets (van der Zander et al. 2019, via the engine's façade).
  */
+import { own } from '../stats/own';
 import type { Diagram } from '../graph/diagram';
 import { InputError } from '../graph/errors';
 import { adjustmentSets, checkAdjustment, type AdjustmentCheck, type AdjustmentSets } from '../causal';
@@ -26,7 +27,7 @@ export interface DataView {
  * diagram has no question the engine can answer.
  */
 export function dataView(d: Diagram, mapping: Pick<VariableMapping, 'columns'>, maxSets = 3): DataView | null {
-	const noColumn = d.variables.filter((v) => v.measured && mapping.columns[v.id] === undefined).map((v) => v.id);
+	const noColumn = d.variables.filter((v) => v.measured && own(mapping.columns, v.id) === undefined).map((v) => v.id);
 	if (noColumn.length === 0 || d.exposures.length === 0 || d.outcomes.length === 0) return null;
 	const seen = dataDiagram(d, mapping);
 	try {

@@ -1,3 +1,4 @@
+import { mappedColumn } from './mapping';
 /**
  * Crude versus adjusted estimates of the exposure's effect: logistic regression odds ratios
  * for a binary outcome, linear regression differences otherwise (src/lib/stats/regression/
@@ -8,6 +9,7 @@
  * percent (a 10 % change is a common-practice marker); the planned row gets the E-value
  * (VanderWeele & Ding, Ann Intern Med 2017). Cost: two regression fits per set shown.
  */
+import { own } from '../stats/own';
 import type { Diagram } from '../graph/diagram';
 import { InputError } from '../graph/errors';
 import { adjustmentSets, checkAdjustment, compareSets, sortIds } from '../causal';
@@ -72,7 +74,7 @@ export function estimateQuestion(seen: Diagram, columns: Readonly<Record<string,
 		[exposure, 'exposure'],
 		[outcome, 'outcome']
 	] as const)
-		if (columns[id] === undefined) return { message: `No estimate: the ${role} "${id}" ${missing}.` };
+		if (own(columns, id) === undefined) return { message: `No estimate: the ${role} "${id}" ${missing}.` };
 	return { exposure, outcome };
 }
 
@@ -139,7 +141,7 @@ export function estimateEffects(seen: Diagram, columnOf: (name: string) => Colum
 	const question = estimateQuestion(seen, mapping.columns, 'has no column in the data');
 	if ('message' in question) return { estimates: null, message: question.message };
 	const { exposure: exposureId, outcome: outcomeId } = question;
-	const col = (id: string) => columnOf(mapping.columns[id]);
+	const col = (id: string) => columnOf(mappedColumn(mapping, id));
 	const outcome = col(outcomeId);
 	const exposure = col(exposureId);
 	const listing = adjustmentSets(seen, { max: options.maxSets ?? 20 });
@@ -156,7 +158,7 @@ export function estimateEffects(seen: Diagram, columnOf: (name: string) => Colum
 	for (const w of wanted) {
 		const label = rowLabel(w.roles, w.set);
 		const blank = { roles: w.roles, label, adjustedFor: w.set, n: 0, term: exposure.name, estimate: NaN, ci: [NaN, NaN] as [number, number], pValue: NaN, crudeSameRows: null, crudeSameRowsCi: null, changePercent: null, changeMarked: false, standardized: null, warnings: [] };
-		const noData = w.set.filter((id) => mapping.columns[id] === undefined);
+		const noData = w.set.filter((id) => own(mapping.columns, id) === undefined);
 		if (noData.length > 0) {
 			rows.push({ ...blank, sufficient: false, message: `Not estimated: no column for ${noData.map((id) => `"${id}"`).join(', ')}.` });
 			continue;

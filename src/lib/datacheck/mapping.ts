@@ -4,6 +4,7 @@
  * claims and adjustment sets use only what the data hold. O(variables + columns) after the
  * name matching (src/lib/stats/table/match-columns.ts).
  */
+import { own } from '../stats/own';
 import type { Diagram } from '../graph/diagram';
 import { InputError } from '../graph/errors';
 // The module itself, not the stats barrel: the app's Adjustment section uses this file up front.
@@ -33,7 +34,7 @@ export function mapVariables(diagram: Diagram, columnNames: readonly string[], o
 	}
 	const taken = new Map<string, string>();
 	for (const v of measured) {
-		const manual = overrides[v.id];
+		const manual = own(overrides, v.id);
 		if (manual === undefined || manual === null) continue;
 		const other = taken.get(manual);
 		if (other !== undefined) throw new InputError(`Column "${manual}" is linked to both "${other}" and "${v.id}"`);
@@ -42,8 +43,8 @@ export function mapVariables(diagram: Diagram, columnNames: readonly string[], o
 		by[v.id] = 'manual';
 	}
 	const used = new Set(Object.values(columns));
-	const ambiguous = auto.ambiguous.filter((a) => columns[a.variableId] === undefined);
-	const unmapped = measured.map((v) => v.id).filter((id) => columns[id] === undefined);
+	const ambiguous = auto.ambiguous.filter((a) => own(columns, a.variableId) === undefined);
+	const unmapped = measured.map((v) => v.id).filter((id) => own(columns, id) === undefined);
 	const notes: string[] = [];
 	if (unmapped.length > 0)
 		notes.push(
@@ -64,6 +65,16 @@ export function mapVariables(diagram: Diagram, columnNames: readonly string[], o
 export function dataDiagram(diagram: Diagram, mapping: Pick<VariableMapping, 'columns'>): Diagram {
 	return {
 		...diagram,
-		variables: diagram.variables.map((v) => (v.measured && mapping.columns[v.id] === undefined ? { ...v, measured: false } : v))
+		variables: diagram.variables.map((v) => (v.measured && own(mapping.columns, v.id) === undefined ? { ...v, measured: false } : v))
 	};
+}
+
+/**
+ * The column linked to a variable the caller knows is linked (the seen diagram's measured
+ * variables all are); read as an own property, so ids such as "constructor" are just names.
+ */
+export function mappedColumn(mapping: VariableMapping, id: string): string {
+	const name = own(mapping.columns, id);
+	if (name === undefined) throw new Error(`no column is linked to "${id}"`);
+	return name;
 }

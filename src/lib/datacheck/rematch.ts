@@ -3,6 +3,7 @@
  * columns the new diagram's variables are linked to, which measured variables found none, and
  * which columns used before are no longer used. Pure, O(variables + columns).
  */
+import { own } from '../stats/own';
 import type { Diagram } from '../graph/diagram';
 import type { DataCheckReport } from './types';
 
@@ -22,12 +23,10 @@ export function rematchDifferences(before: Diagram, beforeReport: DataCheckRepor
 	const usedAfter = new Set(Object.values(afterReport.mapping.columns));
 	return {
 		source,
-		linked: after.variables
-			.filter((v) => afterReport.mapping.columns[v.id] !== undefined)
-			.map((v) => {
-				const column = afterReport.mapping.columns[v.id];
-				return { label: v.label, column, before: usedBefore.get(column) ?? null };
-			}),
+		linked: after.variables.flatMap((v) => {
+			const column = own(afterReport.mapping.columns, v.id);
+			return column === undefined ? [] : [{ label: v.label, column, before: usedBefore.get(column) ?? null }];
+		}),
 		unlinked: afterReport.mapping.unmapped.map((id) => label(after, id)),
 		dropped: [...usedBefore].filter(([column]) => !usedAfter.has(column)).map(([column, was]) => ({ column, before: was }))
 	};

@@ -3,6 +3,7 @@
  * read of the file): numbers ↔ levels, binary / categorical / ordinal. Each change is
  * checked and refused with a one-line message naming the column. O(rows) per column.
  */
+import { own } from '../stats/own';
 import { codedColumn, DEFAULT_LEVEL_CAP, StatsError, type Column, type ColumnKind, type Table } from '../stats';
 import type { TypeOverrides } from './types';
 
@@ -42,7 +43,10 @@ export function retypeTable(table: Table, overrides: TypeOverrides, levelCap = D
 	for (const name of Object.keys(overrides))
 		if (!names.has(name)) throw new StatsError(`A type is given for column '${name}', which is not in the data.`, { column: name });
 	if (Object.keys(overrides).length === 0) return table;
-	return { ...table, columns: table.columns.map((c) => (overrides[c.name] ? retypeColumn(c, overrides[c.name], levelCap) : c)) };
+	return { ...table, columns: table.columns.map((c) => {
+		const kind = own(overrides, c.name);
+		return kind ? retypeColumn(c, kind, levelCap) : c;
+	}) };
 }
 
 /** A variable's level settings, applied to its column: reference level first, values named. */

@@ -10,6 +10,7 @@
  * cannot be analysed (cycle, unknown arrow ends) or a bad mapping, StatsError for a bad
  * column kind. Cost: one test per arrow and per claim, two fits per estimate row.
  */
+import { own } from '../stats/own';
 import type { Diagram } from '../graph/diagram';
 import { InputError } from '../graph/errors';
 import { validateDiagram } from '../graph/validate';
@@ -74,7 +75,7 @@ function numbersInFile(c: Column): boolean {
 export function analysedColumns(diagram: Diagram, mapping: VariableMapping, columnOf: (name: string) => Column, original: Table): AnalysedColumn[] {
 	const read = new Map(original.columns.map((c) => [c.name, c]));
 	return diagram.variables.flatMap((v) => {
-		const name = mapping.columns[v.id];
+		const name = own(mapping.columns, v.id);
 		if (name === undefined) return [];
 		const c = columnOf(name);
 		const file = read.get(name) ?? c;

@@ -11,6 +11,7 @@
  * `note` (the app: the setting is left out for this table, the report says so, and the user
  * can fix it in the Data section). O(variables + columns), plus O(rows) per changed column.
  */
+import { own } from '../stats/own';
 import type { Diagram } from '../graph/diagram';
 import { InputError } from '../graph/errors';
 import { StatsError, type Column, type ColumnKind, type Table } from '../stats';
@@ -102,13 +103,13 @@ export function applyDataSettings(diagram: Diagram, table: Table, input: Setting
 		const id = variableOf.get(column.name);
 		const data = id === undefined ? undefined : byVariable.get(id)?.data;
 		let c = column;
-		const kind = types[column.name] ?? data?.kind;
+		const kind = own(types, column.name) ?? data?.kind;
 		if (kind !== undefined) {
 			try {
 				c = retypeColumn(c, kind);
 				chosen.add(column.name);
 			} catch (e) {
-				if (types[column.name] !== undefined) throw e; // a flag is the user's explicit word now
+				if (own(types, column.name) !== undefined) throw e; // a flag is the user's explicit word now
 				note(e, `Its detected kind (${column.kind}) is used.`);
 			}
 		}
@@ -134,7 +135,7 @@ export function applyDataSettings(diagram: Diagram, table: Table, input: Setting
 		return {
 			variable,
 			column: name,
-			by: mapping.by[variable],
+			by: own(mapping.by, variable) ?? 'manual',
 			kind: c.kind,
 			kindChosen: chosen.has(name),
 			reference: c.kind === 'continuous' ? null : (c.levels[0] ?? null),

@@ -14,6 +14,7 @@
  *   sd,11,10,3               optional (turns correlations into covariances)
  * A matrix with 1 on every diagonal cell is read as correlations, else as covariances.
  */
+import { own } from '../stats/own';
 import Papa from 'papaparse';
 import type { Diagram } from '../graph/diagram';
 import { adjustmentSets, checkAdjustment, impliedClaims } from '../causal';
@@ -88,18 +89,20 @@ function summaryEstimates(seen: Diagram, s: SummaryStatistics, columns: Record<s
 	const question = estimateQuestion(seen, columns, 'is not in the summary matrix');
 	if ('message' in question) return { estimates: null, message: question.message };
 	const { exposure: x, outcome: y } = question;
+	// estimateQuestion has found both columns; the sets' members are checked row by row below.
+	const col = (id: string) => own(columns, id) ?? id;
 	const listing = adjustmentSets(seen, { max: options.maxSets ?? 20 });
 	const wanted = setsToEstimate(listing, options.planned ?? seen.adjusted);
 	const fit = (set: string[]) => {
-		const r = linearRegressionFromSummary(s, columns[y], [columns[x], ...set.map((id) => columns[id])]);
-		return r.coefficients.find((c) => c.name === columns[x]) ?? null;
+		const r = linearRegressionFromSummary(s, col(y), [col(x), ...set.map(col)]);
+		return r.coefficients.find((c) => c.name === col(x)) ?? null;
 	};
 	const crude = fit([]);
 	const notes = ['From a summary matrix: linear regression on the second moments (every variable taken as continuous); no per-row checks (separation, missing values) are possible.'];
 	if (s.type === 'correlation' && !s.sds) notes.push('Correlations without SDs: standardized coefficients.');
 	const rows: EstimateRow[] = wanted.map((w) => {
-		const blank = { roles: w.roles, label: rowLabel(w.roles, w.set), adjustedFor: w.set, n: s.n, term: columns[x], estimate: NaN, ci: [NaN, NaN] as [number, number], pValue: NaN, crudeSameRows: null, crudeSameRowsCi: null, changePercent: null, changeMarked: false, standardized: null, sufficient: false, warnings: [] };
-		const missing = w.set.filter((id) => columns[id] === undefined);
+		const blank = { roles: w.roles, label: rowLabel(w.roles, w.set), adjustedFor: w.set, n: s.n, term: col(x), estimate: NaN, ci: [NaN, NaN] as [number, number], pValue: NaN, crudeSameRows: null, crudeSameRowsCi: null, changePercent: null, changeMarked: false, standardized: null, sufficient: false, warnings: [] };
+		const missing = w.set.filter((id) => own(columns, id) === undefined);
 		if (missing.length > 0) return { ...blank, message: `Not estimated: ${missing.map((id) => `"${id}"`).join(', ')} not in the matrix.` };
 		const sufficient = checkAdjustment(seen, { adjusted: w.set }).valid;
 		try {

@@ -7,6 +7,7 @@
  * chunk. Time O(characters). Rows in messages are rows of the file, 1-based, with the
  * header as row 1 (as a spreadsheet numbers them); blank lines are skipped but counted.
  */
+import { own } from '../own';
 import Papa from 'papaparse';
 import { StatsError } from '../errors';
 import { missingTest, trimCell, type MissingTest } from './cells';
@@ -313,8 +314,8 @@ class TableReader {
 					{
 						name,
 						position: j + 1,
-						declared: this.options.types?.[name],
-						levelOrder: this.options.levelOrder?.[name],
+						declared: own(this.options.types, name),
+						levelOrder: own(this.options.levelOrder, name),
 						levelCap: this.levelCap,
 						decimalComma: this.decimalComma,
 						isMissing: this.isMissing
