@@ -44,7 +44,7 @@ function study(names: readonly string[]): { diagram: Diagram; csv: string } {
 function checks(names: readonly string[]) {
 	const { diagram, csv } = study(names);
 	const parsed = parseTable(csv);
-	if (!parsed.ok) throw new Error(parsed.message);
+	if (!parsed.ok) throw new Error(parsed.error.message);
 	const r = runDataChecks(diagram, parsed.table);
 	const rename = (s: string) => names.reduce((acc, n, i) => acc.split(n).join(`#${i}`), s);
 	return {
