@@ -145,12 +145,9 @@ export function checkAndPaths(
 	d: Diagram,
 	opts: QuestionOptions & { maxPaths?: number; maxProblemPaths?: number } = {}
 ): { check: AdjustmentCheck; paths: PathListing } {
-	const { g, X, Y } = prepare(d, opts);
-	const Z = indicesFor(g, d.adjusted, 'adjusted variable');
 	const max = listedPaths(opts.maxPaths);
 	const maxProblemPaths = opts.maxProblemPaths ?? 50;
-	const ends = new Set([...X, ...Y]);
-	const open = openNonCausalPathsIdx(g, X, Y, Z.filter((z) => !ends.has(z)), { keep: Math.max(max, maxProblemPaths) });
+	const { g, X, Y, Z, open } = openPathsOfPlan(d, opts, d.adjusted, { keep: Math.max(max, maxProblemPaths) });
 	return { check: checkById(g, X, Y, d.adjusted, Z, maxProblemPaths, open), paths: pathsById(g, X, Y, Z, max, open) };
 }
 
@@ -162,13 +159,18 @@ export function checkAndPaths(
  * the listing from checkAndPaths when they follow. O(n + m) plus maxProblemPaths path delays.
  */
 export function checkFirst(d: Diagram, opts: QuestionOptions & { adjusted?: string[]; maxProblemPaths?: number } = {}): AdjustmentCheck {
-	const { g, X, Y } = prepare(d, opts);
 	const adjusted = opts.adjusted ?? d.adjusted;
-	const Z = indicesFor(g, adjusted, 'adjusted variable');
 	const maxProblemPaths = opts.maxProblemPaths ?? 50;
-	const ends = new Set([...X, ...Y]);
-	const open = openNonCausalPathsIdx(g, X, Y, Z.filter((z) => !ends.has(z)), { keep: maxProblemPaths, countCap: maxProblemPaths });
+	const { g, X, Y, Z, open } = openPathsOfPlan(d, opts, adjusted, { keep: maxProblemPaths, countCap: maxProblemPaths });
 	return checkById(g, X, Y, adjusted, Z, maxProblemPaths, open);
+}
+
+/** The question in indices and its open non-causal paths under `adjusted` (exposure and outcome left out of Z). */
+function openPathsOfPlan(d: Diagram, opts: QuestionOptions, adjusted: readonly string[], search: { keep: number; countCap?: number }) {
+	const { g, X, Y } = prepare(d, opts);
+	const Z = indicesFor(g, adjusted, 'adjusted variable');
+	const ends = new Set([...X, ...Y]);
+	return { g, X, Y, Z, open: openNonCausalPathsIdx(g, X, Y, Z.filter((z) => !ends.has(z)), search) };
 }
 
 /** The independencies the diagram implies, one per non-adjacent pair of measured variables. */

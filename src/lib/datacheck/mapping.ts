@@ -73,7 +73,7 @@ export function dataDiagram(diagram: Diagram, mapping: Pick<VariableMapping, 'co
  * The column linked to a variable the caller knows is linked (the seen diagram's measured
  * variables all are); read as an own property, so ids such as "constructor" are just names.
  */
-export function mappedColumn(mapping: VariableMapping, id: string): string {
+export function mappedColumn(mapping: Pick<VariableMapping, 'columns'>, id: string): string {
 	const name = own(mapping.columns, id);
 	if (name === undefined) throw new Error(`no column is linked to "${id}"`);
 	return name;

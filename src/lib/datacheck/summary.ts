@@ -22,7 +22,7 @@ import { linearRegressionFromSummary, partialCorrelationFromSummary, StatsError,
 import { associationStrength, DEFAULT_ALPHA, SMALL_STRENGTH, supportOf } from './arrow-checks';
 import { claimFamily } from './claim-checks';
 import { estimateQuestion, rowLabel, setsToEstimate, type EstimatesOutcome } from './estimates';
-import { dataDiagram, mapVariables } from './mapping';
+import { dataDiagram, mappedColumn, mapVariables } from './mapping';
 import { settingsMapping, type SettingProblems } from './settings';
 import type { ArrowCheck, DataCheckReport, EstimateRow, MappingOverrides } from './types';
 
@@ -90,7 +90,7 @@ function summaryEstimates(seen: Diagram, s: SummaryStatistics, columns: Record<s
 	if ('message' in question) return { estimates: null, message: question.message };
 	const { exposure: x, outcome: y } = question;
 	// estimateQuestion has found both columns; the sets' members are checked row by row below.
-	const col = (id: string) => own(columns, id) ?? id;
+	const col = (id: string) => mappedColumn({ columns }, id);
 	const listing = adjustmentSets(seen, { max: options.maxSets ?? 20 });
 	const wanted = setsToEstimate(listing, options.planned ?? seen.adjusted);
 	const fit = (set: string[]) => {

@@ -82,8 +82,7 @@ export interface AppAnalysis extends Analysis {
 }
 
 /** The verdict part. O(n + m) plus the capped path listing. */
-export function analyseVerdict(d: Diagram, limits: AnalysisLimits = DEFAULT_LIMITS): VerdictPart {
-	const issues = validateDiagram(d, { needQuestion: true });
+export function analyseVerdict(d: Diagram, limits: AnalysisLimits = DEFAULT_LIMITS, issues = validateDiagram(d, { needQuestion: true })): VerdictPart {
 	if (issues.length > 0) return { issues, ready: false, check: null, paths: null };
 	// One search for the open non-causal paths feeds the verdict and the Paths section.
 	return { issues, ready: true, ...checkAndPaths(d, { maxPaths: limits.maxPaths }) };

@@ -18,7 +18,7 @@ function compute(request: PartRequest): PartResult {
 			const started = performance.now();
 			const first = analyseVerdictFirst(diagram);
 			post({ id, kind: 'first', ms: performance.now() - started, part, value: first });
-			return { part, value: first.ready ? analyseVerdict(diagram, limits) : first };
+			return { part, value: first.ready ? analyseVerdict(diagram, limits, first.issues) : first };
 		}
 		case 'sets':
 			return { part, value: analyseSets(diagram, limits) };
