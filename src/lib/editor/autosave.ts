@@ -117,7 +117,7 @@ export function firstVisit(storage: StorageLike): boolean {
 	}
 }
 
-/** Who wrote the autosaved diagram last: `tab id:serial`, stored beside the diagram. */
+/** Who wrote the autosaved diagram last, and when: `tab id:serial:ms since the epoch`, stored beside the diagram. */
 export const AUTOSAVE_STAMP_KEY = 'causeway.autosave.stamp.v1';
 
 /** Another tab (or window) saved to the same slot since this tab last read or wrote it. */
@@ -131,6 +131,10 @@ export interface AutosaverOptions {
 	tabId?: string;
 	/** Called once per change by another tab; saving pauses until keepMine or takeTheirs. */
 	onConflict?: (conflict: AutosaveConflict) => void;
+	/** Hands every stored text to a second, crash-safe copy (editor/durable-copy.ts). */
+	mirror?: (copy: { text: string; stamp: string; savedAt: number }) => void;
+	/** The clock (tests). */
+	now?: () => number;
 }
 
 /**
@@ -177,10 +181,12 @@ export function createAutosaver(storage: StorageLike, delayMs = 400, onError?: (
 			}
 			// Never replace a stored diagram by an empty one the user did not make so.
 			if (!deliberate && isBlankDiagram(d) && stored !== null) return;
-			const stamp = `${tabId}:${++serial}`;
+			const savedAt = (options.now ?? Date.now)();
+			const stamp = `${tabId}:${++serial}:${savedAt}`;
 			storage.setItem(AUTOSAVE_KEY, text);
 			storage.setItem(AUTOSAVE_STAMP_KEY, stamp);
 			known = stamp;
+			options.mirror?.({ text, stamp, savedAt });
 		} catch (e) {
 			// Quota exceeded or storage disabled: the edit stands, only the backup failed.
 			onError?.(`Autosave failed: ${e instanceof Error ? e.message : String(e)}`);
@@ -245,7 +251,8 @@ export function createAutosaver(storage: StorageLike, delayMs = 400, onError?: (
 
 export type Autosaver = ReturnType<typeof createAutosaver>;
 
-function readStamp(storage: StorageLike): string | null {
+/** The stamp stored beside the autosaved diagram (null when none or storage is disabled). */
+export function readStamp(storage: StorageLike): string | null {
 	try {
 		return storage.getItem(AUTOSAVE_STAMP_KEY);
 	} catch {
