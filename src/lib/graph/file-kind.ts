@@ -36,6 +36,10 @@ export function diagramFileKind(name: string, text: string): DiagramFileKind | n
 export function requireDiagramFileKind(name: string, text: string): DiagramFileKind {
 	const kind = diagramFileKind(name, text);
 	if (kind) return kind;
+	if (text.trim() === '') {
+		const what = name === 'stdin' ? 'Standard input is empty' : 'The file is empty';
+		throw new InputError(`${name}: ${what}: expected a Causeway diagram (JSON) or a DOT digraph`, name);
+	}
 	throw new InputError(
 		`${name}: not a diagram file this version can read: expected a Causeway diagram (.json, starting with "{") or a DOT digraph (.dot or .gv)`,
 		name

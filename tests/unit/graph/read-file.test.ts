@@ -40,4 +40,10 @@ describe('readDiagramText', () => {
 			'notes.txt: not a diagram file this version can read: expected a Causeway diagram (.json, starting with "{") or a DOT digraph (.dot or .gv)'
 		);
 	});
+
+	it('says "empty" for an empty standard input or file whose kind the name does not tell', () => {
+		expect(() => readDiagramText('stdin', '')).toThrow('stdin: Standard input is empty: expected a Causeway diagram (JSON) or a DOT digraph');
+		expect(() => readDiagramText('stdin', ' \n\t\n')).toThrow('stdin: Standard input is empty');
+		expect(() => readDiagramText('diagram', '')).toThrow('diagram: The file is empty: expected a Causeway diagram (JSON) or a DOT digraph');
+	});
 });
