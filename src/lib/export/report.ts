@@ -11,7 +11,7 @@ import { validateDiagram } from '../graph/validate';
 import { adjustmentSets, checkAdjustment, variableRoles } from '../causal';
 import type { AdjustmentCheck, AdjustmentSets, Role, VariableRoles } from '../causal';
 import { ROLE_NAME } from '../wording';
-import { BADGE_MEANING, labelLookup, listNames, optimalSetSentence, pathText, problemText, setText, verdictSentence, type LabelOf } from '../wording';
+import { BADGE_MEANING, labelLookup, listNames, optimalSetSentence, pathText, problemText, setText, unmeasuredQuestionNote, verdictSentence, type LabelOf } from '../wording';
 import { criticalAbsentArrows, withPlannedReasons, type AbsentArrowReport } from '../causal';
 import type { ReportDataResults } from './report-data';
 import { codeBlocks, dataBlocks } from './report-data-blocks';
@@ -308,6 +308,8 @@ export function buildReport(input: ReportInput): ReportModel {
 	if (a.check) {
 		planned.push({ kind: 'verdict', valid: a.check.valid, text: verdictSentence(a.check, label) });
 		if (a.check.problems.length) planned.push({ kind: 'list', items: a.check.problems.map((p) => problemText(p, d, label)) });
+		const unmeasured = unmeasuredQuestionNote(d, label);
+		if (unmeasured) planned.push({ kind: 'paragraph', text: unmeasured });
 	} else planned.push({ kind: 'paragraph', text: 'No verdict yet: the diagram has no exposure and outcome, or is not a valid diagram.' });
 	sections.push({ id: 'planned', heading: 'Planned adjustment and verdict', blocks: planned });
 

@@ -8,7 +8,7 @@
 import Papa from 'papaparse';
 import type { Diagram } from '../graph/diagram';
 import type { AdjustmentCheck, AdjustmentSets, VariableRoles } from '../causal';
-import { labelLookup } from '../wording';
+import { EMPTY_SET, labelLookup } from '../wording';
 import { escapeMarkdownInline } from './escape';
 
 function csv(header: string[], rows: (string | number)[][]): string {
@@ -101,7 +101,10 @@ export function setsMarkdown(d: Diagram, input: SetsTableInput): string {
 	lines.push('| Set | Variables | Size | Sufficient |', '| --- | --- | ---: | --- |');
 	for (const r of setRows(input)) {
 		const name = r.kind === 'minimal' ? `${KIND_TEXT[r.kind]} ${r.number}` : KIND_TEXT[r.kind];
-		lines.push(`| ${name} | ${names(r.ids)} | ${r.ids.length} | ${r.sufficient ? 'yes' : 'no'} |`);
+		// An empty sufficient set means no adjustment is needed; an empty planned set that is not
+		// sufficient is only the empty set (saying "no adjustment needed" beside "no" contradicted itself).
+		const members = r.ids.length === 0 && !r.sufficient ? `${EMPTY_SET} (nothing adjusted for)` : names(r.ids);
+		lines.push(`| ${name} | ${members} | ${r.ids.length} | ${r.sufficient ? 'yes' : 'no'} |`);
 	}
 	if (sets.truncated) lines.push('', `The listing stopped after ${sets.sets.length} sets; more exist.`);
 	return lines.join('\n') + '\n';

@@ -49,3 +49,19 @@ export function verdictSentence(check: AdjustmentCheck, labelOf: LabelOf, counti
 export function capitalise(text: string): string {
 	return text.length === 0 ? text : text[0].toUpperCase() + text.slice(1);
 }
+
+/**
+ * A caution when an exposure or outcome is marked unmeasured: the graphical answer (which
+ * sets block the non-causal paths) does not depend on it, but no estimate can be made from
+ * data that lack the variable, so a "sufficient" verdict alone would mislead. Null otherwise.
+ */
+export function unmeasuredQuestionNote(d: Diagram, labelOf: LabelOf, exposures: readonly string[] = d.exposures, outcomes: readonly string[] = d.outcomes): string | null {
+	const unmeasured = new Set(d.variables.filter((v) => !v.measured).map((v) => v.id));
+	const named = [
+		...[...new Set(exposures)].filter((id) => unmeasured.has(id)).map((id) => `${labelOf(id)} (the exposure)`),
+		...[...new Set(outcomes)].filter((id) => unmeasured.has(id)).map((id) => `${labelOf(id)} (the outcome)`)
+	];
+	if (named.length === 0) return null;
+	const one = named.length === 1;
+	return `${listNames(named)} ${one ? 'is' : 'are'} marked unmeasured: the adjustment sets hold for the diagram, but the effect cannot be estimated from data without ${one ? 'it' : 'them'}.`;
+}

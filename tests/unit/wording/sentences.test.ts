@@ -19,8 +19,10 @@ import {
 	reasonWords,
 	reviewVerdict,
 	setText,
+	unmeasuredQuestionNote,
 	verdictSentence
 } from '../../../src/lib/wording';
+import { setsMarkdown } from '../../../src/lib/export/tables';
 import { braces, pathLine, problemText as cliProblemText } from '../../../src/lib/wording/command-line';
 
 // M-bias with a back door: x ← c → y, x → y, x ← a → m ← b → y (Greenland 2003 for the m part).
@@ -110,5 +112,30 @@ describe('one word per idea', () => {
 	it('claims: one sentence for a pair that no measured set separates', () => {
 		expect(claimSentence({ a: 'a', b: 'b', given: null }, label)).toBe('A and B are not adjacent, but no set of measured variables makes them independent.');
 		expect(claimSentence({ a: 'a', b: 'c', given: ['x', 'y'] }, label)).toBe('A is independent of Age given Cycling and Hypertension.');
+	});
+});
+
+describe('contradictions and silence', () => {
+	it('an exposure or outcome marked unmeasured gets a word beside the verdict', () => {
+		const d = diagram();
+		expect(unmeasuredQuestionNote(d, labelLookup(d))).toBeNull();
+		d.variables = d.variables.map((v) => (v.id === 'x' ? { ...v, measured: false } : v));
+		expect(unmeasuredQuestionNote(d, labelLookup(d))).toBe(
+			'Cycling (the exposure) is marked unmeasured: the adjustment sets hold for the diagram, but the effect cannot be estimated from data without it.'
+		);
+		d.variables = d.variables.map((v) => (v.id === 'y' ? { ...v, measured: false } : v));
+		expect(unmeasuredQuestionNote(d, labelLookup(d))).toBe(
+			'Cycling (the exposure) and Hypertension (the outcome) are marked unmeasured: the adjustment sets hold for the diagram, but the effect cannot be estimated from data without them.'
+		);
+	});
+
+	it('an empty planned set that is not sufficient is not called "no adjustment needed" in the sets table', () => {
+		const d = diagram();
+		const check: AdjustmentCheck = { adjusted: [], valid: false, problems: [{ kind: 'open-path', path: ['x', 'c', 'y'] }], openPaths: { count: 1, bound: 'exact' } };
+		const md = setsMarkdown(d, { sets: { effect: 'total', exposures: ['x'], outcomes: ['y'], identifiable: true, sets: [['c']], truncated: false, minimum: ['c'], optimal: null } as never, check });
+		expect(md).toContain('| Planned set | { } (nothing adjusted for) | 0 | no |');
+		expect(md).not.toContain('no adjustment needed) | 0 | no');
+		const none = setsMarkdown(d, { sets: { effect: 'total', exposures: ['x'], outcomes: ['y'], identifiable: true, sets: [[]], truncated: false, minimum: [], optimal: null } as never, check: { ...check, valid: true, problems: [], openPaths: { count: 0, bound: 'exact' } } });
+		expect(none).toContain('| Planned set | (none: no adjustment needed) | 0 | yes |');
 	});
 });
