@@ -73,6 +73,11 @@ export async function runOnData(ctx: Context, usage: string, extra: Partial<Data
 	let diagram = await readDiagramInput(ctx.io, diagramPath);
 	const q = ctx.question();
 	diagram = { ...diagram, exposures: q.exposures ?? diagram.exposures, outcomes: q.outcomes ?? diagram.outcomes };
+	// As `check` does: a planned variable the diagram does not have is bad input, not a row
+	// that says "Not estimated".
+	const known = new Set(diagram.variables.map((v) => v.id));
+	const unknown = (extra.planned ?? []).find((id) => !known.has(id));
+	if (unknown !== undefined) throw new InputError(`The adjusted variable "${unknown}" is not a variable of the diagram`);
 	const mapping: Record<string, string | null> = {};
 	for (const [v, c] of pairs(ctx, 'map')) mapping[v] = c === '' ? null : c;
 	const types: Record<string, ColumnKind> = {};

@@ -4,6 +4,7 @@
  * with 95 % CIs, the change from crude, warnings and the E-value of the planned estimate.
  * Same pipeline as the app's data pane.
  */
+import { InputError } from '../../lib/graph/errors';
 import { own } from '../../lib/stats/own';
 import { braces } from '../../lib/datacheck';
 import { DATA_VIEW_TEXT, formatCi, formatCount, formatNumber, formatPercent } from '../../lib/wording';
@@ -41,17 +42,16 @@ ${QUESTION_HELP}`,
 	options: { ...DATA_OPTIONS, ...QUESTION, adjust: { type: 'string', multiple: true }, max: { type: 'string' } },
 	async run(ctx) {
 		const { report, dataName } = await runOnData(ctx, USAGE, { planned: ctx.list('adjust'), maxSets: ctx.count('max'), parts: { arrows: false, claims: false } });
+		// Nothing could be estimated (the data lack the exposure or the outcome): bad input, exit 2
+		// as for every other input the command cannot answer, not "done".
+		const e = report.estimates;
+		if (!e) throw new InputError(`${dataName}: ${report.estimatesMessage ?? 'No estimate could be made.'}`);
 		if (ctx.json) {
 			const { mapping, estimates, estimatesMessage, confounders, categoryCodes, columns, format, rowCount, notes } = reportJson(report);
 			ctx.printJson({ mapping, estimates, estimatesMessage, confounders, categoryCodes, columns, format, rowCount, notes });
 			return 0;
 		}
 		COMMON_DATA_PRINT.header(ctx, report, dataName);
-		const e = report.estimates;
-		if (!e) {
-			ctx.print(`\n${report.estimatesMessage}`);
-			return 0;
-		}
 		const kind = kindOf(report);
 		const columnOf = (id: string) => own(report.mapping.columns, id) ?? id;
 		ctx.print(`\nEffect of ${e.exposure} on ${e.outcome}: ${e.measure} (${e.model} regression), 95 % CI`);

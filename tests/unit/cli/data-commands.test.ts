@@ -123,6 +123,20 @@ describe('bad input: one line on stderr, exit 2', () => {
 		expect(one.err).toMatch(/expected a diagram file and a data file/);
 	});
 
+	it('estimate agrees with check on exit statuses: an unknown --adjust variable or data without the outcome is exit 2', async () => {
+		const unknown = await run(['estimate', DEMO, DEMO_CSV, '--adjust', 'age,nosuch']);
+		const check = await run(['check', DEMO, '--adjust', 'age,nosuch']);
+		expect([unknown.code, check.code]).toEqual([2, 2]);
+		expect(unknown.out).toBe('');
+		expect(unknown.err.trim()).toBe('causeway: The adjusted variable "nosuch" is not a variable of the diagram');
+		for (const json of [[], ['--json']]) {
+			const noOutcome = await run(['estimate', DEMO, DEMO_CSV, '--map', 'hypertension=', ...json]);
+			expect(noOutcome.code).toBe(2);
+			expect(noOutcome.out).toBe('');
+			expect(noOutcome.err.trim()).toBe(`causeway: ${DEMO_CSV}: No estimate: the outcome "hypertension" has no column in the data.`);
+		}
+	});
+
 	it('the built command streams a file from disk and keeps to one line on bad input', async () => {
 		const { spawnSync } = await import('node:child_process');
 		const ok = spawnSync('node', ['bin/causeway.js', 'estimate', MTCARS, MTCARS_CSV, '--json'], { encoding: 'utf8' });
