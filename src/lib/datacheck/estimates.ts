@@ -144,6 +144,12 @@ export function estimateEffects(seen: Diagram, columnOf: (name: string) => Colum
 	const col = (id: string) => columnOf(mappedColumn(mapping, id));
 	const outcome = col(outcomeId);
 	const exposure = col(exposureId);
+	// A constant exposure or outcome leaves nothing to compare; said as such rather than as
+	// the model's "left out (collinear)" on every row.
+	for (const [role, id, column] of [['exposure', exposureId, exposure], ['outcome', outcomeId, outcome]] as const) {
+		const only = singleValue(column);
+		if (only !== null) return { estimates: null, message: `No estimate: the ${role} "${id}" has the single value ${only} in every row with data; an effect needs rows that differ in it.` };
+	}
 	const listing = adjustmentSets(seen, { max: options.maxSets ?? 20 });
 	const notes: string[] = [];
 	if (!listing.identifiable) notes.push('With the variables that have data, no adjustment set is sufficient: every adjusted estimate below stays biased under the diagram.');
@@ -221,4 +227,24 @@ export function estimateEffects(seen: Diagram, columnOf: (name: string) => Colum
 		},
 		message: null
 	};
+}
+
+/** The one value of a column whose non-missing entries are all equal (null otherwise, or when all are missing). O(rows). */
+function singleValue(column: Column): string | null {
+	if (column.kind === 'continuous') {
+		let first = NaN;
+		for (const x of column.values) {
+			if (Number.isNaN(x)) continue;
+			if (Number.isNaN(first)) first = x;
+			else if (x !== first) return null;
+		}
+		return Number.isNaN(first) ? null : String(first);
+	}
+	let first = -1;
+	for (const c of column.codes) {
+		if (c < 0) continue;
+		if (first < 0) first = c;
+		else if (c !== first) return null;
+	}
+	return first < 0 ? null : column.levels[first];
 }
