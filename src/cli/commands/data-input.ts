@@ -9,7 +9,7 @@ import { createReadStream } from 'node:fs';
 import { readFile, stat } from 'node:fs/promises';
 import type { Diagram } from '../../lib/graph/diagram';
 import { InputError } from '../../lib/graph/errors';
-import { parseTable, parseTableStream, StatsError, type ColumnKind, type TableSource } from '../../lib/stats';
+import { parseTable, parseTableStream, StatsError, type ColumnKind, type Table, type TableSource } from '../../lib/stats';
 import { parseSummaryMatrix, runDataChecks, runSummaryChecks, SETTINGS_WHERE, type DataCheckOptions, type DataCheckReport } from '../../lib/datacheck';
 import { UsageError } from '../io';
 import { describeFsError, readDiagramInput } from '../read-input';
@@ -60,6 +60,17 @@ async function streamFile(path: string): Promise<TableSource> {
 	return createReadStream(path) as unknown as AsyncIterable<Uint8Array>;
 }
 
+/**
+ * A data file as typed columns, by the one reading path every command shares (streamed from
+ * disk, decoded by the table reader: UTF-8, or UTF-16 after its byte-order mark), so `test`,
+ * `estimate` and `export --data` accept and refuse the same files with the same words.
+ */
+export async function readDataTable(ctx: Context, path: string): Promise<Table> {
+	const parsed = ctx.io.readFile ? parseTable(await readText(ctx, path)) : await parseTableStream(await streamFile(path));
+	if (!parsed.ok) throw new InputError(`${path}: ${parsed.error.message}`);
+	return parsed.table;
+}
+
 export interface DataInput {
 	diagram: Diagram;
 	dataName: string;
@@ -91,9 +102,8 @@ export async function runOnData(ctx: Context, usage: string, extra: Partial<Data
 			const summary = parseSummaryMatrix(await readText(ctx, dataPath));
 			return { diagram, dataName: dataPath, report: runSummaryChecks(diagram, summary, { mapping, ...extra }) };
 		}
-		const parsed = ctx.io.readFile ? parseTable(await readText(ctx, dataPath)) : await parseTableStream(await streamFile(dataPath));
-		if (!parsed.ok) throw new InputError(where(parsed.error));
-		return { diagram, dataName: dataPath, report: runDataChecks(diagram, parsed.table, { mapping, types, ...extra }) };
+		const table = await readDataTable(ctx, dataPath);
+		return { diagram, dataName: dataPath, report: runDataChecks(diagram, table, { mapping, types, ...extra }) };
 	} catch (e) {
 		if (e instanceof StatsError) throw new InputError(where(e));
 		if (e instanceof InputError && e.where === SETTINGS_WHERE) throw new InputError(`${where(e)} (--map overrides the diagram's link)`);

@@ -12,7 +12,7 @@ import { figureOf } from '../../lib/export/figure';
 import { reportAnalysis } from '../../lib/export/report';
 import { checkReportData, type ReportDataResults } from '../../lib/export/report-data';
 import { reportDataFromChecks } from '../../lib/export/from-datacheck';
-import { parseTable } from '../../lib/stats';
+import { readDataTable } from './data-input';
 import { runDataChecks } from '../../lib/datacheck';
 import { labelLookup } from '../../lib/wording';
 import { needsLayout, tidyPositions, withPositions } from '../../lib/layout';
@@ -142,15 +142,11 @@ ${QUESTION_HELP}`,
 		if (typeof ctx.values.data === 'string') {
 			if (data) throw new UsageError('use either --data or --results, not both');
 			const path = ctx.values.data;
-			const parsed = parseTable(await readText(ctx, path, 'data'));
-			if (!parsed.ok) {
-				const e = parsed.error;
-				throw new InputError(`${path}: ${e.message}${e.row !== undefined ? ` (row ${e.row}${e.column ? `, column "${e.column}"` : ''})` : ''}`);
-			}
+			const table = await readDataTable(ctx, path);
 			// The report prints the commands that reproduce its figures (not when --exposure/--outcome changed the question).
 			const q = ctx.question();
 			const files = q.exposures || q.outcomes ? undefined : { diagram: ctx.positionals[0], data: path };
-			data = reportDataFromChecks(runDataChecks(d, parsed.table), labelLookup(d), path.replace(/^.*[/\\]/, ''), { diagram: d, files });
+			data = reportDataFromChecks(runDataChecks(d, table), labelLookup(d), path.replace(/^.*[/\\]/, ''), { diagram: d, files });
 		}
 		const question = d.exposures.length > 0 && d.outcomes.length > 0;
 		const analysis = question || EXPORT_FORMATS[format].needsQuestion ? reportAnalysis(d) : { sets: null, check: null, roles: [] };

@@ -137,6 +137,26 @@ describe('bad input: one line on stderr, exit 2', () => {
 		}
 	});
 
+	it('one reading path: a UTF-16 data file is read alike by test, estimate and export --data (export called it binary)', async () => {
+		const { spawnSync } = await import('node:child_process');
+		const { mkdtempSync, writeFileSync } = await import('node:fs');
+		const { join } = await import('node:path');
+		const { tmpdir } = await import('node:os');
+		const dir = mkdtempSync(join(tmpdir(), 'causeway-utf16-'));
+		const utf16 = join(dir, 'mtcars-utf16.csv');
+		writeFileSync(utf16, Buffer.concat([Buffer.from([0xff, 0xfe]), Buffer.from(readFileSync(MTCARS_CSV, 'utf8'), 'utf16le')]));
+		const cli = (...args: string[]) => spawnSync('node', ['bin/causeway.js', ...args], { encoding: 'utf8' });
+		const plain = cli('estimate', MTCARS, MTCARS_CSV, '--json');
+		const wide = cli('estimate', MTCARS, utf16, '--json');
+		expect([plain.status, wide.status]).toEqual([0, 0]);
+		expect(JSON.parse(wide.stdout).estimates).toEqual(JSON.parse(plain.stdout).estimates);
+		expect(cli('test', MTCARS, utf16).status).toBe(0);
+		const report = cli('export', MTCARS, '--data', utf16, '--format', 'report-md', '-o', join(dir, 'r.md'));
+		expect(report.stderr).toBe('');
+		expect(report.status).toBe(0);
+		expect(readFileSync(join(dir, 'r.md'), 'utf8')).toContain('mtcars-utf16.csv');
+	});
+
 	it('the built command streams a file from disk and keeps to one line on bad input', async () => {
 		const { spawnSync } = await import('node:child_process');
 		const ok = spawnSync('node', ['bin/causeway.js', 'estimate', MTCARS, MTCARS_CSV, '--json'], { encoding: 'utf8' });
