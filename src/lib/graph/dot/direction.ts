@@ -60,7 +60,7 @@ export function orientEdge(edge: DotEdge, at: At): DotEdge {
 	if (head && tail) {
 		throw new InputError(
 			`The edge ${a} -> ${b} at ${p.phrase} has arrowheads at both ends (${set(dirAttr, 'dir=both')}); Causeway reads one-way arrows. ` +
-				`For a common cause of both that was not measured, add it as a variable: U [measured=false]; U -> ${a}; U -> ${b}`,
+				`If ${a} and ${b} share a cause that was not measured, draw it as a variable: U [measured=false]; U -> ${a}; U -> ${b}`,
 			p.where
 		);
 	}
