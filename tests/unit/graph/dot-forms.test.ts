@@ -357,3 +357,22 @@ describe('property: diagrams written with ports, subgraph endpoints, + joins, di
 		);
 	});
 });
+
+describe('property: any sequence of DOT tokens is read or refused with an InputError', () => {
+	const token = fc.constantFrom('digraph', 'strict', 'graph', 'subgraph', 'node', 'edge', '{', '}', '[', ']', '=', ';', ',', ':', '->', '--', '+', 'a', 'b', '"q"', '"x\\"', '<b>', '<', '>', '1', '-', '.5', '//c\n', '/*', '*/', '#', 'dir=back', 'dir=both', '\n', ' ');
+	it('never throws anything else, and a refusal names a line and column or a limit', () => {
+		fc.assert(
+			fc.property(fc.array(token, { maxLength: 40 }), (tokens) => {
+				const text = tokens.join(' ');
+				try {
+					parseDot(`digraph { ${text} }`);
+					parseDot(text);
+				} catch (e) {
+					expect(e).toBeInstanceOf(InputError);
+					expect((e as InputError).message).toMatch(/line \d+, column \d+|The file is empty|more than/);
+				}
+			}),
+			{ numRuns: 2000 }
+		);
+	});
+});

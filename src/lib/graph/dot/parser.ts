@@ -12,7 +12,7 @@
  *   its (sub)graph; an edge gets the `edge [...]` defaults in force where its statement ends; a
  *   subgraph sees its parent's defaults, and a reopened named subgraph keeps its own;
  * - a strict graph merges repeated edges (tail, head), as does an explicit `key` attribute;
- *   later attributes win;
+ *   later attributes win (see addEdge for a key in a strict graph);
  * - `ID = ID` and `graph [...]` at the top level are graph attributes.
  *
  * The parser is a loop over an explicit stack of open (sub)graphs, never recursive: a chain
@@ -115,7 +115,7 @@ export function parseDotGraph(text: string, at: At, limits: ReadLimits): DotGrap
 	const graphAttrs: Attrs = new Map();
 	const nodes = new Map<string, DotNode>();
 	const edges: DotEdge[] = [];
-	const merged = new Map<string, DotEdge>(); // strict graphs and keyed edges: (tail, head[, key]) → edge
+	const merged = new Map<string, { edge: DotEdge; key: string | undefined }>(); // strict graphs and keyed edges: (tail, head[, key]) → edge
 	let expanded = 0; // edges the statements ask for, before merging
 
 	const root: Frame = { sub: newSubgraph(), parent: null, nodeDefaults: new Map(), edgeDefaults: new Map(), open: t.offset, depth: 1, endpoints: [], arrows: [], expect: 'statement' };
@@ -213,15 +213,21 @@ export function parseDotGraph(text: string, at: At, limits: ReadLimits): DotGrap
 		return true;
 	};
 
+	/**
+	 * Graphviz's agedge: a strict graph holds one edge per (tail, head) — a repeat without a key
+	 * adds its attributes to it, a repeat with a key other than that edge's is dropped, attributes
+	 * and all; elsewhere an edge with a key is the same edge as an earlier one with that key.
+	 */
 	const addEdge = (edge: DotEdge, key: string | undefined): void => {
 		const index = strict ? JSON.stringify([edge.from, edge.to]) : key !== undefined ? JSON.stringify([edge.from, edge.to, key]) : null;
 		const existing = index === null ? undefined : merged.get(index);
 		if (existing) {
-			for (const [k, v] of edge.attrs) existing.attrs.set(k, v);
+			if (strict && key !== undefined && existing.key !== key) return;
+			for (const [k, v] of edge.attrs) existing.edge.attrs.set(k, v);
 			return;
 		}
 		if (edges.length >= limits.arrows) throw tooManyArrows(limits);
-		if (index !== null) merged.set(index, edge);
+		if (index !== null) merged.set(index, { edge, key });
 		edges.push(edge);
 	};
 
