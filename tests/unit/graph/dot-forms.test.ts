@@ -9,19 +9,12 @@ import { parseDot, writeDot } from '../../../src/lib/graph/dot';
 import { InputError } from '../../../src/lib/graph/errors';
 import { CLI_READ_LIMITS } from '../../../src/lib/graph/size-limits';
 import { MAX_VARIABLES } from '../../../src/lib/limits';
+import { dotError } from './dot-test-helpers';
 
 const arrows = (text: string) => parseDot(text).arrows.map((a) => `${a.from}>${a.to}`);
 const ids = (text: string) => parseDot(text).variables.map((v) => v.id);
 
-function errorOf(text: string): InputError {
-	try {
-		parseDot(text);
-	} catch (e) {
-		expect(e).toBeInstanceOf(InputError);
-		return e as InputError;
-	}
-	throw new Error('expected an InputError');
-}
+const errorOf = dotError;
 
 describe('ports and compass points (Graphviz keeps them as tailport / headport)', () => {
 	it.each([
@@ -212,28 +205,6 @@ describe('the rest of the language, as Graphviz reads it', () => {
 			{ from: 'a', to: 'b', extra: { key: 'x', color: 'red', style: 'bold' } },
 			{ from: 'a', to: 'b' }
 		]);
-	});
-
-	it.each([
-		['graph { a -- b }', 'This DOT file describes an undirected graph at line 1, column 1; Causeway reads directed graphs only: write digraph { … } with -> arrows', '1:1'],
-		['strict Graph { a -- b }', 'This DOT file describes an undirected graph at line 1, column 1', '1:1'],
-		['digraph {\n  {a -- b} -> c\n}', 'Undirected edge "--" at line 2, column 6: Causeway reads directed graphs only; write -> for an arrow', '2:6'],
-		['digraph { a } digraph { b }', 'Invalid DOT at line 1, column 15: a second graph starts here; Causeway reads one diagram per file', '1:15'],
-		['digraph { a [shape] }', 'Invalid DOT at line 1, column 19: expected = after the attribute name "shape" (name=value), found "]"', '1:19'],
-		['digraph { a: -> b }', 'Invalid DOT at line 1, column 14: expected a port name after "a:", found "->"', '1:14'],
-		['digraph { a:p: -> b }', 'Invalid DOT at line 1, column 16: expected a compass point (n, ne, e, se, s, sw, w, nw, c or _) after the port, found "->"', '1:16'],
-		['digraph { a, -> b }', 'Invalid DOT at line 1, column 14: expected a node name after ",", found "->"', '1:14'],
-		['digraph {\n  a\f-> b\n}', 'Invalid DOT at line 2, column 4: unexpected character the control character U+000C', '2:4'],
-		['digraph { a -> b @ }', 'Invalid DOT at line 1, column 18: unexpected character "@"', '1:18'],
-		['strict { a }', 'Invalid DOT at line 1, column 8: expected digraph after strict, found "{"', '1:8'],
-		['digraph a b { }', 'Invalid DOT at line 1, column 11: expected { after digraph, found "b"', '1:11'],
-		['digraph { a = }', 'Invalid DOT at line 1, column 15: expected a value after "a" =, found "}"', '1:15'],
-		['digraph { ] }', 'Invalid DOT at line 1, column 11: expected a statement (a node, an edge a -> b, an attribute or a subgraph) or }, found "]"', '1:11'],
-		['digraph { a [label=<x] }', 'Invalid DOT at line 1, column 20: this HTML-like string (<…>) is never closed', '1:20']
-	])('refuses %j with its line and column', (text, message, where) => {
-		const e = errorOf(text);
-		expect(e.message).toContain(message);
-		expect(e.where).toBe(where);
 	});
 });
 

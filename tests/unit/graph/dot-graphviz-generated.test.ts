@@ -7,19 +7,12 @@
 // arrowhead); where Graphviz draws some edge with two arrowheads or none, parseDot must refuse
 // the file and name that edge. Then HTML-like labels: the lines parseDot reads must be the
 // rows of text `dot -Tsvg` draws. Skipped where Graphviz is not installed.
-import { execFileSync, spawnSync } from 'node:child_process';
+import { spawnSync } from 'node:child_process';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { parseDot } from '../../../src/lib/graph/dot';
+import { hasGraphviz, xmlText } from './dot-test-helpers';
 
-function hasGraphviz(): boolean {
-	try {
-		execFileSync('dot', ['-V'], { stdio: 'ignore' });
-		return true;
-	} catch {
-		return false;
-	}
-}
 const graphviz = hasGraphviz();
 if (!graphviz) console.warn('Graphviz `dot` not found: skipping the generated-DOT comparison (apt-get install graphviz)');
 
@@ -156,7 +149,7 @@ describe.skipIf(!graphviz)('parseDot agrees with Graphviz on generated DOT', () 
 				// Text pieces top to bottom (cells of one row differ by a pixel or so in y), a row
 				// starting where y jumps by more than 4 px; left to right within a row.
 				const pieces = [...m[2].matchAll(/<text[^>]*? x="([-\d.]+)" y="([-\d.]+)"[^>]*>([^<]*)<\/text>/g)]
-					.map((t) => ({ x: Number(t[1]), y: Number(t[2]), text: decodeXml(t[3]) }))
+					.map((t) => ({ x: Number(t[1]), y: Number(t[2]), text: xmlText(t[3]) }))
 					.sort((p, q) => p.y - q.y);
 				const rows: { y: number; pieces: typeof pieces }[] = [];
 				for (const p of pieces) {
@@ -172,10 +165,3 @@ describe.skipIf(!graphviz)('parseDot agrees with Graphviz on generated DOT', () 
 		}
 	}, 120_000);
 });
-
-function decodeXml(s: string): string {
-	return s.replace(/&(#x[0-9a-fA-F]+|#[0-9]+|lt|gt|amp|quot|apos);/g, (_m, e: string) => {
-		if (e[0] === '#') return String.fromCodePoint(e[1] === 'x' ? parseInt(e.slice(2), 16) : parseInt(e.slice(1), 10));
-		return { lt: '<', gt: '>', amp: '&', quot: '"', apos: "'" }[e] ?? '';
-	});
-}
