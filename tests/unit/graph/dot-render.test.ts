@@ -1,21 +1,14 @@
 // writeDot's output fed to Graphviz itself: `dot -Tsvg` must accept it without a warning and
 // draw every label exactly as its text — also hostile labels with markup, quotes, backslashes,
 // escape-like sequences and line breaks. Skipped (with a message) where Graphviz is not installed.
-import { execFileSync, spawnSync } from 'node:child_process';
+import { spawnSync } from 'node:child_process';
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { emptyDiagram, type Diagram } from '../../../src/lib/graph/diagram';
 import { writeDot } from '../../../src/lib/graph/dot';
 import { parseDiagramJson } from '../../../src/lib/graph/native-json';
+import { hasGraphviz, xmlText } from './dot-test-helpers';
 
-function hasGraphviz(): boolean {
-	try {
-		execFileSync('dot', ['-V'], { stdio: 'ignore' });
-		return true;
-	} catch {
-		return false;
-	}
-}
 const graphviz = hasGraphviz();
 if (!graphviz) console.warn('Graphviz `dot` not found: skipping the DOT rendering checks (apt-get install graphviz)');
 
@@ -24,13 +17,6 @@ function renderSvg(dot: string): string {
 	expect(run.stderr, 'Graphviz warnings or errors').toBe('');
 	expect(run.status).toBe(0);
 	return run.stdout;
-}
-
-function xmlText(s: string): string {
-	return s.replace(/&(#x[0-9a-fA-F]+|#[0-9]+|lt|gt|amp|quot|apos);/g, (_m, e: string) => {
-		if (e[0] === '#') return String.fromCodePoint(e[1] === 'x' ? parseInt(e.slice(2), 16) : parseInt(e.slice(1), 10));
-		return { lt: '<', gt: '>', amp: '&', quot: '"', apos: "'" }[e] ?? '';
-	});
 }
 
 /** Node name → the lines of text Graphviz drew in that node, from the SVG. */

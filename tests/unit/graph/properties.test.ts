@@ -112,7 +112,8 @@ function diagramArb(f: Flavour): fc.Arbitrary<Diagram> {
 			? fc.subarray(ids)
 			: fc.array(fc.oneof(idArb, f.id), { maxLength: 3 });
 		const arrow: fc.Arbitrary<Arrow> = fc
-			.record({ from: idArb, to: idArb, note: fc.option(anyText, { nil: undefined }), extra: extraArb(new Set(['from', 'to', 'note']), f.extraKey, f.extraValue) })
+			// DOT reads `dir` as the arrow's direction and `key` as the edge's name (repeats merge).
+			.record({ from: idArb, to: idArb, note: fc.option(anyText, { nil: undefined }), extra: extraArb(new Set(['from', 'to', 'note', 'dir', 'key']), f.extraKey, f.extraValue) })
 			.map(({ from, to, note, extra }) => ({ from, to, ...(note !== undefined ? { note } : {}), ...(extra ? { extra } : {}) }));
 		return fc
 			.record({

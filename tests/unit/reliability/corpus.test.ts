@@ -130,7 +130,9 @@ const CLI_MESSAGES: Record<string, string> = {
 	'dot/ten-megabyte-label.dot': 'is too long: 10,485,760 characters',
 	'dot/too-many-nodes.dot': 'No exposure is chosen',
 	'dot/too-many-edges.dot': 'No exposure is chosen',
-	'dot/edge-group-blowup.dot': 'No exposure is chosen' // 90,601 arrows: within the command's limit
+	'dot/edge-group-blowup.dot': 'No exposure is chosen', // 90,601 arrows: within the command's limit
+	'dot/chain-over-variable-limit.dot': 'No exposure is chosen', // 2,001 variables: within the command's limit
+	'dot/subgraph-chain-blowup.dot': 'No exposure is chosen' // 10,800 arrows: within the command's limit
 };
 
 interface Run {
