@@ -2,9 +2,9 @@
  * Section 5: the editor in headless Chromium. For diagrams of 50, 300 and 1,000 variables
  * (twice as many arrows) it times, inside the page, from the key press (the keydown event's
  * timestamp) to the first animation frame that shows the refreshed analysis:
- *   - a question edit (P: the selected variable in or out of the planned set) until the
+ *   - a question edit (Z: the selected variable in or out of the planned set) until the
  *     verdict shows the new set and nothing is pending;
- *   - a structural edit (U: measured / unmeasured) until the claims are listed again.
+ *   - a structural edit (H: measured / unmeasured) until the claims are listed again.
  * Then frames per second while dragging a variable of a 500-variable diagram with the mouse.
  * Diagrams are loaded as the autosaved diagram (the app restores it on opening).
  */
@@ -197,12 +197,12 @@ async function benchSize(browser: Browser, url: string, n: number, repeats: numb
 	const page = await openDiagram(browser, url, editorDiagram(n));
 	const openMs = performance.now() - t0;
 	const claimsText = (await page.locator('[data-section="claims"] h2').textContent()) ?? '';
-	// A confounder-like variable between exposure and outcome for P; a low index for U.
+	// A confounder-like variable between exposure and outcome for Z; a low index for H.
 	await select(page, `v${Math.floor(n * 0.3) - 1}`);
 	const planned: number[] = [];
 	const plannedCounted: number[] = [];
 	for (let i = 0; i < repeats; i++) {
-		const [shown, counted] = await timeKeyTwice(page, 'p', 'verdict');
+		const [shown, counted] = await timeKeyTwice(page, 'z', 'verdict');
 		planned.push(shown);
 		plannedCounted.push(counted);
 	}
@@ -210,8 +210,8 @@ async function benchSize(browser: Browser, url: string, n: number, repeats: numb
 	const unmeasuredVerdict: number[] = [];
 	const unmeasuredClaims: number[] = [];
 	for (let i = 0; i < repeats; i++) {
-		unmeasuredVerdict.push(await timeKey(page, 'u', 'verdict'));
-		unmeasuredClaims.push(await timeKey(page, 'u', 'claims'));
+		unmeasuredVerdict.push(await timeKey(page, 'h', 'verdict'));
+		unmeasuredClaims.push(await timeKey(page, 'h', 'claims'));
 	}
 	const selection: number[] = [];
 	for (let i = 0; i < repeats; i++) selection.push(await timeKey(page, i % 2 ? 'ArrowLeft' : 'ArrowRight', 'frame'));
@@ -221,21 +221,21 @@ async function benchSize(browser: Browser, url: string, n: number, repeats: numb
 		arrows: fmtInt(2 * n),
 		'open + first full analysis': fmtMs(openMs),
 		claims: /\d+\+? claims/.exec(claimsText)?.[0] ?? claimsText,
-		'P → verdict (median)': fmtMedian(planned),
-		'P → paths counted (median)': fmtMedian(plannedCounted),
-		'U → verdict (median)': fmtMedian(unmeasuredVerdict),
-		'U → claims listed (median)': fmtMedian(unmeasuredClaims),
+		'Z → verdict (median)': fmtMedian(planned),
+		'Z → paths counted (median)': fmtMedian(plannedCounted),
+		'H → verdict (median)': fmtMedian(unmeasuredVerdict),
+		'H → claims listed (median)': fmtMedian(unmeasuredClaims),
 		'selection → frame (median)': fmtMedian(selection),
-		'all runs (P; U verdict; U claims; selection), ms': [planned, unmeasuredVerdict, unmeasuredClaims, selection].map((xs) => xs.map(fmtRun).join(' ')).join('; '),
+		'all runs (Z; H verdict; H claims; selection), ms': [planned, unmeasuredVerdict, unmeasuredClaims, selection].map((xs) => xs.map(fmtRun).join(' ')).join('; '),
 		'load average (1 min)': loadavg()[0].toFixed(1)
 	};
 }
 
 const NOTE = (dragSize: number, repeats: number): string =>
 	'Times are taken in the page, from the keydown event to the end of the first frame that shows the result (a task queued from that frame\'s animation-frame callback). ' +
-	`Each edit is timed ${repeats} times per size; the median is shown (targets, issue "Interactive at 1,000 variables": P ≤ 100 ms at 300 and ≤ 300 ms at 1,000; U → verdict ≤ 250 ms at 1,000; selection → frame ≤ 33 ms at 1,000). ` +
-	'P toggles a variable in the planned set: done when the new verdict is on screen (only the verdict is recomputed); "paths counted" when the exact count of open non-causal paths (up to 10,000) and the path listing, which follow the verdict, are on screen too. ' +
-	'U toggles a variable unmeasured: "verdict" when the new verdict is on screen (the sets, roles and claims follow in their own workers), "claims" when the claims are listed again (capped at 20,000 pairs). ' +
+	`Each edit is timed ${repeats} times per size; the median is shown (targets, issue "Interactive at 1,000 variables": Z ≤ 100 ms at 300 and ≤ 300 ms at 1,000; H → verdict ≤ 250 ms at 1,000; selection → frame ≤ 33 ms at 1,000). ` +
+	'Z toggles a variable in the planned set: done when the new verdict is on screen (only the verdict is recomputed); "paths counted" when the exact count of open non-causal paths (up to 10,000) and the path listing, which follow the verdict, are on screen too. ' +
+	'H toggles a variable unmeasured: "verdict" when the new verdict is on screen (the sets, roles and claims follow in their own workers), "claims" when the claims are listed again (capped at 20,000 pairs). ' +
 	'Selection: an arrow key moves the canvas selection to the nearest variable; done at the end of the frame that draws it (the overlay, no scene redraw). ' +
 	'Variables are chosen by name in the Question section and the canvas focused, as a keyboard user would (clicking them missed variables outside the view at 1,000). ' +
 	`Drag: the mouse drags a variable of a ${dragSize}-variable diagram in 60 steps; frames counted with requestAnimationFrame while dragging; the drag needs no new analysis (positions are not part of it). ` +
@@ -278,9 +278,9 @@ async function benchDrag(browser: Browser, url: string, n: number): Promise<Row>
 		arrows: fmtInt(2 * n),
 		'open + first full analysis': '',
 		claims: '',
-		'P → verdict (median)': `${((r.frames * 1000) / r.ms).toFixed(0)} frames/s while dragging`,
-		'U → verdict (median)': `${r.frames} frames in ${fmtMs(r.ms)}; longest frame ${fmtMs(r.maxGap)}`,
-		'U → claims listed (median)': `variable moved ${moved.toFixed(0)} px`,
+		'Z → verdict (median)': `${((r.frames * 1000) / r.ms).toFixed(0)} frames/s while dragging`,
+		'H → verdict (median)': `${r.frames} frames in ${fmtMs(r.ms)}; longest frame ${fmtMs(r.maxGap)}`,
+		'H → claims listed (median)': `variable moved ${moved.toFixed(0)} px`,
 		'load average (1 min)': loadavg()[0].toFixed(1)
 	};
 }

@@ -119,10 +119,10 @@ export async function selectByKeyboard(page: Page, label: string) {
 	throw new Error(`could not select ${label} with the keyboard`);
 }
 
-/** Keyboard arrow drawing: A on the selected variable, arrow keys to the target, Enter. */
+/** Keyboard arrow drawing: > on the selected variable, arrow keys to the target, Enter. */
 export async function drawArrowByKeyboard(page: Page, from: string, to: string) {
 	await selectByKeyboard(page, from);
-	await page.keyboard.press('a');
+	await page.keyboard.press('>');
 	const banner = page.locator('.connect-banner');
 	await expect(banner).toBeVisible();
 	for (const key of ['ArrowLeft', 'ArrowRight']) {

@@ -5,7 +5,7 @@
  * fail, for the reason that fitness is a mediator.
  */
 import { test, expect, type Page } from '@playwright/test';
-import { adjustment, announcer, canvas, counts, drawArrowByKeyboard, message, openEmpty, selectByKeyboard, undoAll, verdict } from './helpers';
+import { adjustment, announcer, canvas, counts, drawArrowByKeyboard, message, nodeCentre, openDemo, openEmpty, selectByKeyboard, undoAll, verdict } from './helpers';
 
 async function tabToCanvas(page: Page) {
 	for (let i = 0; i < 40; i++) {
@@ -16,7 +16,7 @@ async function tabToCanvas(page: Page) {
 }
 
 async function addByKeyboard(page: Page, label: string) {
-	await page.keyboard.press('n');
+	await page.keyboard.press('v');
 	const input = page.getByRole('textbox', { name: 'Name of the new variable' });
 	await expect(input).toBeFocused();
 	await page.keyboard.type(label);
@@ -41,17 +41,17 @@ test('mediator example built with the keyboard alone: question, sets, verdict, u
 	expect((await counts(page)).arrows).toBe(5);
 
 	await selectByKeyboard(page, 'Cycling');
-	await page.keyboard.press('e');
+	await page.keyboard.press('x');
 	await selectByKeyboard(page, 'Hypertension');
-	await page.keyboard.press('o');
+	await page.keyboard.press('y');
 	await selectByKeyboard(page, 'Age');
-	await page.keyboard.press('p');
+	await page.keyboard.press('z');
 	await expect(verdict(page)).toContainText('Adjusting for Age is sufficient');
 
 	// The mediator in the planned set: refused as a valid set, with the reason.
 	await selectByKeyboard(page, 'Fitness');
 	await expect(announcer(page)).toContainText('mediator');
-	await page.keyboard.press('p');
+	await page.keyboard.press('z');
 	await expect(verdict(page)).toContainText('Adjusting for Age and Fitness is not sufficient: one variable should not be adjusted for.');
 	await expect(adjustment(page).getByRole('button', { name: /Fitness is a mediator/ })).toBeVisible();
 	const sets = adjustment(page).getByRole('list', { name: /total effect/ });
@@ -72,15 +72,13 @@ test('mediator example built with the keyboard alone: question, sets, verdict, u
 	const menu = page.getByRole('menu', { name: 'Age' });
 	await expect(menu).toBeVisible();
 	await expect(menu.getByRole('menuitem', { name: 'Rename' })).toBeFocused();
-	await page.keyboard.press('ArrowDown');
-	await page.keyboard.press('ArrowDown');
-	await page.keyboard.press('ArrowDown');
+	for (let i = 0; i < 4; i++) await page.keyboard.press('ArrowDown');
 	await expect(menu.getByRole('menuitemcheckbox', { name: 'Unmeasured' })).toBeFocused();
 	await page.keyboard.press('Enter');
 	await expect(adjustment(page)).toContainText('No set of measured variables is sufficient for the total effect');
 	await canvas(page).focus();
 	await selectByKeyboard(page, 'Age');
-	await page.keyboard.press('u');
+	await page.keyboard.press('h');
 	await expect(verdict(page)).toBeVisible();
 
 	// Rename in place, step to an arrow with ], reverse it, delete it.
@@ -131,4 +129,46 @@ test('the text view lists the diagram and edits it', async ({ page }) => {
 	await expect(view.getByRole('heading', { name: 'Arrows (0)' })).toBeVisible();
 	// The canvas behind is out of the tab order while the text view is shown.
 	expect(await page.locator('.canvas-host').getAttribute('inert')).not.toBeNull();
+});
+
+test('the keys dialog and the context menus show the keys of the actions table', async ({ page }) => {
+	await openDemo(page);
+	await canvas(page).focus();
+	await page.keyboard.press('?');
+	const dialog = page.getByRole('dialog', { name: 'Keyboard' });
+	await expect(dialog).toBeVisible();
+	const row = (words: string) => dialog.locator('tr', { hasText: words });
+	await expect(row('exposure on or off').locator('kbd')).toHaveText('X');
+	await expect(row('outcome on or off').locator('kbd')).toHaveText('Y');
+	await expect(row('in or out of the planned set').locator('kbd')).toHaveText('Z');
+	await expect(row('unmeasured (hidden) on or off').locator('kbd')).toHaveText('H');
+	await expect(row('add a variable').locator('kbd')).toHaveText('V or Insert');
+	await expect(row('draw an arrow from the selected variable').locator('kbd')).toHaveText('>');
+	await dialog.evaluate((el) => (el.scrollTop = 0));
+	await dialog.screenshot({ path: 'test-results/keys-dialog.png' });
+	await page.keyboard.press('Escape');
+	await expect(dialog).toBeHidden();
+
+	const c = await nodeCentre(page, 'cycling');
+	await page.mouse.click(c.x, c.y, { button: 'right' });
+	const menu = page.getByRole('menu', { name: 'Commutes by bicycle' });
+	await expect(menu.getByRole('menuitemcheckbox', { name: 'Exposure' }).locator('kbd')).toHaveText('X');
+	await expect(menu.getByRole('menuitemcheckbox', { name: 'In the planned set' }).locator('kbd')).toHaveText('Z');
+	await menu.screenshot({ path: 'test-results/variable-menu.png' });
+	await page.keyboard.press('Escape');
+	// The background's menu, from the keyboard with nothing selected.
+	await canvas(page).focus();
+	await page.keyboard.press('Escape');
+	await page.keyboard.press('Shift+F10');
+	const background = page.getByRole('menu', { name: 'Diagram' });
+	await expect(background.getByRole('menuitem', { name: 'Add a variable here' }).locator('kbd')).toHaveText('V');
+	await expect(background.getByRole('menuitem', { name: 'Tidy layout' }).locator('kbd')).toHaveText('L');
+	await background.screenshot({ path: 'test-results/background-menu.png' });
+	await page.keyboard.press('Escape');
+	await page.mouse.click(c.x, c.y);
+	// The same key as the menu item: H on the selected variable marks it unmeasured.
+	await canvas(page).focus();
+	await page.keyboard.press('h');
+	await expect(announcer(page)).toContainText('Commutes by bicycle:');
+	await expect(message(page)).toContainText('unmeasured');
 });

@@ -244,7 +244,7 @@ test('notes on variables and arrows, and an id change, by keyboard only', async 
 test('an over-long name is refused when it is typed, and what the app saves always opens again', async ({ page }) => {
 	await openEmpty(page);
 	await canvas(page).focus();
-	await page.keyboard.press('n');
+	await page.keyboard.press('v');
 	const input = page.getByRole('textbox', { name: 'Name of the new variable' });
 	await input.fill('x'.repeat(1001));
 	await input.press('Enter');
@@ -296,7 +296,7 @@ test('an unreadable autosave is kept aside, offered for download with the reason
 	expect(readFileSync((await download.path())!, 'utf8')).toBe(stored);
 	// Edits in the empty diagram are saved, and the copy aside stays until discarded, across reloads.
 	await canvas(page).focus();
-	await page.keyboard.press('n');
+	await page.keyboard.press('v');
 	await page.getByRole('textbox', { name: 'Name of the new variable' }).fill('Fresh');
 	await page.keyboard.press('Enter');
 	await expect.poll(async () => (await counts(page)).variables).toBe(1);

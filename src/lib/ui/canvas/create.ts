@@ -1,0 +1,71 @@
+/**
+ * Making the Cytoscape view: its options, the overlay that draws selection and highlights,
+ * the arrow-drawing gesture, resizing with the page, and the read-only geometry view that
+ * browser tests and assistive tooling read (`window.__causewayCanvas`).
+ */
+import type { Core } from 'cytoscape';
+import type cytoscapeType from 'cytoscape';
+import { canvasStyle } from './style';
+import { arrowKey, nodeKey } from './elements';
+import { attachEdgeHandles, type EdgeHandles } from './edgehandles';
+import { CanvasOverlay } from './overlay';
+import { Viewport } from './viewport';
+
+export interface CanvasParts {
+	cy: Core;
+	overlay: CanvasOverlay;
+	eh: EdgeHandles;
+	view: Viewport;
+	destroy(): void;
+}
+
+export function createCanvas(cytoscape: typeof cytoscapeType, container: HTMLElement, overlayCanvas: HTMLCanvasElement, onResize: () => void): CanvasParts {
+	const cy = cytoscape({
+		container,
+		style: canvasStyle,
+		minZoom: 0.15,
+		maxZoom: 3,
+		boxSelectionEnabled: true,
+		// Selection lives in the editor and is drawn by the overlay (overlay.ts):
+		// Cytoscape's own selection would restyle elements and redraw the whole scene.
+		autounselectify: true
+	});
+	const overlay = new CanvasOverlay(cy, overlayCanvas);
+	const eh = attachEdgeHandles(cy, {
+		canConnect: (s, t) => !s.same(t) && !t.hasClass('eh-ghost'),
+		edgeParams: () => ({}),
+		hoverDelay: 0,
+		snap: true,
+		snapThreshold: 30,
+		snapFrequency: 30,
+		noEdgeEventsInDraw: true,
+		disableBrowserGestures: true
+	});
+	const view = new Viewport(cy, container);
+	const observer = new ResizeObserver(() => {
+		cy.resize();
+		overlay.resize(container.clientWidth, container.clientHeight);
+		onResize();
+	});
+	observer.observe(container);
+	(window as unknown as { __causewayCanvas: object }).__causewayCanvas = {
+		nodeBox: (id: string) => view.clientBox(id),
+		arrowMidpoint: (from: string, to: string) => view.arrowMidpoint(from, to),
+		nodeClasses: (id: string) => [...cy.getElementById(nodeKey(id)).classes(), ...overlay.marksOf(id)],
+		arrowClasses: (from: string, to: string) => [...cy.getElementById(arrowKey(from, to)).classes(), ...overlay.arrowMarksOf(from, to)],
+		counts: () => ({ variables: cy.nodes('[vid]').length, arrows: cy.edges('[from]').length }),
+		zoom: () => cy.zoom()
+	};
+	return {
+		cy,
+		overlay,
+		eh,
+		view,
+		destroy() {
+			observer.disconnect();
+			overlay.destroy();
+			eh.destroy();
+			cy.destroy();
+		}
+	};
+}
