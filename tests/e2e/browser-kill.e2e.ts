@@ -62,12 +62,10 @@ test('an edit survives the whole browser being killed right after it is stored',
 	let { proc, browser } = await startBrowser(profile, debugPort);
 	try {
 		let page = await firstPage(browser);
+		// Not a first visit (no demo), before the app ever runs on this profile.
+		await page.goto(`${baseURL}/favicon.svg`);
+		await page.evaluate(() => localStorage.setItem('causeway.visited', '1'));
 		await page.goto(baseURL!);
-		await page.evaluate(() => {
-			localStorage.clear();
-			localStorage.setItem('causeway.visited', '1');
-		});
-		await page.reload();
 		await expect(page.getByText('An empty diagram.')).toBeVisible({ timeout: 20_000 });
 
 		await addVariableByMouse(page, 'First edit', { x: 200, y: 200 });
