@@ -6,7 +6,5 @@ export { parseDiagramJson, writeDiagramJson, diagramSchema } from './native-json
 export { parseDot, writeDot } from './dot';
 export { validateDiagram, assertValidDiagram, findCycle } from './validate';
 export type { DiagramIssue, DiagramIssueCode, ValidateOptions } from './validate';
-export { toGraphlib, fromGraphlib, nodeKey, idOfNodeKey } from './graphlib-model';
-export type { DiagramGraph, DiagramGraphLabel, DiagramEdgeLabel } from './graphlib-model';
 export { readDiagramText, readDiagramBytes, diagramFileKind } from './read-file';
 export type { DiagramFileKind } from './read-file';

@@ -5,7 +5,6 @@ import { describe, expect, it } from 'vitest';
 import { DIAGRAM_VERSION, type Diagram } from '../../../src/lib/graph/diagram';
 import { parseDot, writeDot } from '../../../src/lib/graph/dot';
 import { InputError } from '../../../src/lib/graph/errors';
-import { fromGraphlib, toGraphlib } from '../../../src/lib/graph/graphlib-model';
 import { parseDiagramJson, writeDiagramJson } from '../../../src/lib/graph/native-json';
 import { validate as validateSchema } from '../../../src/lib/graph/diagram-schema-validate.js';
 import { readShareFragment, shareFragment } from '../../../src/lib/export/share-link';
@@ -108,10 +107,6 @@ describe('DOT', () => {
 });
 
 describe('graph model and share links', () => {
-	it('the graphlib model keeps arrow notes and settings', () => {
-		expect(fromGraphlib(toGraphlib(study), study)).toEqual(study);
-	});
-
 	it('a share link carries the settings and the notes', () => {
 		expect(readShareFragment(shareFragment(study))).toEqual(study);
 	});
