@@ -37,12 +37,11 @@ supports, and does not replace, review by qualified epidemiologists or statistic
 export async function jobHelp(job: Job): Promise<string> {
 	const first = job.views[0];
 	const command = await first.load();
-	if (job.views.length === 1) return `Usage: ${command.usage}\n\n${job.about}\n\n${command.details}`;
 	const width = Math.max(...job.views.map((v) => v.name.length));
 	const views = job.views.map((v, i) => `  ${v.name.padEnd(width)}  ${i === 0 ? '(default) ' : ''}${v.summary}`).join('\n');
 	return `Usage: causeway ${job.name} [VIEW] ${job.files} [options]
 
-${job.about}
+${job.about ?? ''}
 
 Views:
 ${views}

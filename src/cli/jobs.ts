@@ -18,8 +18,8 @@ export interface Job {
 	name: string;
 	/** One line for `causeway --help`. */
 	summary: string;
-	/** What the job is for, at the top of `causeway JOB --help`. */
-	about: string;
+	/** What a job of several views is for, atop `causeway JOB --help` (one view: its own help). */
+	about?: string;
 	/** The files its views read, for the usage line. */
 	files: string;
 	/** The first is the default; a job with one view has no view words. */
@@ -45,7 +45,7 @@ export const JOBS: readonly Job[] = [
 		name: 'review',
 		files: 'DIAGRAM',
 		summary: 'judge a stated adjustment set (exit 1 when it is not sufficient)',
-		about: 'Judges a stated adjustment set (the file\'s planned set, or --adjust): exit status 1 when it is not sufficient.',
+		about: "Judges a stated adjustment set (the file's planned set, or --adjust); exit status 1 when it\nis not sufficient.",
 		verdict: true,
 		views: [
 			{ name: 'advice', summary: 'verdict, every reason, and the fixes: what to drop, add, or use instead', load: async () => (await import('./commands/review/advice')).advice },
@@ -57,7 +57,6 @@ export const JOBS: readonly Job[] = [
 		name: 'compare',
 		files: 'FIRST SECOND',
 		summary: 'what changes between two diagrams: variables, arrows, sets, the verdict',
-		about: 'What changes between two diagrams of the same question.',
 		views: [{ name: '', summary: '', load: async () => (await import('./commands/compare')).compare }]
 	},
 	{
@@ -85,7 +84,6 @@ export const JOBS: readonly Job[] = [
 		name: 'export',
 		files: 'DIAGRAM',
 		summary: 'the diagram as JSON or DOT, the figure, tables or the protocol report',
-		about: 'Writes the diagram in another form.',
 		views: [{ name: '', summary: '', load: async () => (await import('./commands/export/export')).exportView }]
 	}
 ];
