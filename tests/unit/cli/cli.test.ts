@@ -196,7 +196,7 @@ describe('export to JSON and DOT, and the installed command', () => {
 });
 
 describe('the bundled command in a pipeline', () => {
-	it('says in one line, exit 2, when the reader closes the pipe early (`causeway claims big.json | head -1`)', () => {
+	it('says in one line, exit 2, when the reader closes the pipe early (`causeway diagram claims big.json | head -1`)', () => {
 		const dir = mkdtempSync(join(tmpdir(), 'causeway-pipe-'));
 		const file = join(dir, 'chain.json');
 		// A 400-variable chain implies 79,401 claims: far more output than one pipe buffer.
