@@ -2,11 +2,11 @@
  * Section "cli": the `causeway` command as pipelines run it, each figure a whole process
  * (node bin/causeway.js …) on seeded diagram files (bench/cli-diagram.ts):
  * - start-up on the small demo diagram against a bare `node -e 0`;
- * - dsep on 100,000 variables and 200,000 arrows (≈12 MiB) against networkx's whole process
+ * - diagram separation (d-separation) on 100,000 variables and 200,000 arrows (≈12 MiB) against networkx's whole process
  *   (bench/nx_dsep_file.py with Debian's /usr/bin/python3: read the file, build the graph,
  *   nx.d_separated), with both answers;
- * - sets on 2,000 variables with the default cap; all claims of 2,000 variables (1.6 million
- *   lines through a pipe); roles on 2,000 and 10,000 variables, and on 100,000 the refusal and
+ * - plan sets on 2,000 variables with the default cap; all diagram claims of 2,000 variables
+ *   (1.6 million lines through a pipe); plan roles on 2,000 and 10,000 variables, and on 100,000 the refusal and
  *   --only for ten variables.
  * Wall time and CPU time (user + system of the child, from /usr/bin/time), median of the runs;
  * the machine is shared, so os.loadavg() is printed before and after.
@@ -111,11 +111,11 @@ export async function benchCli(quick: boolean): Promise<Section> {
 		const ours: number[] = [];
 		for (let i = 0; i < repeat; i++) {
 			bare.push(runOnce(node, ['-e', '0'], dir).wall);
-			ours.push(runOnce(node, cli(['dsep', DEMO, '--from', 'age', '--to', 'bmi']), dir).wall);
+			ours.push(runOnce(node, cli(['diagram', 'separation', DEMO, '--from', 'age', '--to', 'bmi']), dir).wall);
 		}
 		const ratio = median(ours) / median(bare);
 		rows.push({
-			what: 'start-up: dsep on the 12-variable demo vs `node -e 0`',
+			what: 'start-up: diagram separation on the 12-variable demo vs `node -e 0`',
 			size: '12 variables',
 			wall: `${fmtMs(median(ours))} vs ${fmtMs(median(bare))}`,
 			CPU: '',
@@ -129,7 +129,7 @@ export async function benchCli(quick: boolean): Promise<Section> {
 		// dsep on the big diagram, ours and networkx's whole process, on the same file and query.
 		const q = ['--from', 'v1', '--to', 'v2', '--given', 'v3,v4'];
 		const size = `${fmtInt(bigN)} variables, ${fmtInt(2 * bigN)} arrows, ${fmtBytes(statSync(big).size)}`;
-		const dsep = timed(node, cli(['dsep', big, ...q, '--json']), dir, quick ? 1 : 3);
+		const dsep = timed(node, cli(['diagram', 'separation', big, ...q, '--json']), dir, quick ? 1 : 3);
 		const ourAnswer = dsep.status === 0 ? (JSON.parse(dsep.stdout) as { separated: boolean }).separated : null;
 		const nx = networkx();
 		let nxCell = 'networkx not installed';
@@ -138,32 +138,32 @@ export async function benchCli(quick: boolean): Promise<Section> {
 			const nxAnswer = ref.status === 0 ? (JSON.parse(ref.stdout) as { separated: boolean }).separated : null;
 			nxCell = `networkx ${nx.version}: ${fmtMs(ref.wall)} wall, ${fmtCpu(ref.cpu)} CPU; ×${(ref.wall / dsep.wall).toFixed(1)} wall, ×${(ref.cpu / dsep.cpu).toFixed(1)} CPU; same answer: ${nxAnswer === ourAnswer ? 'yes' : 'NO'}`;
 		}
-		rows.push({ what: 'dsep (whole process) vs networkx d_separated (whole process)', size, wall: fmtMs(dsep.wall), CPU: fmtCpu(dsep.cpu), result: `separated: ${ourAnswer}; ${nxCell}` });
+		rows.push({ what: 'diagram separation (whole process) vs networkx d_separated (whole process)', size, wall: fmtMs(dsep.wall), CPU: fmtCpu(dsep.cpu), result: `separated: ${ourAnswer}; ${nxCell}` });
 
-		const check = timed(node, cli(['check', big, '--json']), dir, 1);
-		rows.push({ what: 'check (verdict on the planned set)', size, wall: fmtMs(check.wall), CPU: fmtCpu(check.cpu), result: `exit ${check.status}` });
-		const bigSets = timed(node, cli(['sets', big, '--max', '10', '--json']), dir, 1);
-		rows.push({ what: 'sets --max 10', size, wall: fmtMs(bigSets.wall), CPU: fmtCpu(bigSets.cpu), result: `${(JSON.parse(bigSets.stdout) as { sets: unknown[] }).sets.length} sets` });
-		const bigClaims = timed(node, cli(['claims', big, '--max', '100']), dir, 1);
-		rows.push({ what: 'claims --max 100', size, wall: fmtMs(bigClaims.wall), CPU: fmtCpu(bigClaims.cpu), result: `${bigClaims.stdout.trim().split('\n').length} claims` });
-		const refused = timed(node, cli(['roles', big]), dir, 1);
-		rows.push({ what: 'roles (all variables)', size, wall: fmtMs(refused.wall), CPU: fmtCpu(refused.cpu), result: refused.status === 0 ? 'answered' : `exit ${refused.status}: ${refused.stderr.trim().slice(0, 90)}…` });
+		const check = timed(node, cli(['review', 'verdict', big, '--json']), dir, 1);
+		rows.push({ what: 'review verdict (on the planned set)', size, wall: fmtMs(check.wall), CPU: fmtCpu(check.cpu), result: `exit ${check.status}` });
+		const bigSets = timed(node, cli(['plan', 'sets', big, '--max', '10', '--json']), dir, 1);
+		rows.push({ what: 'plan sets --max 10', size, wall: fmtMs(bigSets.wall), CPU: fmtCpu(bigSets.cpu), result: `${(JSON.parse(bigSets.stdout) as { sets: unknown[] }).sets.length} sets` });
+		const bigClaims = timed(node, cli(['diagram', 'claims', big, '--max', '100']), dir, 1);
+		rows.push({ what: 'diagram claims --max 100', size, wall: fmtMs(bigClaims.wall), CPU: fmtCpu(bigClaims.cpu), result: `${bigClaims.stdout.trim().split('\n').length} claims` });
+		const refused = timed(node, cli(['plan', 'roles', big]), dir, 1);
+		rows.push({ what: 'plan roles (all variables)', size, wall: fmtMs(refused.wall), CPU: fmtCpu(refused.cpu), result: refused.status === 0 ? 'answered' : `exit ${refused.status}: ${refused.stderr.trim().slice(0, 90)}…` });
 		const only = Array.from({ length: 10 }, (_, i) => `v${i * 997}`).join(',');
-		const rolesOnly = timed(node, cli(['roles', big, '--only', only]), dir, 1);
-		rows.push({ what: 'roles --only (10 variables)', size, wall: fmtMs(rolesOnly.wall), CPU: fmtCpu(rolesOnly.cpu), result: `exit ${rolesOnly.status}` });
+		const rolesOnly = timed(node, cli(['plan', 'roles', big, '--only', only]), dir, 1);
+		rows.push({ what: 'plan roles --only (10 variables)', size, wall: fmtMs(rolesOnly.wall), CPU: fmtCpu(rolesOnly.cpu), result: `exit ${rolesOnly.status}` });
 
 		// 2,000 variables: sets with the default cap, all claims through a pipe, all roles.
 		const midSize = `${fmtInt(midN)} variables, ${fmtInt(2 * midN)} arrows`;
-		const sets = timed(node, cli(['sets', mid, '--json']), dir, quick ? 1 : 3);
+		const sets = timed(node, cli(['plan', 'sets', mid, '--json']), dir, quick ? 1 : 3);
 		const s = JSON.parse(sets.stdout) as { sets: unknown[]; max: number; truncated: boolean };
-		rows.push({ what: 'sets (default cap)', size: midSize, wall: fmtMs(sets.wall), CPU: fmtCpu(sets.cpu), result: `${s.sets.length} sets, cap ${s.max}, truncated ${s.truncated}; target < 20 s` });
-		const claims = await runPiped(node, cli(['claims', mid, ...(quick ? ['--max', '100000'] : [])]), dir);
-		rows.push({ what: `claims${quick ? ' --max 100000' : ' (all)'} through a pipe`, size: midSize, wall: fmtMs(claims.wall), CPU: fmtCpu(claims.cpu), result: `${fmtInt(claims.lines ?? 0)} lines, ${fmtBytes(claims.bytes)}` });
-		const roles = timed(node, cli(['roles', mid]), dir, 1);
-		rows.push({ what: 'roles (all variables)', size: midSize, wall: fmtMs(roles.wall), CPU: fmtCpu(roles.cpu), result: `exit ${roles.status}` });
+		rows.push({ what: 'plan sets (default cap)', size: midSize, wall: fmtMs(sets.wall), CPU: fmtCpu(sets.cpu), result: `${s.sets.length} sets, cap ${s.max}, truncated ${s.truncated}; target < 20 s` });
+		const claims = await runPiped(node, cli(['diagram', 'claims', mid, ...(quick ? ['--max', '100000'] : [])]), dir);
+		rows.push({ what: `diagram claims${quick ? ' --max 100000' : ' (all)'} through a pipe`, size: midSize, wall: fmtMs(claims.wall), CPU: fmtCpu(claims.cpu), result: `${fmtInt(claims.lines ?? 0)} lines, ${fmtBytes(claims.bytes)}` });
+		const roles = timed(node, cli(['plan', 'roles', mid]), dir, 1);
+		rows.push({ what: 'plan roles (all variables)', size: midSize, wall: fmtMs(roles.wall), CPU: fmtCpu(roles.cpu), result: `exit ${roles.status}` });
 		if (!quick) {
-			const roles10 = timed(node, cli(['roles', ten]), dir, 1);
-			rows.push({ what: 'roles (all variables)', size: '10,000 variables, 20,000 arrows', wall: fmtMs(roles10.wall), CPU: fmtCpu(roles10.cpu), result: `exit ${roles10.status}` });
+			const roles10 = timed(node, cli(['plan', 'roles', ten]), dir, 1);
+			rows.push({ what: 'plan roles (all variables)', size: '10,000 variables, 20,000 arrows', wall: fmtMs(roles10.wall), CPU: fmtCpu(roles10.cpu), result: `exit ${roles10.status}` });
 		}
 	} finally {
 		rmSync(dir, { recursive: true, force: true });

@@ -1,7 +1,8 @@
 /**
- * What a `causeway` subcommand is: its help text, its options and its run function, given a
- * context that reads the diagram and prints. Each command beyond the core ones lives in
- * src/cli/commands/<name>.ts and is registered in the `commands` table of main.ts.
+ * What one view of a `causeway` job is (`causeway plan sets`, `causeway export`…): its help
+ * text, its options and its run function, given a context that reads the diagram and prints.
+ * Each lives in src/cli/commands/<job>/<view>.ts and is listed, with its one-line summary, in
+ * the job tree (jobs.ts).
  */
 import type { ParseArgsConfig } from 'node:util';
 import type { Diagram } from '../lib/graph/diagram';
@@ -11,7 +12,6 @@ export type Options = ParseArgsConfig['options'];
 export type Values = Record<string, string | boolean | string[] | undefined>;
 
 export interface Command {
-	summary: string;
 	usage: string;
 	details: string;
 	options: Options;
@@ -19,6 +19,8 @@ export interface Command {
 }
 
 export interface Context {
+	/** How the command was spelled in its new form, for messages: "plan sets", "compare". */
+	name: string;
 	io: CliIo;
 	values: Values;
 	positionals: string[];

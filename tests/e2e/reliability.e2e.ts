@@ -108,7 +108,7 @@ test('labels and notes with markup stay text: text view, canvas, DOT, HTML repor
 	// DOT written by the app reads back to exactly the same labels and note.
 	const [dot] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Save DOT' }).click()]);
 	// Read back by the command line (the same reader), as native JSON.
-	const back = JSON.parse(execFileSync(process.execPath, ['bin/causeway.js', 'convert', (await dot.path()) as string, '--to', 'json', '-o', '-'], { encoding: 'utf8' })) as {
+	const back = JSON.parse(execFileSync(process.execPath, ['bin/causeway.js', 'export', (await dot.path()) as string, '--format', 'json'], { encoding: 'utf8' })) as {
 		variables: { label: string; note?: string }[];
 	};
 	expect(back.variables.map((v) => v.label)).toEqual([HOSTILE.label, HOSTILE.second, '{{constructor.constructor("window.__pwned=4")()}}']);

@@ -106,13 +106,13 @@ export function shellWord(name: string): string {
 }
 
 /**
- * The commands that reproduce a report's checks and estimates: `causeway test` (claim checks)
- * and `causeway estimate` (estimates) on the saved diagram file, which carries the data
+ * The commands that reproduce a report's checks and estimates: `causeway data tests` (claim
+ * checks) and `causeway data estimates` (estimates) on the saved diagram file, which carries the data
  * settings, and the data file, with no flags.
  */
 export function reproduceCommands(diagramFile: string, dataFile: string): string[] {
 	const files = `${shellWord(diagramFile)} ${shellWord(dataFile)}`;
-	return [`npx causeway test ${files}`, `npx causeway estimate ${files}`];
+	return [`npx causeway data tests ${files}`, `npx causeway data estimates ${files}`];
 }
 
 /** What the report knows beyond the checks: the diagram (for the analysis code) and the files (for the commands that reproduce it). */

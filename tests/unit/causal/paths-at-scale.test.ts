@@ -54,15 +54,15 @@ describe('the 200-variable two-ladder diagram', () => {
 		expect(checkAdjustment(d, { adjusted })).toMatchObject({ valid: true, openPaths: { count: 0, bound: 'exact' } });
 	});
 
-	it('`causeway paths --max 20` lists 20 paths and says more exist', async () => {
-		const r = await runCli(['paths', 'ladder.json', '--max', '20', '--json'], { 'ladder.json': file });
+	it('`causeway plan paths --max 20` lists 20 paths and says more exist', async () => {
+		const r = await runCli(['plan', 'paths', 'ladder.json', '--max', '20', '--json'], { 'ladder.json': file });
 		expect(r.code).toBe(0);
 		const j = JSON.parse(r.out) as { paths: { open: boolean; causal: boolean }[]; truncated: boolean; openNonCausal: unknown };
 		expect(j.paths).toHaveLength(20);
 		expect(j.paths.every((p) => p.open && !p.causal)).toBe(true);
 		expect(j.truncated).toBe(true);
 		expect(j.openNonCausal).toEqual({ count: 50, bound: 'exact' });
-		const text = await runCli(['paths', 'ladder.json', '--max', '20'], { 'ladder.json': file });
+		const text = await runCli(['plan', 'paths', 'ladder.json', '--max', '20'], { 'ladder.json': file });
 		expect(text.out).toContain('50 open non-causal paths under the planned set.');
 	});
 });

@@ -1,5 +1,5 @@
-// `causeway test` and `causeway estimate`: the same numbers as the pipeline (and so as the
-// app), human-readable and --json, exit 0 when done and 2 with one stderr line on bad input.
+// `causeway data tests` and `causeway data estimates`: the same numbers as the pipeline (and
+// so as the app), human-readable and --json, exit 0 when done and 2 with one stderr line on bad input.
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { runCli as run } from './harness';
@@ -20,9 +20,9 @@ function pipeline(diagramPath: string, csvPath: string) {
 	return runDataChecks(parseDiagramJson(readFileSync(diagramPath, 'utf8')), t.table);
 }
 
-describe('causeway test', () => {
+describe('causeway data tests', () => {
 	it('--json gives the pipeline report (arrow and claim checks), exit 0', async () => {
-		const r = await run(['test', MTCARS, MTCARS_CSV, '--json']);
+		const r = await run(['data', 'tests', MTCARS, MTCARS_CSV, '--json']);
 		expect(r.code).toBe(0);
 		expect(r.err).toBe('');
 		const json = JSON.parse(r.out);
@@ -33,31 +33,31 @@ describe('causeway test', () => {
 	});
 
 	it('prints arrow checks and claims with Holm and BH, and the caution', async () => {
-		const r = await run(['test', DEMO, DEMO_CSV]);
+		const r = await run(['data', 'tests', DEMO, DEMO_CSV]);
 		expect(r.code).toBe(0);
 		expect(r.out).toMatch(/cycling → fitness\s+supported\s+d = 1\.45: mean fitness is 1\.45 SD higher at cycling = 1 than at 0/);
 		expect(r.out).toMatch(/health_consciousness → cycling: not checked \(no data for "health_consciousness"\)/);
 		expect(r.out).toMatch(/Claim checks: 46 tested, 0 contradicted/);
-		expect(r.out).toMatch(/Holm [\d.]+, BH [\d.]+, n = 5000/);
+		expect(r.out).toMatch(/Holm [\d.]+, BH [\d.]+, n = 5,000/);
 		expect(r.out).toMatch(/never prove it/);
 	});
 
 	it('--map leaves a variable without data, and the output says it is treated as unmeasured', async () => {
-		const r = await run(['test', MTCARS, MTCARS_CSV, '--map', 'disp=']);
+		const r = await run(['data', 'tests', MTCARS, MTCARS_CSV, '--map', 'disp=']);
 		expect(r.code).toBe(0);
 		expect(r.out).toMatch(/No column for "disp": treated as unmeasured/);
 	});
 
 	it('--summary reads a covariance matrix', async () => {
-		const r = await run(['test', MTCARS, MTCARS_COV, '--summary', '--json']);
+		const r = await run(['data', 'tests', MTCARS, MTCARS_COV, '--summary', '--json']);
 		expect(r.code).toBe(0);
 		expect(JSON.parse(r.out).rowCount).toBe(32);
 	});
 });
 
-describe('causeway estimate', () => {
+describe('causeway data estimates', () => {
 	it('--json equals the pipeline estimates; --adjust replaces the planned set', async () => {
-		const r = await run(['estimate', DEMO, DEMO_CSV, '--json', '--adjust', 'age,income,diet,app_panel']);
+		const r = await run(['data', 'estimates', DEMO, DEMO_CSV, '--json', '--adjust', 'age,income,diet,app_panel']);
 		expect(r.code).toBe(0);
 		const e = JSON.parse(r.out).estimates;
 		const planned = e.rows.find((x: { roles: string[] }) => x.roles.includes('planned'));
@@ -68,7 +68,7 @@ describe('causeway estimate', () => {
 	});
 
 	it('prints crude and adjusted odds ratios, the 10 % marker as common practice, and the E-value', async () => {
-		const r = await run(['estimate', DEMO, DEMO_CSV]);
+		const r = await run(['data', 'estimates', DEMO, DEMO_CSV]);
 		expect(r.code).toBe(0);
 		expect(r.out).toMatch(/Effect of cycling on hypertension: odds ratio \(logistic regression\)/);
 		expect(r.out).toMatch(/Crude \(no adjustment\)\s+0\.474 \(0\.411 to 0\.546\), n = 5,000/);
@@ -77,17 +77,17 @@ describe('causeway estimate', () => {
 	});
 
 	it('with a variable left without a column, sufficiency is judged for the diagram as the data see it', async () => {
-		const full = await run(['estimate', DEMO, DEMO_CSV]);
+		const full = await run(['data', 'estimates', DEMO, DEMO_CSV]);
 		expect(full.out).toContain('sufficient under the diagram.');
 		// Without diet, health consciousness (unmeasured) keeps a path open: no set of columns is sufficient.
-		const r = await run(['estimate', DEMO, DEMO_CSV, '--map', 'diet=']);
+		const r = await run(['data', 'estimates', DEMO, DEMO_CSV, '--map', 'diet=']);
 		expect(r.code).toBe(0);
 		expect(r.out).toContain('NOT sufficient for the diagram as the data see it (variables without a column count as unmeasured).');
 		expect(r.out).not.toContain('sufficient under the diagram');
 	});
 
 	it('--exposure and --outcome override the file', async () => {
-		const r = await run(['estimate', MTCARS, MTCARS_CSV, '--exposure', 'hp', '--outcome', 'mpg', '--json']);
+		const r = await run(['data', 'estimates', MTCARS, MTCARS_CSV, '--exposure', 'hp', '--outcome', 'mpg', '--json']);
 		expect(r.code).toBe(0);
 		expect(JSON.parse(r.out).estimates.exposure).toBe('hp');
 	});
@@ -103,8 +103,8 @@ describe('bad input: one line on stderr, exit 2', () => {
 	];
 	for (const [what, text, message] of cases)
 		it(what, async () => {
-			for (const cmd of ['test', 'estimate']) {
-				const r = await run([cmd, MTCARS, 'bad.csv'], { 'bad.csv': text });
+			for (const view of ['tests', 'estimates']) {
+				const r = await run(['data', view, MTCARS, 'bad.csv'], { 'bad.csv': text });
 				expect(r.code).toBe(2);
 				expect(r.out).toBe('');
 				expect(r.err).toMatch(message);
@@ -113,31 +113,31 @@ describe('bad input: one line on stderr, exit 2', () => {
 		});
 
 	it('a missing data file, a wrong --type, a missing argument', async () => {
-		const missing = await run(['test', MTCARS, 'nowhere.csv'], {});
+		const missing = await run(['data', 'tests', MTCARS, 'nowhere.csv'], {});
 		expect(missing.code).toBe(2);
 		expect(missing.err).toMatch(/cannot read "nowhere.csv": no such file/);
-		const kind = await run(['test', MTCARS, MTCARS_CSV, '--type', 'cyl=nominal']);
+		const kind = await run(['data', 'tests', MTCARS, MTCARS_CSV, '--type', 'cyl=nominal']);
 		expect(kind.err).toMatch(/binary, categorical, ordinal or continuous/);
-		const one = await run(['estimate', MTCARS]);
+		const one = await run(['data', 'estimates', MTCARS]);
 		expect(one.code).toBe(2);
 		expect(one.err).toMatch(/expected a diagram file and a data file/);
 	});
 
-	it('estimate agrees with check on exit statuses: an unknown --adjust variable or data without the outcome is exit 2', async () => {
-		const unknown = await run(['estimate', DEMO, DEMO_CSV, '--adjust', 'age,nosuch']);
-		const check = await run(['check', DEMO, '--adjust', 'age,nosuch']);
+	it('data estimates agrees with review verdict on exit statuses: an unknown --adjust variable or data without the outcome is exit 2', async () => {
+		const unknown = await run(['data', 'estimates', DEMO, DEMO_CSV, '--adjust', 'age,nosuch']);
+		const check = await run(['review', 'verdict', DEMO, '--adjust', 'age,nosuch']);
 		expect([unknown.code, check.code]).toEqual([2, 2]);
 		expect(unknown.out).toBe('');
 		expect(unknown.err.trim()).toBe('causeway: The adjusted variable "nosuch" is not a variable of the diagram');
 		for (const json of [[], ['--json']]) {
-			const noOutcome = await run(['estimate', DEMO, DEMO_CSV, '--map', 'hypertension=', ...json]);
+			const noOutcome = await run(['data', 'estimates', DEMO, DEMO_CSV, '--map', 'hypertension=', ...json]);
 			expect(noOutcome.code).toBe(2);
 			expect(noOutcome.out).toBe('');
 			expect(noOutcome.err.trim()).toBe(`causeway: ${DEMO_CSV}: No estimate: the outcome "hypertension" has no column in the data.`);
 		}
 	});
 
-	it('one reading path: a UTF-16 data file is read alike by test, estimate and export --data (export called it binary)', async () => {
+	it('one reading path: a UTF-16 data file is read alike by data tests, data estimates and export --data (export called it binary)', async () => {
 		const { spawnSync } = await import('node:child_process');
 		const { mkdtempSync, writeFileSync } = await import('node:fs');
 		const { join } = await import('node:path');
@@ -146,11 +146,11 @@ describe('bad input: one line on stderr, exit 2', () => {
 		const utf16 = join(dir, 'mtcars-utf16.csv');
 		writeFileSync(utf16, Buffer.concat([Buffer.from([0xff, 0xfe]), Buffer.from(readFileSync(MTCARS_CSV, 'utf8'), 'utf16le')]));
 		const cli = (...args: string[]) => spawnSync('node', ['bin/causeway.js', ...args], { encoding: 'utf8' });
-		const plain = cli('estimate', MTCARS, MTCARS_CSV, '--json');
-		const wide = cli('estimate', MTCARS, utf16, '--json');
+		const plain = cli('data', 'estimates', MTCARS, MTCARS_CSV, '--json');
+		const wide = cli('data', 'estimates', MTCARS, utf16, '--json');
 		expect([plain.status, wide.status]).toEqual([0, 0]);
 		expect(JSON.parse(wide.stdout).estimates).toEqual(JSON.parse(plain.stdout).estimates);
-		expect(cli('test', MTCARS, utf16).status).toBe(0);
+		expect(cli('data', 'tests', MTCARS, utf16).status).toBe(0);
 		const report = cli('export', MTCARS, '--data', utf16, '--format', 'report-md', '-o', join(dir, 'r.md'));
 		expect(report.stderr).toBe('');
 		expect(report.status).toBe(0);
@@ -159,10 +159,10 @@ describe('bad input: one line on stderr, exit 2', () => {
 
 	it('the built command streams a file from disk and keeps to one line on bad input', async () => {
 		const { spawnSync } = await import('node:child_process');
-		const ok = spawnSync('node', ['bin/causeway.js', 'estimate', MTCARS, MTCARS_CSV, '--json'], { encoding: 'utf8' });
+		const ok = spawnSync('node', ['bin/causeway.js', 'data', 'estimates', MTCARS, MTCARS_CSV, '--json'], { encoding: 'utf8' });
 		expect(ok.status).toBe(0);
 		expect(JSON.parse(ok.stdout).estimates.rows.length).toBeGreaterThan(1);
-		const bad = spawnSync('node', ['bin/causeway.js', 'test', MTCARS, 'package.json'], { encoding: 'utf8' });
+		const bad = spawnSync('node', ['bin/causeway.js', 'data', 'tests', MTCARS, 'package.json'], { encoding: 'utf8' });
 		expect(bad.status).toBe(2);
 		expect(bad.stderr.trim().split('\n')).toHaveLength(1);
 	});
@@ -173,20 +173,20 @@ describe('the diagram file carries the data settings (R 4.2 on infert, make-sett
 	const INFERT = 'tests/fixtures/datacheck/infert.csv';
 	const ref = JSON.parse(readFileSync('tests/fixtures/datacheck/settings.json', 'utf8'));
 
-	it('`causeway estimate DIAGRAM DATA` with no flags uses the column link, kind and value labels of the file', async () => {
-		const r = await run(['estimate', SETTINGS, INFERT, '--json']);
+	it('`causeway data estimates DIAGRAM DATA` with no flags uses the column link, kind and value labels of the file', async () => {
+		const r = await run(['data', 'estimates', SETTINGS, INFERT, '--json']);
 		expect(r.code).toBe(0);
 		const planned = JSON.parse(r.out).estimates.rows.find((x: { roles: string[] }) => x.roles.includes('planned'));
 		expect(Math.abs(planned.estimate / ref.spontaneousCategorical.or - 1)).toBeLessThan(1e-6);
-		const text = await run(['estimate', SETTINGS, INFERT]);
+		const text = await run(['data', 'estimates', SETTINGS, INFERT]);
 		expect(text.out).toMatch(/abortions/);
 	});
 
 	it('flags override the file; a linked column the data lack is refused in one line', async () => {
-		const r = await run(['estimate', SETTINGS, INFERT, '--json', '--type', 'spontaneous=continuous']);
+		const r = await run(['data', 'estimates', SETTINGS, INFERT, '--json', '--type', 'spontaneous=continuous']);
 		expect(r.code).toBe(0);
 		expect(JSON.parse(r.out).notes).toContain('The reference level and value labels of "abortions" are not used: its column \'spontaneous\' is analysed as continuous.');
-		const missing = await run(['estimate', SETTINGS, 'tests/fixtures/datacheck/mtcars.csv']);
+		const missing = await run(['data', 'estimates', SETTINGS, 'tests/fixtures/datacheck/mtcars.csv']);
 		expect(missing.code).toBe(2);
 		expect(missing.err).toBe('causeway: tests/fixtures/datacheck/mtcars.csv: The diagram links "abortions" to column "spontaneous", which is not in the data (--map overrides the diagram\'s link)\n');
 	});

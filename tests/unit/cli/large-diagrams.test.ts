@@ -37,7 +37,7 @@ describe('diagrams past the app’s limit', () => {
 	it('the app refuses the 3,000-variable fixture; the command reads it', async () => {
 		const text = readFileSync(BIG, 'utf8');
 		expect(() => parseDiagramJson(text)).toThrow(`Causeway handles at most ${MAX_VARIABLES.toLocaleString('en-GB')}`);
-		const r = await runCli(['dsep', BIG, '--from', 'v1', '--to', 'v2', '--json']);
+		const r = await runCli(['diagram', 'separation', BIG, '--from', 'v1', '--to', 'v2', '--json']);
 		expect(r.err).toBe('');
 		expect(r.code).toBe(0);
 	});
@@ -52,7 +52,7 @@ describe('diagrams past the app’s limit', () => {
 		expect(answers.queries.filter((q) => q.separated).length).toBeGreaterThan(5);
 		expect(answers.queries.filter((q) => !q.separated).length).toBeGreaterThan(5);
 		for (const q of answers.queries) {
-			const args = ['dsep', BIG, '--from', q.from.join(','), '--to', q.to.join(','), '--json'];
+			const args = ['diagram', 'separation', BIG, '--from', q.from.join(','), '--to', q.to.join(','), '--json'];
 			if (q.given.length > 0) args.push('--given', q.given.join(','));
 			const r = await runCli(args);
 			expect(r.code).toBe(0);
@@ -62,7 +62,7 @@ describe('diagrams past the app’s limit', () => {
 
 	it('reads the same diagram from a pipe as a real process', () => {
 		const q = answers.queries[0];
-		const r = spawnCli(['dsep', '-', '--from', q.from.join(','), '--to', q.to.join(','), '--given', q.given.join(','), '--json'], readFileSync(BIG, 'utf8'));
+		const r = spawnCli(['diagram', 'separation', '-', '--from', q.from.join(','), '--to', q.to.join(','), '--given', q.given.join(','), '--json'], readFileSync(BIG, 'utf8'));
 		expect(r.stderr).toBe('');
 		expect(JSON.parse(r.stdout).separated).toBe(q.separated);
 	});
@@ -72,7 +72,7 @@ describe('the command’s own limits, stated in the refusal', () => {
 	it('refuses more variables than it handles, naming its limit', async () => {
 		const n = CLI_MAX_VARIABLES + 1;
 		const text = JSON.stringify({ format: 'causeway.diagram', version: 2, variables: Array.from({ length: n }, (_, i) => ({ id: `v${i}` })), arrows: [] });
-		const r = await runCli(['check', 'many.json'], { 'many.json': text });
+		const r = await runCli(['review', 'verdict', 'many.json'], { 'many.json': text });
 		expect(r.code).toBe(2);
 		expect(oneLine(r.err)).toContain('The diagram has 250,001 variables; the causeway command handles at most 250,000');
 	});
@@ -82,29 +82,29 @@ describe('the command’s own limits, stated in the refusal', () => {
 		const fd = openSync(file, 'w');
 		ftruncateSync(fd, CLI_MAX_DIAGRAM_BYTES + 1); // sparse: no 64 MiB written
 		closeSync(fd);
-		const r = spawnCli(['check', file]);
+		const r = spawnCli(['review', 'verdict', file]);
 		expect(r.status).toBe(2);
 		expect(oneLine(r.stderr)).toContain('The file is too large: 64 MiB, but the causeway command reads at most 64 MiB of diagram');
 	});
 
 	it('stops reading a pipe once it passes the limit', () => {
-		const r = spawnSync('bash', ['-c', `head -c ${CLI_MAX_DIAGRAM_BYTES + 4096} /dev/zero | tr '\\0' ' ' | node bin/causeway.js check -`], { encoding: 'utf8' });
+		const r = spawnSync('bash', ['-c', `head -c ${CLI_MAX_DIAGRAM_BYTES + 4096} /dev/zero | tr '\\0' ' ' | node bin/causeway.js review verdict -`], { encoding: 'utf8' });
 		expect(r.status).toBe(2);
 		expect(oneLine(r.stderr)).toContain('stdin: The file is too large: more than 64 MiB');
 	});
 
-	it('claims without --max refuses a diagram with too many pairs, and lists the first N with it', async () => {
+	it('diagram claims without --max refuses a diagram with too many pairs, and lists the first N with it', async () => {
 		const ids = Array.from({ length: 3_200 }, (_, i) => `v${i}`);
 		const text = JSON.stringify({ format: 'causeway.diagram', version: 2, variables: ids.map((id) => ({ id })), arrows: ids.slice(1).map((id, i) => ({ from: ids[i], to: id })) });
-		const refused = await runCli(['claims', 'chain.json'], { 'chain.json': text });
+		const refused = await runCli(['diagram', 'claims', 'chain.json'], { 'chain.json': text });
 		expect(refused.code).toBe(2);
 		expect(oneLine(refused.err)).toContain('5,118,400 pairs, more than the 5,000,000 the command goes through in full (its limit); give --max N');
-		const first = await runCli(['claims', 'chain.json', '--max', '3', '--json'], { 'chain.json': text });
+		const first = await runCli(['diagram', 'claims', 'chain.json', '--max', '3', '--json'], { 'chain.json': text });
 		expect(first.code).toBe(0);
 		expect(JSON.parse(first.out).claims).toHaveLength(3);
 	});
 
-	it('roles refuses past its work limit and answers for chosen variables with --only', async () => {
+	it('plan roles refuses past its work limit and answers for chosen variables with --only', async () => {
 		const n = 20_000;
 		const ids = Array.from({ length: n }, (_, i) => `v${i}`);
 		const text = JSON.stringify({
@@ -115,11 +115,12 @@ describe('the command’s own limits, stated in the refusal', () => {
 			exposures: ['v10'],
 			outcomes: ['v20']
 		});
-		const refused = await runCli(['roles', 'chain.json'], { 'chain.json': text });
+		const refused = await runCli(['plan', 'roles', 'chain.json'], { 'chain.json': text });
 		expect(refused.code).toBe(2);
-		expect(oneLine(refused.err)).toMatch(/roles tests each variable .* over the command's limit of 6\.0e\+8 .* give --only a,b/);
+		// Counts in full, never in e-notation (n × (n + arrows) = 20,000 × 39,999).
+		expect(oneLine(refused.err)).toContain("plan roles tests each variable with a search over the whole diagram: 20,000 variables × (20,000 + 19,999 arrows) = 799,980,000 steps, over the command's limit of 600,000,000 (about 20 s); give --only a,b");
 		// A chain v0 → … → v19999 (from memory): v5 causes the exposure only, v15 is between them.
-		const some = await runCli(['roles', 'chain.json', '--only', 'v5,v15,v30', '--json'], { 'chain.json': text });
+		const some = await runCli(['plan', 'roles', 'chain.json', '--only', 'v5,v15,v30', '--json'], { 'chain.json': text });
 		expect(some.code).toBe(0);
 		expect(JSON.parse(some.out).roles).toEqual([
 			{ id: 'v5', roles: ['instrument-like'] },
@@ -143,16 +144,16 @@ describe('caps stated in the output', () => {
 	const ids = [...new Set(arrows.flat())];
 	const text = JSON.stringify({ format: 'causeway.diagram', version: 2, variables: ids.map((id) => ({ id })), arrows: arrows.map(([from, to]) => ({ from, to })), exposures: ['x'], outcomes: ['y'] });
 
-	it('sets lists at most the default cap and says so in text and JSON', async () => {
-		const json = await runCli(['sets', 'd.json', '--json'], { 'd.json': text });
+	it('plan sets lists at most the default cap and says so in text and JSON', async () => {
+		const json = await runCli(['plan', 'sets', 'd.json', '--json'], { 'd.json': text });
 		const j = JSON.parse(json.out);
 		expect(j.max).toBe(CLI_DEFAULT_LISTED_SETS);
 		expect(j.sets).toHaveLength(CLI_DEFAULT_LISTED_SETS);
 		expect(j.truncated).toBe(true);
-		const plain = await runCli(['sets', 'd.json'], { 'd.json': text });
+		const plain = await runCli(['plan', 'sets', 'd.json'], { 'd.json': text });
 		expect(plain.out).toContain(`(at most ${CLI_DEFAULT_LISTED_SETS} listed; --max N to change)`);
 		expect(plain.out).toContain(`stopped after ${CLI_DEFAULT_LISTED_SETS} sets (the cap, --max ${CLI_DEFAULT_LISTED_SETS}); more exist`);
-		const all = JSON.parse((await runCli(['sets', 'd.json', '--json', '--max', '1000'], { 'd.json': text })).out);
+		const all = JSON.parse((await runCli(['plan', 'sets', 'd.json', '--json', '--max', '1000'], { 'd.json': text })).out);
 		expect(all.sets).toHaveLength(121);
 		expect(all.truncated).toBe(false);
 		expect(all.max).toBe(1000);
@@ -162,21 +163,21 @@ describe('caps stated in the output', () => {
 describe('output that cannot be written: one line, exit 2', () => {
 	it('-o into a folder that does not exist', () => {
 		const target = join(dir, 'no-such-folder', 'out.dot');
-		const r = spawnCli(['convert', BIG, '-o', target]);
+		const r = spawnCli(['export', BIG, '-o', target]);
 		expect(r.status).toBe(2);
 		expect(oneLine(r.stderr)).toBe(`causeway: cannot write "${target}": its folder does not exist`);
 	});
 
 	it('a full disk (/dev/full) on standard output', () => {
 		if (!existsSync('/dev/full')) return; // Linux only
-		const r = spawnSync('bash', ['-c', `node bin/causeway.js dsep "${BIG}" --from v1 --to v2 > /dev/full`], { encoding: 'utf8' });
+		const r = spawnSync('bash', ['-c', `node bin/causeway.js diagram separation "${BIG}" --from v1 --to v2 > /dev/full`], { encoding: 'utf8' });
 		expect(r.status).toBe(2);
 		expect(oneLine(r.stderr)).toBe('causeway: cannot write the output: no space left on the device (ENOSPC)');
 	});
 
 	it('a failing file writer in-process (no stack trace, no "internal error")', async () => {
 		let err = '';
-		const code = await main(['convert', BIG, '-o', 'out/x.json'], {
+		const code = await main(['export', BIG, '-o', 'out/x.json'], {
 			stdout: () => undefined,
 			stderr: (t) => (err += t),
 			writeFile: async () => {

@@ -1,6 +1,6 @@
 /**
- * `causeway review`, `robust`, `diff` and `instruments`: JSON shape, plain-text wording, exit
- * codes (review 1 when the stated set is not sufficient; 2 with one line on stderr for bad
+ * `causeway review` (advice, robustness), `compare` and `plan instruments`: JSON shape,
+ * plain-text wording, exit codes (review 1 when the stated set is not sufficient; 2 with one line on stderr for bad
  * usage or input), run in-process through main() with injected files.
  */
 import { describe, expect, it } from 'vitest';
@@ -54,9 +54,9 @@ describe('causeway review', () => {
 	});
 });
 
-describe('causeway robust', () => {
+describe('causeway review robustness', () => {
 	it('ranks the single changes that break the plan; JSON lists them all with witnesses', async () => {
-		const r = await run(['robust', 'm.json', '--adjust', '', '--json'], { 'm.json': MBIAS });
+		const r = await run(['review', 'robustness', 'm.json', '--adjust', '', '--json'], { 'm.json': MBIAS });
 		expect(r.code).toBe(0);
 		const j = JSON.parse(r.out);
 		expect(j.applicable).toBe(true);
@@ -68,21 +68,21 @@ describe('causeway robust', () => {
 	});
 
 	it('plain text says what the plan depends on; exit 1 when the set is not sufficient to begin with', async () => {
-		const ok = await run(['robust', DEMO, '--max', '3']);
+		const ok = await run(['review', 'robustness', DEMO, '--max', '3']);
 		expect(ok.code).toBe(0);
 		expect(ok.out).toContain('The plan depends on there being no arrow from cycling to diet');
 		expect(ok.out).toMatch(/… \d+ more/);
-		const bad = await run(['robust', DEMO, '--adjust', 'bmi']);
+		const bad = await run(['review', 'robustness', DEMO, '--adjust', 'bmi']);
 		expect(bad.code).toBe(1);
 		expect(bad.out).toContain('not sufficient to begin with');
 	});
 });
 
-describe('causeway diff', () => {
+describe('causeway compare', () => {
 	it('renames by label, added arrow, verdict change', async () => {
 		const a = diagram([['c', 'x'], ['x', 'y'], ['s', 'x']], { exposures: ['x'], outcomes: ['y'], adjusted: ['c'] }, { s: 'Social class' });
 		const b = diagram([['c', 'x'], ['x', 'y'], ['c', 'y'], ['klass', 'x'], ['klass', 'y']], { exposures: ['x'], outcomes: ['y'] }, { klass: 'social_class' });
-		const r = await run(['diff', 'a.json', 'b.json', '--json'], { 'a.json': a, 'b.json': b });
+		const r = await run(['compare', 'a.json', 'b.json', '--json'], { 'a.json': a, 'b.json': b });
 		expect(r.code).toBe(0);
 		const j = JSON.parse(r.out);
 		expect(j.renamed).toEqual([{ first: 's', second: 'klass', how: 'label', firstLabel: 'Social class', secondLabel: 'social_class' }]);
@@ -91,21 +91,21 @@ describe('causeway diff', () => {
 			{ from: 's', to: 'y' }
 		]);
 		expect(j.verdicts).toEqual({ planned: ['c'], first: true, second: false, note: null });
-		const text = await run(['diff', 'a.json', 'b.json'], { 'a.json': a, 'b.json': b });
+		const text = await run(['compare', 'a.json', 'b.json'], { 'a.json': a, 'b.json': b });
 		expect(text.out).toContain('Renamed: s → klass (matched by label)');
 		expect(text.out).toContain('sufficient under the first, NOT sufficient under the second');
 	});
 
 	it('needs exactly two files', async () => {
-		const r = await run(['diff', DEMO]);
+		const r = await run(['compare', DEMO]);
 		expect(r.code).toBe(2);
-		expect(r.err).toContain('diff needs two diagram files');
+		expect(r.err).toContain('compare needs two diagram files');
 	});
 });
 
-describe('causeway instruments', () => {
+describe('causeway plan instruments', () => {
 	it('lists the demo study’s instrument-like variables as instruments', async () => {
-		const r = await run(['instruments', DEMO, '--json']);
+		const r = await run(['plan', 'instruments', DEMO, '--json']);
 		expect(r.code).toBe(0);
 		expect(JSON.parse(r.out)).toEqual({
 			instruments: [
@@ -116,7 +116,7 @@ describe('causeway instruments', () => {
 	});
 
 	it('two exposures: exit 2 with one line', async () => {
-		const r = await run(['instruments', DEMO, '--exposure', 'cycling,age']);
+		const r = await run(['plan', 'instruments', DEMO, '--exposure', 'cycling,age']);
 		expect(r.code).toBe(2);
 		expect(r.err).toContain('exactly one exposure and one outcome');
 	});

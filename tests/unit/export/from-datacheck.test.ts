@@ -115,7 +115,7 @@ describe('data results from the data-check pipeline', () => {
 		// The command's report also prints the commands that reproduce it, with the paths it was given.
 		const withFiles = reportDataFromChecks(checks, labelLookup(d), 'cycling-hypertension.csv', { diagram: d, files: { diagram: DEMO_PATH, data: CSV } });
 		expect(out).toBe(reportMarkdown(buildReport({ diagram: d, data: withFiles, date: new Date(2026, 2, 1) })));
-		expect(out).toContain(`npx causeway estimate ${DEMO_PATH} ${CSV}`);
+		expect(out).toContain(`npx causeway data estimates ${DEMO_PATH} ${CSV}`);
 	});
 
 	it('states how each variable met the data (column, kind, reference level)', () => {

@@ -81,8 +81,8 @@ describe('the report prints the commands that reproduce its figures', () => {
 	const commands = printedCommands(md);
 	const run = (command: string) => execSync(command, { cwd: folder, encoding: 'utf8', timeout: 120_000 });
 
-	it('prints `npx causeway test` and `npx causeway estimate` on the two files, with no flags', () => {
-		expect(commands).toEqual([`npx causeway test 'cycling study.causeway.json' cycling-hypertension.csv`, `npx causeway estimate 'cycling study.causeway.json' cycling-hypertension.csv`]);
+	it('prints `npx causeway data tests` and `npx causeway data estimates` on the two files, with no flags', () => {
+		expect(commands).toEqual([`npx causeway data tests 'cycling study.causeway.json' cycling-hypertension.csv`, `npx causeway data estimates 'cycling study.causeway.json' cycling-hypertension.csv`]);
 		expect(shellWord("it's.csv")).toBe(`'it'\\''s.csv'`);
 		expect(md).toContain('| Commutes by bicycle | cycling | binary (chosen) | bicycle |');
 		// The variables table carries the settings themselves (what the file holds).

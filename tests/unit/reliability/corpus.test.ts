@@ -181,20 +181,20 @@ describe('the causeway command on the corpus', () => {
 				pathOf.set(e.name, file);
 			}
 		}
-		hasTestCommand = (await inProcess(['test', '--help'])).code === 0;
+		hasTestCommand = (await inProcess(['data', 'tests', '--help'])).code === 0;
 		const record = (name: string, r: Run) => results.set(name, [...(results.get(name) ?? []), r]);
 		for (const e of diagrams) {
 			const file = pathOf.get(e.name) as string;
-			if (e.expect === 'ok') record(e.name, await inProcess(['convert', file, '-o', '-']));
+			if (e.expect === 'ok') record(e.name, await inProcess(['export', file, '--format', 'json']));
 			else {
-				record(e.name, await inProcess(['roles', file]));
-				if (e.expect === 'invalid') record(e.name, await inProcess(['sets', file, '--json']));
+				record(e.name, await inProcess(['plan', 'roles', file]));
+				if (e.expect === 'invalid') record(e.name, await inProcess(['plan', 'sets', file, '--json']));
 			}
 		}
-		if (hasTestCommand) for (const e of tables) record(e.name, await inProcess(['test', 'static/demo/cycling-hypertension.causeway.json', pathOf.get(e.name) as string]));
+		if (hasTestCommand) for (const e of tables) record(e.name, await inProcess(['data', 'tests', 'static/demo/cycling-hypertension.causeway.json', pathOf.get(e.name) as string]));
 		// Real processes: the first refused and the first legal file of each folder.
 		const sample = ['json/', 'dot/', 'other/'].flatMap((d) => ['error', 'invalid', 'ok'].map((k) => diagrams.find((e) => e.name.startsWith(d) && e.expect === k && !e.analysisRuns)));
-		const runs = await Promise.all(sample.filter((e) => e !== undefined).map(async (e) => [e.name, await spawnCli(e.expect === 'ok' ? ['convert', pathOf.get(e.name) as string, '-o', '-'] : ['roles', pathOf.get(e.name) as string])] as const));
+		const runs = await Promise.all(sample.filter((e) => e !== undefined).map(async (e) => [e.name, await spawnCli(e.expect === 'ok' ? ['export', pathOf.get(e.name) as string, '--format', 'json'] : ['plan', 'roles', pathOf.get(e.name) as string])] as const));
 		expect(runs.length).toBeGreaterThanOrEqual(6);
 		for (const [name, r] of runs) record(name, r);
 	}, 120_000);
@@ -232,7 +232,7 @@ describe('the causeway command on the corpus', () => {
 
 	it.each(diagrams.map((e) => [e.name, e] as const))('%s', (_name, e) => check(e));
 
-	it.each(tables.map((e) => [e.name, e] as const))('%s (causeway test DIAGRAM DATA)', (_name, e) => {
+	it.each(tables.map((e) => [e.name, e] as const))('%s (causeway data tests DIAGRAM DATA)', (_name, e) => {
 		if (!hasTestCommand) {
 			// The data commands are not registered yet (src/cli/commands, another area): nothing to run.
 			expect(results.has(e.name)).toBe(false);

@@ -1,8 +1,10 @@
-/** Text output shared by `causeway test` and `causeway estimate`: header, notices, tables. */
-import type { DataCheckReport, TwoWayTable } from '../../lib/datacheck';
-import { categoryCodeNotice, chiSquareText, kindText, levelOddsRatioCells, tableRiskDifferenceText, twoWayCells } from '../../lib/wording';
-import type { Context } from '../command';
-export type { Command } from '../command';
+/** Text output shared by `causeway data tests` and `causeway data estimates`: header, notices, tables. */
+import type { DataCheckReport, TwoWayTable } from '../../../lib/datacheck';
+import { categoryCodeNotice, chiSquareText, kindText, levelOddsRatioCells, tableRiskDifferenceText, twoWayCells } from '../../../lib/wording';
+import type { Context } from '../../command';
+import { describeCount } from '../../../lib/limits';
+import { counted } from '../../words';
+export type { Command } from '../../command';
 
 /** Columns padded to their widest cell; `right` columns aligned right (numbers). O(cells). */
 export function textTable(head: readonly string[], rows: readonly (readonly string[])[], right: (column: number) => boolean = (j) => j > 0): string[] {
@@ -36,7 +38,8 @@ export const COMMON_DATA_PRINT = {
 	header(ctx: Context, report: DataCheckReport, dataName: string): void {
 		const mapped = Object.keys(report.mapping.columns).length;
 		const measured = mapped + report.mapping.unmapped.length;
-		ctx.print(`Data: ${dataName}, ${report.rowCount} rows; ${mapped} of ${measured} measured variables have a column.`);
+		const have = measured === 1 ? 'measured variable has' : 'measured variables have';
+		ctx.print(`Data: ${dataName}, ${counted(report.rowCount, 'row')}; ${describeCount(mapped)} of ${describeCount(measured)} ${have} a column.`);
 		for (const n of report.notes) ctx.print(`  ${n}`);
 		for (const a of report.mapping.ambiguous) ctx.print(`  "${a.variableId}" matches several columns (${a.columns.join(', ')}); choose one with --map.`);
 		for (const c of report.categoryCodes) ctx.print(`  Notice: ${categoryCodeNotice(c.column, c.values, 'cli')}`);

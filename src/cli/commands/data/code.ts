@@ -1,29 +1,28 @@
 /**
- * `causeway code DIAGRAM DATA.csv --language r|stata|sas|python`: analysis code for one
+ * `causeway data code DIAGRAM DATA.csv --language r|stata|sas|python`: analysis code for one
  * adjustment set (the planned set by default; --set optimal, minimal, minimal:2, crude), using
  * the data settings (columns, kinds, reference levels, the file's delimiter) — the same
- * models as `causeway estimate`, for the analysis plan. src/lib/export/code makes the text.
+ * models as `causeway data estimates`, for the analysis plan. src/lib/export/code makes the text.
  */
 import { writeFile } from 'node:fs/promises';
-import type { EstimateRow } from '../../lib/datacheck';
-import { InputError } from '../../lib/graph/errors';
-import { analysisCode, CODE_FILE, CODE_LANGUAGES, codeSpec, isCodeLanguage, type CodeLanguage } from '../../lib/export/code';
-import { SOFTWARE_NAME, SOFTWARE_VERSION } from '../../lib/export/version';
-import { QUESTION, QUESTION_HELP, type Command } from '../command';
-import { UsageError } from '../io';
-import { DATA_HELP, DATA_OPTIONS, runOnData } from './data-input';
-import { SUMMARY } from '../summaries';
+import type { EstimateRow } from '../../../lib/datacheck';
+import { InputError } from '../../../lib/graph/errors';
+import { analysisCode, CODE_FILE, CODE_LANGUAGES, codeSpec, isCodeLanguage, type CodeLanguage } from '../../../lib/export/code';
+import { SOFTWARE_NAME, SOFTWARE_VERSION } from '../../../lib/export/version';
+import { QUESTION, QUESTION_HELP, type Command } from '../../command';
+import { UsageError } from '../../io';
+import { DATA_HELP, DATA_OPTIONS, runOnData } from './input';
 
-const USAGE = `causeway code DIAGRAM DATA.csv --language ${CODE_LANGUAGES.join('|')} [--set planned|optimal|minimal[:N]|crude] [--adjust a,b] [-o FILE] [--json]`;
+const USAGE = `causeway data code DIAGRAM DATA.csv --language ${CODE_LANGUAGES.join('|')} [--set planned|optimal|minimal[:N]|crude] [--adjust a,b] [-o FILE] [--json]`;
 
 /** The language from --language, or from the output file's extension. */
-function languageOf(named: unknown, out: string): CodeLanguage {
+function languageOf(named: unknown, out: string, name: string): CodeLanguage {
 	if (typeof named === 'string') {
 		if (!isCodeLanguage(named)) throw new UsageError(`--language must be one of ${CODE_LANGUAGES.join(', ')}, not "${named}"`);
 		return named;
 	}
 	const byExtension = CODE_LANGUAGES.find((l) => out.toLowerCase().endsWith(CODE_FILE[l].extension.toLowerCase()));
-	if (!byExtension) throw new UsageError(`code needs --language (${CODE_LANGUAGES.join(', ')})`);
+	if (!byExtension) throw new UsageError(`${name} needs --language (${CODE_LANGUAGES.join(', ')})`);
 	return byExtension;
 }
 
@@ -42,8 +41,7 @@ function pickRow(rows: readonly EstimateRow[], wanted: string): EstimateRow {
 	return row;
 }
 
-export const codeCommand: Command = {
-	summary: SUMMARY.code,
+export const code: Command = {
 	usage: USAGE,
 	details: `Writes the analysis code for one adjustment set, for the statistical analysis plan: reading
 the data file, complete cases, categorical columns as factors with Causeway's reference level,
@@ -62,7 +60,7 @@ ${QUESTION_HELP}`,
 	options: { ...DATA_OPTIONS, ...QUESTION, language: { type: 'string' }, set: { type: 'string' }, adjust: { type: 'string', multiple: true }, output: { type: 'string', short: 'o' } },
 	async run(ctx) {
 		const out = typeof ctx.values.output === 'string' ? ctx.values.output : '-';
-		const language = languageOf(ctx.values.language, out);
+		const language = languageOf(ctx.values.language, out, ctx.name);
 		if (ctx.values.summary === true) throw new UsageError('analysis code needs a data file, not a summary matrix (--summary)');
 		const { report, diagram, dataName } = await runOnData(ctx, USAGE, { planned: ctx.list('adjust'), parts: { arrows: false, claims: false, confounders: false } });
 		if (!report.estimates) throw new InputError(report.estimatesMessage ?? 'No estimates can be made for this question');

@@ -1,17 +1,16 @@
-/** `causeway instruments`: conditional instruments for the exposure, with their conditioning sets. */
-import { conditionalInstruments } from '../../lib/causal';
-import { QUESTION, QUESTION_HELP, type Command } from '../command';
-import { SUMMARY } from '../summaries';
+/** `causeway plan instruments`: conditional instruments for the exposure, with their conditioning sets. */
+import { conditionalInstruments } from '../../../lib/causal';
+import { QUESTION, QUESTION_HELP, type Command } from '../../command';
 
 export const instruments: Command = {
-	summary: SUMMARY.instruments,
-	usage: 'causeway instruments DIAGRAM [--exposure x] [--outcome y] [--json]',
+	usage: 'causeway plan instruments DIAGRAM [--exposure x] [--outcome y] [--json]',
 	details: `Lists the measured variables that are instruments for the total effect of the (single)
 exposure on the (single) outcome, each with a conditioning set: ancestral instruments found
 with the nearest separator (van der Zander, Textor & Liśkiewicz, IJCAI 2015). An instrument
 is an alternative to adjustment when confounding cannot be blocked; its validity rests on
 the diagram, like everything else here.
-${QUESTION_HELP}`,
+${QUESTION_HELP}
+  --json           {"instruments": [{"variable", "given"}]}`,
 	options: { ...QUESTION },
 	async run(ctx) {
 		const d = await ctx.diagram();

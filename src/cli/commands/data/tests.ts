@@ -1,20 +1,20 @@
 /**
- * `causeway test DIAGRAM DATA.csv`: checks the diagram against data — each arrow's marginal
- * association, and each implied independence tested with Holm and Benjamini–Hochberg
- * adjusted p-values (contradicted claims first). Same pipeline as the app's data pane.
+ * `causeway data [tests] DIAGRAM DATA.csv` (the data job's default view): checks the diagram
+ * against data — each arrow's marginal association, and each implied independence tested
+ * with Holm and Benjamini–Hochberg adjusted p-values (contradicted claims first). Same
+ * pipeline as the app's data pane.
  */
-import { COMMON_DATA_PRINT, kindOf, twoWayLines, type Command } from './data-print';
-import { formatNumber, formatP, pText, resultText, smallSizeRule, testSummary } from '../../lib/wording';
-import { CAUTION, DATA_HELP, DATA_OPTIONS, reportJson, runOnData } from './data-input';
-import { UsageError } from '../io';
-import { SUMMARY } from '../summaries';
+import { COMMON_DATA_PRINT, kindOf, twoWayLines, type Command } from './print';
+import { formatCount, formatNumber, formatP, pText, resultText, smallSizeRule, testSummary } from '../../../lib/wording';
+import { CAUTION, DATA_HELP, DATA_OPTIONS, reportJson, runOnData } from './input';
+import { UsageError } from '../../io';
+import { counted } from '../../words';
 
-const USAGE = 'causeway test DIAGRAM DATA.csv [--map var=column,…] [--type column=kind,…] [--alpha 0.05] [--max N] [--summary] [--json]';
+const USAGE = 'causeway data [tests] DIAGRAM DATA.csv [--map var=column,…] [--type column=kind,…] [--alpha 0.05] [--max N] [--summary] [--json]';
 
 const SUPPORT_WORD = { supported: 'supported', weak: 'weak', absent: 'not found', untested: 'not tested' } as const;
 
-export const testCommand: Command = {
-	summary: SUMMARY.test,
+export const tests: Command = {
 	usage: USAGE,
 	details: `For every arrow between two variables with data: the marginal association (test chosen by
 the column kinds), its size in the measure one reads (odds ratio per level against the
@@ -24,13 +24,14 @@ analysed as, and whether the data support it (supported: p < alpha and at least 
 weak; not found). Arrows into or out of the exposure or the outcome between two discrete
 columns also get their two-way table: counts with row proportions, X² with df and p, and the
 odds ratio of each level against the reference. Columns whose values look like category
-codes (3–10 whole numbers) are named. For every independence the diagram implies among variables with data: a
-conditional-independence test, with Holm and Benjamini–Hochberg adjusted p-values; a claim is
-contradicted when its Holm-adjusted p-value is below alpha, and the arrow that would remove it
-is suggested.
+codes (3–10 whole numbers) are named. For every independence the diagram implies among
+variables with data ("causeway diagram claims"): a conditional-independence test, with Holm
+and Benjamini–Hochberg adjusted p-values; a claim is contradicted when its Holm-adjusted
+p-value is below alpha, and the arrow that would remove it is suggested.
 ${DATA_HELP}
   --alpha A     significance level (default 0.05)
-  --max N       test at most N claims`,
+  --max N       test at most N claims
+  --json        {"mapping", "columns", "arrows", "claims", "categoryCodes", "rowCount", …}`,
 	options: { ...DATA_OPTIONS, alpha: { type: 'string' }, max: { type: 'string' } },
 	async run(ctx) {
 		const alphaText = ctx.values.alpha;
@@ -46,7 +47,7 @@ ${DATA_HELP}
 		const { arrows, claims } = report;
 		const kind = kindOf(report);
 		const question = new Set([...diagram.exposures, ...diagram.outcomes]);
-		ctx.print(`\nArrow checks (alpha = ${alpha}):`);
+		ctx.print(`\nArrow checks (alpha = ${formatNumber(alpha)}):`);
 		const width = Math.max(0, ...arrows.checks.map((c) => `${c.from} → ${c.to}`.length));
 		for (const c of arrows.checks) {
 			const name = `${c.from} → ${c.to}`.padEnd(width);
@@ -60,7 +61,7 @@ ${DATA_HELP}
 		}
 		for (const s of arrows.skipped) ctx.print(`  ${s.from} → ${s.to}: not checked (${s.why})`);
 		if (arrows.checks.length + arrows.skipped.length === 0) ctx.print('  The diagram has no arrows.');
-		ctx.print(`\nClaim checks: ${claims.tested} tested, ${claims.contradicted} contradicted (Holm-adjusted p < ${alpha}):`);
+		ctx.print(`\nClaim checks: ${claims.tested} tested, ${claims.contradicted} contradicted (Holm-adjusted p < ${formatNumber(alpha)}):`);
 		for (const c of claims.checks) {
 			const claim = `${c.a} ⟂ ${c.b}${c.given.length ? ` | ${c.given.join(', ')}` : ''}`;
 			if (!c.main) {
@@ -70,9 +71,9 @@ ${DATA_HELP}
 			const tag = c.status === 'contradicted' ? 'CONTRADICTED' : 'consistent';
 			const effect = c.main.effects[0] ? `${c.main.effects[0].name} = ${formatNumber(c.main.effects[0].value)}, ` : '';
 			const suggestion = c.suggestedArrows.length ? `; missing arrow? ${c.suggestedArrows.map((a) => `${a.from} → ${a.to}`).join(' or ')}` : '';
-			ctx.print(`  ${tag.padEnd(12)}  ${claim}: ${effect}${pText(c.p)}, Holm ${formatP(c.pHolm)}, BH ${formatP(c.pBH)}, n = ${c.main.n}${suggestion}`);
+			ctx.print(`  ${tag.padEnd(12)}  ${claim}: ${effect}${pText(c.p)}, Holm ${formatP(c.pHolm)}, BH ${formatP(c.pBH)}, n = ${formatCount(c.main.n)}${suggestion}`);
 		}
-		if (claims.truncated) ctx.print(`  … stopped after ${claims.checks.length} claims (--max)`);
+		if (claims.truncated) ctx.print(`  … stopped after ${counted(claims.checks.length, 'claim')} (--max)`);
 		for (const p of claims.noTestableClaim) ctx.print(`  ${p.a} and ${p.b}: not adjacent, but no set of variables with data makes them independent (nothing to test)`);
 		ctx.print(`\n${CAUTION}`);
 		return 0;

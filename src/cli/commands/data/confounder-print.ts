@@ -1,12 +1,13 @@
 /**
- * The text of `causeway estimate` beyond the estimate rows: the confounder check of every
+ * The text of `causeway data estimates` beyond the estimate rows: the confounder check of every
  * candidate (associations in the measure read, two-way tables of discrete pairs, crude →
  * adjusted on the same rows, Mantel–Haenszel with Breslow–Day–Tarone) and the standardized
  * estimates with the split of the odds ratio's change. Words from src/lib/wording.
  */
-import type { CandidateCheck, ConfounderChecks, Estimates, PairSummary } from '../../lib/datacheck';
+import type { CandidateCheck, ConfounderChecks, Estimates, PairSummary } from '../../../lib/datacheck';
 import {
 	changeText,
+	formatNumber,
 	collapsibilitySentence,
 	CONFOUNDER_CHECK_INTRO,
 	effectModification,
@@ -18,9 +19,9 @@ import {
 	standardizedText,
 	STANDARDIZED_METHOD,
 	stratifiedText
-} from '../../lib/wording';
-import type { Context } from '../command';
-import { twoWayLines } from './data-print';
+} from '../../../lib/wording';
+import type { Context } from '../../command';
+import { twoWayLines } from './print';
 
 function pairLine(p: PairSummary | null, what: string): string[] {
 	if (!p) return [];
@@ -48,7 +49,7 @@ function candidateLines(c: CandidateCheck, x: ConfounderChecks, kind: (column: s
 }
 
 export function printConfounderCheck(ctx: Context, x: ConfounderChecks, kind: (column: string) => string, alpha = 0.05): void {
-	ctx.print(`\nConfounder check (exposure ${x.exposure}, outcome ${x.outcome}; alpha = ${alpha}):`);
+	ctx.print(`\nConfounder check (exposure ${x.exposure}, outcome ${x.outcome}; alpha = ${formatNumber(alpha)}):`);
 	ctx.print(`  ${CONFOUNDER_CHECK_INTRO}`);
 	for (const c of x.candidates) for (const line of candidateLines(c, x, kind, alpha)) ctx.print(line);
 	if (x.candidates.length === 0) ctx.print('  No other variable has data.');

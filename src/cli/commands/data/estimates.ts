@@ -1,23 +1,21 @@
 /**
- * `causeway estimate DIAGRAM DATA.csv`: crude versus adjusted estimates of the exposure's
+ * `causeway data estimates DIAGRAM DATA.csv`: crude versus adjusted estimates of the exposure's
  * effect — for each minimal sufficient set, the efficiency-optimal set and the planned set —
  * with 95 % CIs, the change from crude, warnings and the E-value of the planned estimate.
  * Same pipeline as the app's data pane.
  */
-import { InputError } from '../../lib/graph/errors';
-import { own } from '../../lib/stats/own';
-import { braces } from '../../lib/datacheck';
-import { DATA_VIEW_TEXT, formatCi, formatCount, formatNumber, formatPercent } from '../../lib/wording';
-import { QUESTION, QUESTION_HELP } from '../command';
+import { InputError } from '../../../lib/graph/errors';
+import { own } from '../../../lib/stats/own';
+import { braces } from '../../../lib/datacheck';
+import { DATA_VIEW_TEXT, formatCi, formatCount, formatNumber, formatPercent } from '../../../lib/wording';
+import { QUESTION, QUESTION_HELP } from '../../command';
 import { printConfounderCheck, printStandardized } from './confounder-print';
-import { COMMON_DATA_PRINT, kindOf, type Command } from './data-print';
-import { CAUTION, DATA_HELP, DATA_OPTIONS, reportJson, runOnData } from './data-input';
-import { SUMMARY } from '../summaries';
+import { COMMON_DATA_PRINT, kindOf, type Command } from './print';
+import { CAUTION, DATA_HELP, DATA_OPTIONS, reportJson, runOnData } from './input';
 
-const USAGE = 'causeway estimate DIAGRAM DATA.csv [--adjust a,b] [--exposure x] [--outcome y] [--map …] [--type …] [--max N] [--summary] [--json]';
+const USAGE = 'causeway data estimates DIAGRAM DATA.csv [--adjust a,b] [--exposure x] [--outcome y] [--map …] [--type …] [--max N] [--summary] [--json]';
 
-export const estimateCommand: Command = {
-	summary: SUMMARY.estimate,
+export const estimates: Command = {
 	usage: USAGE,
 	details: `Estimates the effect of the exposure on the outcome: an odds ratio from logistic regression
 for a binary outcome, a difference from linear regression otherwise; crude, then adjusted for
@@ -38,7 +36,8 @@ levels (fifths of a numeric one) with the Breslow–Day test, Tarone's correctio
 ${DATA_HELP}
   --adjust a,b    the planned set, replacing the file's (use --adjust "" for none)
   --max N         show at most N minimal sets (default 20)
-${QUESTION_HELP}`,
+${QUESTION_HELP}
+  --json          {"mapping", "estimates", "estimatesMessage", "confounders", "columns", …}`,
 	options: { ...DATA_OPTIONS, ...QUESTION, adjust: { type: 'string', multiple: true }, max: { type: 'string' } },
 	async run(ctx) {
 		const { report, dataName } = await runOnData(ctx, USAGE, { planned: ctx.list('adjust'), maxSets: ctx.count('max'), parts: { arrows: false, claims: false } });

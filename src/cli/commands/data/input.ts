@@ -1,5 +1,5 @@
 /**
- * What `causeway test` and `causeway estimate` share: reading DIAGRAM and DATA (two
+ * What the views of `causeway data` (tests, estimates, code) share: reading DIAGRAM and DATA (two
  * positionals), the --map / --type / --summary options, and running the same pipeline as
  * the app (src/lib/datacheck). The diagram file's data settings (each variable's column,
  * kind, reference level, value labels) are used as the app used them; --map and --type
@@ -7,13 +7,13 @@
  */
 import { createReadStream } from 'node:fs';
 import { readFile, stat } from 'node:fs/promises';
-import type { Diagram } from '../../lib/graph/diagram';
-import { InputError } from '../../lib/graph/errors';
-import { parseTable, parseTableStream, StatsError, type ColumnKind, type Table, type TableSource } from '../../lib/stats';
-import { parseSummaryMatrix, runDataChecks, runSummaryChecks, SETTINGS_WHERE, type DataCheckOptions, type DataCheckReport } from '../../lib/datacheck';
-import { UsageError } from '../io';
-import { describeFsError, readDiagramInput } from '../read-input';
-import type { Context, Options } from '../command';
+import type { Diagram } from '../../../lib/graph/diagram';
+import { InputError } from '../../../lib/graph/errors';
+import { parseTable, parseTableStream, StatsError, type ColumnKind, type Table, type TableSource } from '../../../lib/stats';
+import { parseSummaryMatrix, runDataChecks, runSummaryChecks, SETTINGS_WHERE, type DataCheckOptions, type DataCheckReport } from '../../../lib/datacheck';
+import { UsageError } from '../../io';
+import { describeFsError, readDiagramInput } from '../../read-input';
+import type { Context, Options } from '../../command';
 
 export const DATA_OPTIONS: Options = {
 	map: { type: 'string', multiple: true },

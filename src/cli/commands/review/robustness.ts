@@ -1,14 +1,13 @@
-/** `causeway robust`: which single change to the diagram would break the planned set. */
-import { planRobustness, setsRobustToAdditions } from '../../lib/causal';
-import { setWords, weaknessWords } from '../../lib/wording';
-import { QUESTION, QUESTION_HELP, type Command } from '../command';
-import { SUMMARY } from '../summaries';
+/** `causeway review robustness`: which single change to the diagram would break the planned set. */
+import { planRobustness, setsRobustToAdditions } from '../../../lib/causal';
+import { setWords, weaknessWords } from '../../../lib/wording';
+import { QUESTION, QUESTION_HELP, type Command } from '../../command';
+import { counted } from '../../words';
 
 const id = (x: string) => x;
 
-export const robust: Command = {
-	summary: SUMMARY.robust,
-	usage: 'causeway robust DIAGRAM [--adjust a,b] [--max N] [--exposure …] [--outcome …] [--json]',
+export const robustness: Command = {
+	usage: 'causeway review robustness DIAGRAM [--adjust a,b] [--max N] [--exposure …] [--outcome …] [--json]',
 	details: `Lists every single change to the assumptions that would make the planned set (--adjust,
 else the file's) insufficient: adding one missing arrow (keeping the diagram acyclic),
 reversing one arrow, or one planned variable turning out unmeasured. Deleting an arrow never
@@ -18,7 +17,8 @@ changes last. Also lists the sufficient sets that survive every single added arr
 Exit status 1 when the planned set is not sufficient to begin with.
   --adjust a,b   the planned set, replacing the file's (use --adjust "" for none)
   --max N        print at most N changes (default 25; --json prints all)
-${QUESTION_HELP}`,
+${QUESTION_HELP}
+  --json         {"applicable", "adjusted", "tried", "weaknesses", "robustSets", …}`,
 	options: { ...QUESTION, adjust: { type: 'string', multiple: true }, max: { type: 'string' } },
 	async run(ctx) {
 		const d = await ctx.diagram();
@@ -34,13 +34,13 @@ ${QUESTION_HELP}`,
 			return 1;
 		}
 		const t = r.tried;
-		ctx.print(`Planned set ${setWords(r.adjusted, id)}: tried ${t.additions} added arrows, ${t.reversals} reversals and ${t.unmeasured} unmeasured variables (${t.deletions} deletions cannot break it).`);
+		ctx.print(`Planned set ${setWords(r.adjusted, id)}: tried ${counted(t.additions, 'added arrow')}, ${counted(t.reversals, 'reversal')} and ${counted(t.unmeasured, 'unmeasured variable')} (${counted(t.deletions, 'deletion')} cannot break it).`);
 		const structural = r.weaknesses.filter((w) => w.failure !== 'unmeasured').length;
-		ctx.print(structural === 0 ? 'No single added or reversed arrow breaks it.' : `${structural} single arrow change(s) would break it, most direct first:`);
+		ctx.print(structural === 0 ? 'No single added or reversed arrow breaks it.' : `${counted(structural, 'single arrow change')} would break it, most direct first:`);
 		const shown = r.weaknesses.slice(0, max ?? 25);
 		for (const w of shown) ctx.print(`  - ${weaknessWords(w, d.arrows, id)}`);
 		if (shown.length < r.weaknesses.length) ctx.print(`  … ${r.weaknesses.length - shown.length} more (--max, or --json for all)`);
-		const how = robustSets.exhaustive ? 'among all sets' : `among ${robustSets.tried} candidate sets (minimal, optimal, largest)`;
+		const how = robustSets.exhaustive ? 'among all sets' : `among ${counted(robustSets.tried, 'candidate set')} (minimal, optimal, largest)`;
 		if (robustSets.sets.length === 0) ctx.print(`No sufficient set survives every single added arrow (${how}).`);
 		else ctx.print(`Sufficient sets that survive every single added arrow (${how}): ${robustSets.sets.map((s) => setWords(s, id)).join(', ')}`);
 		return 0;

@@ -1,11 +1,10 @@
-/** `causeway diff`: compare two diagrams of the same question. */
+/** `causeway compare FIRST SECOND`: what changes between two diagrams of the same question. */
 import type { Diagram } from '../../lib/graph/diagram';
 import { compareDiagrams } from '../../lib/causal';
 import { setWords } from '../../lib/wording';
 import { UsageError } from '../io';
 import { readDiagramInput } from '../read-input';
 import type { Command, Context } from '../command';
-import { SUMMARY } from '../summaries';
 
 const id = (x: string) => x;
 
@@ -14,18 +13,19 @@ const readDiagram = (ctx: Context, path: string): Promise<Diagram> => readDiagra
 
 const arrowList = (arrows: readonly { from: string; to: string }[]) => arrows.map((a) => `${a.from} → ${a.to}`).join(', ');
 
-export const diff: Command = {
-	summary: SUMMARY.diff,
-	usage: 'causeway diff FIRST SECOND [--json]',
+export const compare: Command = {
+	usage: 'causeway compare FIRST SECOND [--json]',
 	details: `Compares two diagrams (for example the authors' and a reviewer's). Variables are matched by
 id, then by label (ignoring case, spaces, "_", "-" and "."), then id against label, then by
 identical matched parents and children; the rest are added or removed. Lists arrows added,
 removed and reversed, how the minimal sufficient sets change, and whether the first
 diagram's planned set is sufficient under each diagram (the second is asked the first's
-question).`,
+question).
+  --json   {"renamed", "added", "removed", "arrowsAdded", "arrowsRemoved", "arrowsReversed", …,
+           "sets": {"first", "second"}, "verdicts"}`,
 	options: {},
 	async run(ctx) {
-		if (ctx.positionals.length !== 2) throw new UsageError(`diff needs two diagram files (usage: ${diff.usage})`);
+		if (ctx.positionals.length !== 2) throw new UsageError(`${ctx.name} needs two diagram files (usage: ${compare.usage})`);
 		const first = await readDiagram(ctx, ctx.positionals[0]);
 		const second = await readDiagram(ctx, ctx.positionals[1]);
 		const c = compareDiagrams(first, second);
