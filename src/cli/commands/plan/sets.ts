@@ -1,7 +1,7 @@
 /** `causeway plan sets` (the plan's default view): the minimal sufficient adjustment sets. */
 import { adjustmentSets, type Effect } from '../../../lib/causal';
 import { CLI_DEFAULT_LISTED_SETS, describeCount } from '../../../lib/limits';
-import { optimalSetSentence } from '../../../lib/wording';
+import { optimalSetSentence, unmeasuredQuestionNote } from '../../../lib/wording';
 import { braces } from '../../../lib/wording/command-line';
 import { QUESTION, QUESTION_HELP, type Command } from '../../command';
 import { UsageError } from '../../io';
@@ -43,6 +43,8 @@ ${QUESTION_HELP}
 		if (r.truncated) ctx.print(`  … stopped after ${counted(r.sets.length, 'set')} (the cap, --max ${max}); more exist`);
 		if (r.minimum) ctx.print(`Smallest set: ${braces(r.minimum)}`);
 		if (r.effect === 'total') ctx.print(optimalSetSentence(r, braces).replace(/\.$/, ''));
+		const note = unmeasuredQuestionNote(d, (id) => id, r.exposures, r.outcomes);
+		if (note) ctx.print(`Note: ${note}`);
 		return 0;
 	}
 };

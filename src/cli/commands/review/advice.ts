@@ -3,7 +3,7 @@
  * adjustment set, with every reason and the fixes.
  */
 import { efficiencyAdvice, reviewAdjustment } from '../../../lib/causal';
-import { arrowTest, reasonWords, reviewVerdict, setWords } from '../../../lib/wording';
+import { arrowTest, reasonWords, reviewVerdict, setWords, unmeasuredQuestionNote } from '../../../lib/wording';
 import { QUESTION, QUESTION_HELP, type Command } from '../../command';
 
 const id = (x: string) => x;
@@ -37,6 +37,8 @@ ${QUESTION_HELP}
 		ctx.print(reviewVerdict(r, id));
 		for (const reason of r.reasons) ctx.print(`  - ${reasonWords(reason, arrows, id)}`);
 		if (r.openPathsTruncated) ctx.print('  - … more open paths exist than are listed');
+		const note = unmeasuredQuestionNote(d, id, r.exposures, r.outcomes);
+		if (note) ctx.print(`Note: ${note}`);
 		if (r.valid) {
 			if (r.droppable.length > 0) ctx.print(`Could be dropped one at a time without harm: ${r.droppable.join(', ')}.`);
 			if (r.minimalSubset && r.minimalSubset.length < r.adjusted.length) ctx.print(`A minimal sufficient set inside it: ${setWords(r.minimalSubset, id)}.`);

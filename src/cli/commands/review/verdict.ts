@@ -1,6 +1,6 @@
 /** `causeway review verdict`: is the planned set sufficient, and every reason when it is not (exit 1). */
 import { checkFirst } from '../../../lib/causal';
-import { FORBIDDEN_WHY } from '../../../lib/wording/adjustment';
+import { FORBIDDEN_WHY, unmeasuredQuestionNote } from '../../../lib/wording/adjustment';
 import { arrowTest } from '../../../lib/wording/names';
 import { pathKindWords } from '../../../lib/wording/paths';
 import { braces, pathText } from '../../../lib/wording/command-line';
@@ -36,6 +36,9 @@ ${QUESTION_HELP}
 			for (const p of r.problems) {
 				ctx.print(`  - ${p.kind === 'forbidden' ? `${p.variable} ${FORBIDDEN_WHY[p.why]}` : `open ${pathKindWords({ nodes: p.path, causal: false }, arrows)}: ${pathText(p.path, arrows)}`}`);
 			}
+			const q = ctx.question();
+			const note = unmeasuredQuestionNote(d, (id) => id, q.exposures ?? d.exposures, q.outcomes ?? d.outcomes);
+			if (note) ctx.print(`Note: ${note}`);
 		}
 		return r.valid ? 0 : 1;
 	}
