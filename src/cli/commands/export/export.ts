@@ -86,7 +86,9 @@ ${QUESTION_HELP}`,
 		const out = typeof ctx.values.output === 'string' ? ctx.values.output : '-';
 		const named = ctx.values.format ?? ctx.values.to;
 		let format: string;
-		if (typeof named === 'string') format = named === 'md' ? 'report-md' : named === 'html' ? 'report-html' : named;
+		// Short names of the design's contract: md and html are the report, csv the adjustment sets.
+		const SHORT: Record<string, string> = { md: 'report-md', html: 'report-html', csv: 'sets-csv' };
+		if (typeof named === 'string') format = Object.hasOwn(SHORT, named) ? SHORT[named] : named;
 		else {
 			const guessed = out === '-' ? null : formatFromName(out);
 			if (!guessed) throw new UsageError(`${ctx.name} needs --format (${FORMAT_LIST.join('|')})`);
