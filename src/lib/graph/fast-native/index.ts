@@ -79,7 +79,8 @@ function compileScanned(s: ScannedDiagram): CompiledDag {
 	return graph;
 }
 
-const utf8 = new TextDecoder();
+/** ignoreBOM: a text may start with U+FEFF, which the default decoder would drop. */
+const utf8 = new TextDecoder('utf-8', { ignoreBOM: true });
 
 /**
  * Each id as text: an ASCII id from its char codes (one reused array through

@@ -48,7 +48,8 @@ const [FORMAT, VERSION, TITLE, VARIABLES, ARROWS, EXPOSURES, OUTCOMES, ADJUSTED]
 const [ID, LABEL, MEASURED, X, Y, NOTE] = [0, 1, 2, 3, 4, 5];
 const [FROM, TO, ARROW_NOTE] = [0, 1, 2];
 
-const utf8 = new TextDecoder();
+/** ignoreBOM: a text may start with U+FEFF, which the default decoder would drop. */
+const utf8 = new TextDecoder('utf-8', { ignoreBOM: true });
 
 /** Int32 storage that doubles as it fills. */
 class Grow {
