@@ -72,9 +72,10 @@ function compileScanned(s: ScannedDiagram): CompiledDag {
 	}
 	const ids = idTexts(s);
 	const indexOf = new IdIndex(ids, table);
-	const measured = new Array<boolean>(n);
-	for (let i = 0; i < n; i++) measured[i] = s.measured[i] === 1;
-	const graph = compileIndexed(ids, indexOf, from, to, measured);
+	const graph = compileIndexed(ids, indexOf, from, to);
+	// The flags straight into the new graph's array, rather than through a list of 100,000
+	// booleans that the garbage collector then copies (compileIndexed takes booleans).
+	graph.measured.set(s.measured);
 	if (!isAcyclic(graph)) offFastPath('a cycle');
 	return graph;
 }

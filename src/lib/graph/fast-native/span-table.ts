@@ -4,10 +4,11 @@
  * over the spans the scanner recorded. Two ids are the same when their bytes are equal: ids hold
  * no escapes on the fast path and the bytes are valid UTF-8, so equal text is equal bytes.
  *
- * Each slot keeps the id's full hash beside its index, and the ids' bytes are copied into one
- * small pool, so a lookup touches the slot and, on a hash match, the pool — not the 12 MiB file
- * at a random place (the lookups took 2× longer that way; measured on the 100,000-variable file
- * of bench/cli.ts).
+ * The lookups are bound by cache misses, not by hashing (measured on the 100,000-variable file
+ * of bench/cli.ts: hashing all 400,000 arrow ends took 3 ms, looking them up 50–110 ms when each
+ * lookup read the slot, then the id's offset, then its bytes). So a slot holds, in 16 bytes, the
+ * index, the length, the full hash and the id's first 8 bytes: an id of up to 8 bytes is
+ * compared without leaving the slot; longer ids compare the rest in a pool of the ids' bytes.
  *
  * A file built to make many ids collide could make probing quadratic; the table counts its
  * probes and gives up (OffFastPath) past a budget linear in the input, so the full reader, with
@@ -19,9 +20,14 @@ const FNV_OFFSET = 0x811c9dc5;
 const FNV_PRIME = 0x01000193;
 /** Probes allowed per insertion or lookup on average before the table gives up. */
 const PROBE_BUDGET = 16;
+/** Slot word 0 is length << INDEX_BITS | (index + 1). */
+const INDEX_BITS = 18;
+const MAX_IDS = (1 << INDEX_BITS) - 1;
+const MAX_LENGTH = (1 << (31 - INDEX_BITS)) - 1;
+const SLOT = 4;
 
 export class SpanTable {
-	/** Per slot: variable index + 1 (0 = empty), then the id's hash. */
+	/** Per slot: length and index + 1 (0 = empty), hash, first 4 bytes, next 4 bytes. */
 	private readonly slots: Int32Array;
 	private readonly mask: number;
 	/** The ids' bytes end to end; id i is pool[poolStart[i] .. poolStart[i + 1]). */
@@ -29,67 +35,88 @@ export class SpanTable {
 	private readonly poolStart: Int32Array;
 	private probes = 0;
 	private readonly budget: number;
+	/** The hash and first bytes of the span last hashed (set by `hashSpan`). */
+	private h = 0;
+	private w0 = 0;
+	private w1 = 0;
 
 	/** The index of the first id that repeats an earlier one, or -1. */
 	readonly duplicate: number;
 
 	/** Adds the ids (spans ids[2i] .. ids[2i+1] of `bytes`) in order; `lookups` sizes the probe budget. */
 	constructor(bytes: Uint8Array, ids: Int32Array, n: number, lookups: number) {
+		if (n > MAX_IDS) offFastPath('too many ids for the table');
+		// At most 3/4 full: a smaller table misses the cache less, and the stored hash makes the
+		// extra probes of linear probing cheap (four slots share a cache line).
 		let size = 16;
-		while (size < 2 * n) size *= 2;
-		this.slots = new Int32Array(2 * size);
+		while (size * 3 < 4 * n) size *= 2;
+		this.slots = new Int32Array(SLOT * size);
 		this.mask = size - 1;
 		this.budget = PROBE_BUDGET * (n + lookups + 16);
 		this.poolStart = new Int32Array(n + 1);
 		for (let i = 0; i < n; i++) this.poolStart[i + 1] = this.poolStart[i] + ids[2 * i + 1] - ids[2 * i];
-		this.pool = new Uint8Array(this.poolStart[n]);
-		for (let i = 0; i < n; i++) this.pool.set(bytes.subarray(ids[2 * i], ids[2 * i + 1]), this.poolStart[i]);
+		const pool = new Uint8Array(this.poolStart[n]);
+		// A plain loop: a subarray() and set() per id cost more than copying a few bytes.
+		for (let i = 0, q = 0; i < n; i++) for (let p = ids[2 * i]; p < ids[2 * i + 1]; p++) pool[q++] = bytes[p];
+		this.pool = pool;
 		let duplicate = -1;
-		for (let i = 0; i < n && duplicate === -1; i++) {
-			const start = this.poolStart[i];
-			if (this.probe(this.pool, start, this.poolStart[i + 1], i) !== i) duplicate = i;
-		}
+		for (let i = 0; i < n && duplicate === -1; i++) if (this.probe(pool, this.poolStart[i], this.poolStart[i + 1], i) !== i) duplicate = i;
 		this.duplicate = duplicate;
 	}
 
 	/** The variable whose id is src[start .. end), or -1. */
 	find(src: Uint8Array, start: number, end: number): number {
-		return this.probe(src, start, end, -1);
+		return end - start > MAX_LENGTH ? -1 : this.probe(src, start, end, -1);
 	}
 
 	/** Finds src[start .. end); when absent, inserts it as variable `insert` (unless -1) and returns that. */
 	private probe(src: Uint8Array, start: number, end: number, insert: number): number {
-		const h = hash(src, start, end);
-		const slots = this.slots;
 		const len = end - start;
+		if (len > MAX_LENGTH) offFastPath('an id too long for the table');
+		this.hashSpan(src, start, end);
+		const { h, w0, w1 } = this;
+		const slots = this.slots;
 		let slot = h & this.mask;
 		for (;;) {
-			const v = slots[2 * slot] - 1;
-			if (v < 0) {
+			const at = SLOT * slot;
+			const head = slots[at];
+			if (head === 0) {
 				if (insert >= 0) {
-					slots[2 * slot] = insert + 1;
-					slots[2 * slot + 1] = h;
+					slots[at] = (len << INDEX_BITS) | (insert + 1);
+					slots[at + 1] = h;
+					slots[at + 2] = w0;
+					slots[at + 3] = w1;
 				}
 				return insert;
 			}
-			if (slots[2 * slot + 1] === h) {
-				const s = this.poolStart[v];
-				if (this.poolStart[v + 1] - s === len && sameBytes(this.pool, s, src, start, len)) return v;
+			if (slots[at + 1] === h && head >>> INDEX_BITS === len && slots[at + 2] === w0 && slots[at + 3] === w1) {
+				const v = (head & MAX_IDS) - 1;
+				if (len <= 8 || sameBytes(this.pool, this.poolStart[v] + 8, src, start + 8, len - 8)) return v;
 			}
 			slot = (slot + 1) & this.mask;
 			if (++this.probes > this.budget) offFastPath('too many hash collisions among the ids');
 		}
 	}
-}
 
-function hash(b: Uint8Array, start: number, end: number): number {
-	let h = FNV_OFFSET;
-	for (let p = start; p < end; p++) h = Math.imul(h ^ b[p], FNV_PRIME);
-	// Final mixing (murmur3's fmix32) so that the low bits used for the slot depend on every byte.
-	h ^= h >>> 16;
-	h = Math.imul(h, 0x85ebca6b);
-	h ^= h >>> 13;
-	return h | 0;
+	/** Sets h (FNV-1a with a final mix, so the low bits used for the slot depend on every byte) and w0, w1 (the first 8 bytes). */
+	private hashSpan(src: Uint8Array, start: number, end: number): void {
+		let h = FNV_OFFSET;
+		let w0 = 0;
+		let w1 = 0;
+		for (let p = start; p < end; p++) {
+			const c = src[p];
+			h = Math.imul(h ^ c, FNV_PRIME);
+			const k = p - start;
+			if (k < 4) w0 |= c << (8 * k);
+			else if (k < 8) w1 |= c << (8 * (k - 4));
+		}
+		h ^= h >>> 16;
+		h = Math.imul(h, 0x85ebca6b);
+		h ^= h >>> 13;
+		this.h = h | 0;
+		this.w0 = w0;
+		this.w1 = w1;
+	}
 }
 
 function sameBytes(a: Uint8Array, s: number, b: Uint8Array, t: number, len: number): boolean {
