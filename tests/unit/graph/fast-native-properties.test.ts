@@ -10,6 +10,7 @@
  */
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
+import { scanDiagram } from '../../../src/lib/graph/fast-native/scan-diagram';
 import { CLI_READ_LIMITS, type ReadLimits } from '../../../src/lib/graph/size-limits';
 import '../fast-check-seed';
 import { expectSameAsFullReader, fastRead } from './fast-native-oracle';
@@ -109,16 +110,18 @@ const documentArb = fc.uniqueArray(poolId, { minLength: 1, maxLength: 6 }).chain
 	const order = fc.oneof({ weight: 80, arbitrary: fc.constant(0) }, { weight: 1, arbitrary: fc.constantFrom(1, 2) });
 	/** Present most of the time (absent one time in `absent`). */
 	const maybe = <T>(a: fc.Arbitrary<T>, absent = 2) => fc.option(a, { freq: absent });
+	/** Present five times in six: labels and flags, so that many variables have the plain shape. */
+	const maybe6 = <T>(a: fc.Arbitrary<T>) => fc.option(a, { freq: 6 });
 	/** Present one time in `one`: a defect. */
 	const rare = <T>(a: fc.Arbitrary<T>, one: number) => fc.oneof({ weight: one - 1, arbitrary: fc.constant(null) }, { weight: 1, arbitrary: a });
 	const variable = (id: string) => fc
 		.record({
 			id: fc.oneof({ weight: 60, arbitrary: fc.constant(str(id)) }, { weight: 2, arbitrary: anyId.map(str) }, { weight: 1, arbitrary: wrong }),
-			label: maybe(fc.oneof({ weight: 40, arbitrary: awkward.map(str) }, { weight: 1, arbitrary: wrong })),
-			measured: maybe(fc.oneof({ weight: 40, arbitrary: fc.boolean().map((b): J => ({ l: b ? 'true' : 'false' })) }, { weight: 1, arbitrary: wrong })),
-			x: rare(numberText.map(num), 3),
-			y: rare(numberText.map(num), 3),
-			note: rare(awkward.map(str), 3),
+			label: maybe6(fc.oneof({ weight: 40, arbitrary: awkward.map(str) }, { weight: 1, arbitrary: wrong })),
+			measured: maybe6(fc.oneof({ weight: 40, arbitrary: fc.boolean().map((b): J => ({ l: b ? 'true' : 'false' })) }, { weight: 1, arbitrary: wrong })),
+			x: rare(numberText.map(num), 6),
+			y: rare(numberText.map(num), 6),
+			note: rare(awkward.map(str), 6),
 			data: rare(fc.constantFrom<J>({ o: [['column', { s: 'c' }]] }, { o: [] }, { o: [['kind', { s: 'odd' }]] }), 60),
 			unknown: rare(fc.constant<[string, J]>(['shape', { s: 'box' }]), 60),
 			drop: rare(fc.constantFrom('id', 'label', 'measured'), 60),
@@ -223,6 +226,11 @@ describe('fast reader vs the full reader on generated files', () => {
 					const r = fastRead(bytes, limits).read;
 					const why = r.ok ? 'answered' : r.reason.replace(/ at byte \d+/, '');
 					reasons.set(why, (reasons.get(why) ?? 0) + 1);
+					if (r.ok) {
+						const scan = scanDiagram(bytes, limits);
+						const lists = `answered, lists from the scan: variables ${scan.plainVariables && scan.n > 0}, arrows ${scan.plainArrows && scan.m > 0}`;
+						reasons.set(lists, (reasons.get(lists) ?? 0) + 1);
+					}
 				}
 			}),
 			{ numRuns: 1_500 }
@@ -232,13 +240,15 @@ describe('fast reader vs the full reader on generated files', () => {
 		expect(answered / runs).toBeGreaterThan(0.1);
 	});
 
-	it('answers every clean file: unique plain ids, arrows forward in their order, any layout', () => {
+	it('answers every clean file: unique plain ids, any labels, arrows forward in their order, any layout', () => {
 		const plain = fc.string({ minLength: 1, maxLength: 8 }).filter((s) => JSON.stringify(s) === `"${s}"` && !/[\uD800-\uDFFF]/.test(s));
 		const clean = fc.uniqueArray(plain, { minLength: 1, maxLength: 12 }).chain((ids) =>
 			fc.record({
 				ids: fc.constant(ids),
 				arrows: fc.array(fc.tuple(fc.nat(ids.length - 1), fc.nat(ids.length - 1)), { maxLength: 20 }),
 				measured: fc.array(fc.boolean(), { minLength: ids.length, maxLength: ids.length }),
+				// Labels with escapes, control characters, lone surrogates, U+FEFF, astral characters.
+				labels: fc.array(fc.oneof(fc.string({ unit: 'binary', maxLength: 8 }), fc.constantFrom('', '"', '\\', '\u0000', '\uFEFFa', '\uD800', 'é\n😀')), { minLength: ids.length, maxLength: ids.length }),
 				title: fc.string({ maxLength: 20 }),
 				question: fc.array(fc.nat(ids.length - 1), { maxLength: 3 })
 			})
@@ -251,7 +261,7 @@ describe('fast reader vs the full reader on generated files', () => {
 						['format', str('causeway.diagram')],
 						['version', num('2')],
 						['title', str(d.title)],
-						['variables', { a: d.ids.map((id, i): J => ({ o: [['id', str(id)], ['label', str(`${id} label`)], ['measured', { l: d.measured[i] ? 'true' : 'false' }]] })) }],
+						['variables', { a: d.ids.map((id, i): J => ({ o: [['id', str(id)], ['label', str(d.labels[i])], ['measured', { l: d.measured[i] ? 'true' : 'false' }]] })) }],
 						['arrows', { a: arrows }],
 						['exposures', { a: d.question.map((i) => str(d.ids[i])) }]
 					]

@@ -28,8 +28,10 @@ import { isAcyclic } from './acyclic';
 import { IdIndex } from './id-index';
 import { OffFastPath, offFastPath } from './json-bytes';
 import { lazyDiagram } from './lazy-diagram';
+import { scannedArrows, scannedVariables } from './lists';
 import { scanDiagram, type ScannedDiagram } from './scan-diagram';
 import { SpanTable } from './span-table';
+import { idTexts } from './texts';
 
 export { precompiledGraph } from './lazy-diagram';
 
@@ -38,7 +40,7 @@ export type FastRead = { ok: true; diagram: Diagram; graph: CompiledDag } | { ok
 /**
  * Reads a native diagram from UTF-8 bytes, or says why it leaves that to the full reader.
  * `full` reads the same file with the full reader; the returned diagram calls it only if its
- * variable or arrow list is used (lazy-diagram.ts).
+ * variable or arrow list is used and cannot be made from the scan (lazy-diagram.ts, lists.ts).
  */
 export function readNativeFast(input: Uint8Array, limits: ReadLimits, full: () => Diagram): FastRead {
 	try {
@@ -46,8 +48,13 @@ export function readNativeFast(input: Uint8Array, limits: ReadLimits, full: () =
 		// hash lookups 2–4× slower, and its subarray() builds a Buffer object each time.
 		const bytes = new Uint8Array(input.buffer, input.byteOffset, input.length);
 		const scanned = scanDiagram(bytes, limits);
-		const graph = compileScanned(scanned);
-		const diagram = lazyDiagram(scanned, graph, full);
+		const { graph, from, to } = compileScanned(scanned);
+		let whole: Diagram | undefined;
+		const fullLists = () => (whole ??= full());
+		const diagram = lazyDiagram(scanned, graph, {
+			variables: () => (scanned.plainVariables ? scannedVariables(scanned, graph.ids) : fullLists().variables),
+			arrows: () => (scanned.plainArrows ? scannedArrows(graph.ids, from, to) : fullLists().arrows)
+		});
 		return { ok: true, diagram, graph };
 	} catch (e) {
 		// Anything unexpected also goes to the full reader, which then reports it its own way.
@@ -56,7 +63,7 @@ export function readNativeFast(input: Uint8Array, limits: ReadLimits, full: () =
 }
 
 /** Ids interned, arrow ends resolved, structure checked, CSR built; or OffFastPath. */
-function compileScanned(s: ScannedDiagram): CompiledDag {
+function compileScanned(s: ScannedDiagram): { graph: CompiledDag; from: Int32Array; to: Int32Array } {
 	const { bytes, n, m, ends } = s;
 	const table = new SpanTable(bytes, s.ids, n, 2 * m);
 	if (table.duplicate !== -1) offFastPath('a repeated id');
@@ -70,39 +77,12 @@ function compileScanned(s: ScannedDiagram): CompiledDag {
 		from[e] = f;
 		to[e] = t;
 	}
-	const ids = idTexts(s);
+	const ids = idTexts(bytes, n, s.ids, s.idWide);
 	const indexOf = new IdIndex(ids, table);
 	const graph = compileIndexed(ids, indexOf, from, to);
 	// The flags straight into the new graph's array, rather than through a list of 100,000
 	// booleans that the garbage collector then copies (compileIndexed takes booleans).
 	graph.measured.set(s.measured);
 	if (!isAcyclic(graph)) offFastPath('a cycle');
-	return graph;
-}
-
-/** ignoreBOM: a text may start with U+FEFF, which the default decoder would drop. */
-const utf8 = new TextDecoder('utf-8', { ignoreBOM: true });
-
-/**
- * Each id as text: an ASCII id from its char codes (one reused array through
- * String.fromCharCode), any other by the UTF-8 decoder. Measured on 100,000 ids in a fresh
- * process: 22 ms of CPU this way, 52 ms with TextDecoder per id, and decoding the whole file
- * once as Latin-1 to slice it took 110–230 ms (Node's TextDecoder goes through ICU for it).
- */
-function idTexts(s: ScannedDiagram): string[] {
-	const { bytes, n, ids, idWide } = s;
-	const out = new Array<string>(n);
-	const codes: number[] = [];
-	for (let i = 0; i < n; i++) {
-		const start = ids[2 * i];
-		const end = ids[2 * i + 1];
-		if (idWide[i] || end - start > 64) {
-			out[i] = utf8.decode(bytes.subarray(start, end));
-			continue;
-		}
-		codes.length = end - start;
-		for (let k = start; k < end; k++) codes[k - start] = bytes[k];
-		out[i] = String.fromCharCode.apply(null, codes);
-	}
-	return out;
+	return { graph, from, to };
 }

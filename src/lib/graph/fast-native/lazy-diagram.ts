@@ -3,10 +3,10 @@
  *
  * The title and the question (exposures, outcomes, planned set) are read; the variable and
  * arrow lists are not built, because building their 300,000 objects is what the fast reader
- * saves. They are made on first use by the full reader (`full`), so whoever reads them gets
- * exactly what the full reader gives. Until then the compiled graph is registered for the
- * diagram, and compileChecked (causal/question.ts) takes it instead of compiling: touching
- * either list (which may then be edited) removes it, so the graph can never be stale.
+ * saves. They are made on first use (`lists`: from the scan, or by the full reader), equal to
+ * what the full reader gives. Until then the compiled graph is registered for the diagram, and
+ * compileChecked (causal/question.ts) takes it instead of compiling: touching either list
+ * (which may then be edited) removes it, so the graph can never be stale.
  */
 import type { CompiledDag } from '../compiled';
 import type { Arrow, Diagram, Variable } from '../diagram';
@@ -29,20 +29,18 @@ export interface DiagramHead {
  * A Diagram whose `variables` and `arrows` are own enumerable properties made on first use (so
  * spreading, JSON.stringify and structuredClone see them), in the full reader's key order.
  */
-export function lazyDiagram(head: DiagramHead, graph: CompiledDag, full: () => Diagram): Diagram {
-	let whole: Diagram | undefined;
+export function lazyDiagram(head: DiagramHead, graph: CompiledDag, lists: { variables: () => Variable[]; arrows: () => Arrow[] }): Diagram {
 	let variables: Variable[] | undefined;
 	let arrows: Arrow[] | undefined;
 	const d = { title: head.title } as Diagram;
-	const materialize = (): Diagram => {
+	const made = <T>(list: () => T): T => {
 		compiled.delete(d);
-		whole ??= full();
-		return whole;
+		return list();
 	};
 	Object.defineProperty(d, 'variables', {
 		enumerable: true,
 		configurable: true,
-		get: () => (variables ??= materialize().variables),
+		get: () => (variables ??= made(lists.variables)),
 		set: (value: Variable[]) => {
 			compiled.delete(d);
 			variables = value;
@@ -51,7 +49,7 @@ export function lazyDiagram(head: DiagramHead, graph: CompiledDag, full: () => D
 	Object.defineProperty(d, 'arrows', {
 		enumerable: true,
 		configurable: true,
-		get: () => (arrows ??= materialize().arrows),
+		get: () => (arrows ??= made(lists.arrows)),
 		set: (value: Arrow[]) => {
 			compiled.delete(d);
 			arrows = value;

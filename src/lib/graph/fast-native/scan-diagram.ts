@@ -12,7 +12,10 @@
  * (its characters may not), more variables or arrows than the limits. The full reader then
  * reads the file and says what, if anything, is wrong with it.
  *
- * Cost: O(bytes); memory: 8 bytes per variable and 16 per arrow, plus the decoded short texts.
+ * It also notes where each label is and whether every variable and arrow has the plain shape
+ * Causeway writes, so that the lists can be made later without the full reader (lists.ts).
+ *
+ * Cost: O(bytes); memory: 18 bytes per variable and 16 per arrow, plus the decoded short texts.
  */
 import { MAX_LABEL_CHARS, MAX_NOTE_CHARS } from '../../limits';
 import type { ReadLimits } from '../size-limits';
@@ -29,6 +32,13 @@ export interface ScannedDiagram {
 	/** Arrows: arrow e runs from bytes[ends[4e] .. ends[4e+1]) to bytes[ends[4e+2] .. ends[4e+3]). */
 	readonly m: number;
 	readonly ends: Int32Array;
+	/** Labels: variable i's is bytes[labels[2i] .. labels[2i+1]), or absent when labels[2i] is -1. */
+	readonly labels: Int32Array;
+	/** Per label: LABEL_ESCAPED and LABEL_WIDE bits. */
+	readonly labelFlags: Uint8Array;
+	/** Every variable is written exactly as {"id", "label", "measured"} and every arrow as {"from", "to"}, in that order. */
+	readonly plainVariables: boolean;
+	readonly plainArrows: boolean;
 	readonly title: string;
 	readonly exposures: string[];
 	readonly outcomes: string[];
@@ -47,6 +57,9 @@ const ARROW_KEYS = ['from', 'to', 'note'] as const;
 const [FORMAT, VERSION, TITLE, VARIABLES, ARROWS, EXPOSURES, OUTCOMES, ADJUSTED] = [0, 1, 2, 3, 4, 5, 6, 7];
 const [ID, LABEL, MEASURED, X, Y, NOTE] = [0, 1, 2, 3, 4, 5];
 const [FROM, TO, ARROW_NOTE] = [0, 1, 2];
+
+export const LABEL_ESCAPED = 1;
+export const LABEL_WIDE = 2;
 
 /** ignoreBOM: a text may start with U+FEFF, which the default decoder would drop. */
 const utf8 = new TextDecoder('utf-8', { ignoreBOM: true });
@@ -144,8 +157,12 @@ class DiagramScan {
 	private readonly js: JsonBytes;
 	private readonly ids: Grow;
 	private readonly ends: Grow;
+	private readonly labels: Grow;
 	private measured: Uint8Array;
 	private idWide: Uint8Array;
+	private labelFlags: Uint8Array;
+	private plainVariables = true;
+	private plainArrows = true;
 	private n = 0;
 
 	constructor(
@@ -157,8 +174,10 @@ class DiagramScan {
 		const guess = Math.max(16, Math.min(limits.variables, Math.ceil(bytes.length / 120)));
 		this.ids = new Grow(2 * guess);
 		this.ends = new Grow(8 * guess);
+		this.labels = new Grow(2 * guess);
 		this.measured = new Uint8Array(guess);
 		this.idWide = new Uint8Array(guess);
+		this.labelFlags = new Uint8Array(guess);
 	}
 
 	run(): ScannedDiagram {
@@ -202,6 +221,10 @@ class DiagramScan {
 			measured: this.measured.subarray(0, n),
 			m: this.ends.length >> 2,
 			ends: this.ends.data.subarray(0, this.ends.length),
+			labels: this.labels.data.subarray(0, 2 * n),
+			labelFlags: this.labelFlags.subarray(0, n),
+			plainVariables: this.plainVariables,
+			plainArrows: this.plainArrows,
 			title,
 			exposures,
 			outcomes,
@@ -224,21 +247,31 @@ class DiagramScan {
 		if (i >= this.measured.length) this.growFlags();
 		let measured = 1;
 		let seen = 0;
+		let keys = 0; // keys read, to tell the plain shape: id, label, measured in that order
+		let labelStart = -1;
+		let labelEnd = -1;
 		js.expect(OPEN_OBJECT, 'an object');
 		if (!js.empty(CLOSE_OBJECT))
 			do {
 				const key = nextKey(js, VARIABLE_KEYS, seen);
 				seen |= 1 << key;
+				if (key !== keys++) this.plainVariables = false;
 				if (key === ID) {
 					plainId(js, 'an id');
 					this.ids.push2(js.start, js.end);
 					this.idWide[i] = js.wide ? 1 : 0;
-				} else if (key === LABEL) boundedString(js, MAX_LABEL_CHARS, 'a label');
-				else if (key === MEASURED) measured = js.boolean() ? 1 : 0;
+				} else if (key === LABEL) {
+					boundedString(js, MAX_LABEL_CHARS, 'a label');
+					labelStart = js.start;
+					labelEnd = js.end;
+					this.labelFlags[i] = (js.escaped ? LABEL_ESCAPED : 0) | (js.wide ? LABEL_WIDE : 0);
+				} else if (key === MEASURED) measured = js.boolean() ? 1 : 0;
 				else if (key === NOTE) boundedString(js, MAX_NOTE_CHARS, 'a note');
 				else finiteNumber(js); // x or y
 			} while (js.more(CLOSE_OBJECT));
 		if (!(seen & (1 << ID))) offFastPath('a variable without an id');
+		if (keys !== 3) this.plainVariables = false;
+		this.labels.push2(labelStart, labelEnd);
 		this.measured[i] = measured;
 		this.n = i + 1;
 	}
@@ -250,6 +283,9 @@ class DiagramScan {
 		const wide = new Uint8Array(this.idWide.length * 2);
 		wide.set(this.idWide);
 		this.idWide = wide;
+		const flags = new Uint8Array(this.labelFlags.length * 2);
+		flags.set(this.labelFlags);
+		this.labelFlags = flags;
 	}
 
 	private arrows(): void {
@@ -266,11 +302,13 @@ class DiagramScan {
 		let fromStart = 0;
 		let fromEnd = 0;
 		let seen = 0;
+		let keys = 0; // keys read, to tell the plain shape: from, to in that order
 		js.expect(OPEN_OBJECT, 'an object');
 		if (!js.empty(CLOSE_OBJECT))
 			do {
 				const key = nextKey(js, ARROW_KEYS, seen);
 				seen |= 1 << key;
+				if (key !== keys++) this.plainArrows = false;
 				if (key === FROM) {
 					plainId(js, 'an arrow end');
 					fromStart = js.start;
@@ -283,5 +321,6 @@ class DiagramScan {
 				} else boundedString(js, MAX_NOTE_CHARS, 'a note');
 			} while (js.more(CLOSE_OBJECT));
 		if (!(seen & (1 << TO))) offFastPath('an arrow without both ends');
+		if (keys !== 2) this.plainArrows = false;
 	}
 }
