@@ -9,6 +9,7 @@ import { isUtf8 } from 'node:buffer';
 import { describe, expect, it } from 'vitest';
 import { checkFirst, dSeparation } from '../../../src/lib/causal/analysis';
 import { compileChecked } from '../../../src/lib/causal/question';
+import { arrowLookup } from '../../../src/lib/graph/fast-native/arrow-lookup';
 import { writeDiagramJson } from '../../../src/lib/graph/native-json';
 import { APP_READ_LIMITS, CLI_READ_LIMITS, type ReadLimits } from '../../../src/lib/graph/size-limits';
 import { randomDiagramJson } from '../../../bench/cli-diagram';
@@ -214,5 +215,22 @@ describe('the diagram the fast reader returns', () => {
 		const copy = structuredClone({ ...d });
 		expect(copy.variables.length).toBe(5);
 		expect(copy.arrows).toEqual([]);
+	});
+});
+
+describe('arrowLookup (the direction of a printed path’s arrows)', () => {
+	it('answers from the compiled graph of a fast-read diagram, without making the arrow list, as from the list', () => {
+		const text = file(MBIAS);
+		const { read, fullCalls } = fastRead(bytes(text));
+		const full = fullRead(bytes(text));
+		if (!read.ok || !full.ok) throw new Error('not read');
+		const fast = arrowLookup(read.diagram);
+		const slow = arrowLookup(full.diagram);
+		const ids = ['u1', 'u2', 'e', 'm', 'd', 'x'];
+		for (const a of ids) for (const b of ids) expect(fast(a, b)).toBe(slow(a, b));
+		expect(fast('u1', 'e')).toBe(true);
+		expect(fast('e', 'u1')).toBe(false);
+		expect(compileChecked(read.diagram)).toBe(read.graph); // the lists were not touched
+		expect(fullCalls()).toBe(0);
 	});
 });
