@@ -30,34 +30,29 @@ export interface DiagramHead {
  * spreading, JSON.stringify and structuredClone see them), in the full reader's key order.
  */
 export function lazyDiagram(head: DiagramHead, graph: CompiledDag, lists: { variables: () => Variable[]; arrows: () => Arrow[] }): Diagram {
-	let variables: Variable[] | undefined;
-	let arrows: Arrow[] | undefined;
 	const d = { title: head.title } as Diagram;
-	const made = <T>(list: () => T): T => {
-		compiled.delete(d);
-		return list();
-	};
-	Object.defineProperty(d, 'variables', {
-		enumerable: true,
-		configurable: true,
-		get: () => (variables ??= made(lists.variables)),
-		set: (value: Variable[]) => {
-			compiled.delete(d);
-			variables = value;
-		}
-	});
-	Object.defineProperty(d, 'arrows', {
-		enumerable: true,
-		configurable: true,
-		get: () => (arrows ??= made(lists.arrows)),
-		set: (value: Arrow[]) => {
-			compiled.delete(d);
-			arrows = value;
-		}
-	});
+	lazyList(d, 'variables', lists.variables);
+	lazyList(d, 'arrows', lists.arrows);
 	d.exposures = head.exposures;
 	d.outcomes = head.outcomes;
 	d.adjusted = head.adjusted;
 	compiled.set(d, graph);
 	return d;
+}
+
+/** d[key] made by `make` on first read; reading or replacing it unregisters the compiled graph. */
+function lazyList<K extends 'variables' | 'arrows'>(d: Diagram, key: K, make: () => Diagram[K]): void {
+	let value: Diagram[K] | undefined;
+	Object.defineProperty(d, key, {
+		enumerable: true,
+		configurable: true,
+		get: () => {
+			compiled.delete(d);
+			return (value ??= make());
+		},
+		set: (replaced: Diagram[K]) => {
+			compiled.delete(d);
+			value = replaced;
+		}
+	});
 }

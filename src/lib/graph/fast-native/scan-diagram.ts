@@ -203,8 +203,7 @@ class DiagramScan {
 					js.string();
 					title = text(js);
 					if (title.length > MAX_LABEL_CHARS) offFastPath('a title over the limit');
-				} else if (key === VARIABLES) this.variables();
-				else if (key === ARROWS) this.arrows();
+				} else if (key === VARIABLES || key === ARROWS) this.list(key === VARIABLES);
 				else if (key === EXPOSURES) exposures = idList(js);
 				else if (key === OUTCOMES) outcomes = idList(js);
 				else adjusted = idList(js);
@@ -232,12 +231,15 @@ class DiagramScan {
 		};
 	}
 
-	private variables(): void {
+	/** The list of variables or of arrows at the cursor. */
+	private list(variables: boolean): void {
 		const js = this.js;
 		js.expect(OPEN_LIST, 'a list');
 		if (js.empty(CLOSE_LIST)) return;
-		do this.variable();
-		while (js.more(CLOSE_LIST));
+		do {
+			if (variables) this.variable();
+			else this.arrow();
+		} while (js.more(CLOSE_LIST));
 	}
 
 	private variable(): void {
@@ -286,14 +288,6 @@ class DiagramScan {
 		const flags = new Uint8Array(this.labelFlags.length * 2);
 		flags.set(this.labelFlags);
 		this.labelFlags = flags;
-	}
-
-	private arrows(): void {
-		const js = this.js;
-		js.expect(OPEN_LIST, 'a list');
-		if (js.empty(CLOSE_LIST)) return;
-		do this.arrow();
-		while (js.more(CLOSE_LIST));
 	}
 
 	private arrow(): void {
