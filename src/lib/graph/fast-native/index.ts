@@ -80,8 +80,8 @@ function compileScanned(s: ScannedDiagram): { graph: CompiledDag; from: Int32Arr
 	const from = new Int32Array(m);
 	const to = new Int32Array(m);
 	for (let e = 0; e < m; e++) {
-		const f = table.find(bytes, ends[4 * e], ends[4 * e + 1]);
-		const t = table.find(bytes, ends[4 * e + 2], ends[4 * e + 3]);
+		const f = table.findQuoted(bytes, ends[2 * e]);
+		const t = table.findQuoted(bytes, ends[2 * e + 1]);
 		if (f < 0 || t < 0) offFastPath('an arrow end that is not a variable');
 		if (f === t) offFastPath('a self-loop');
 		from[e] = f;

@@ -46,10 +46,10 @@ export class SpanTable {
 	/** Adds the ids (spans ids[2i] .. ids[2i+1] of `bytes`) in order; `lookups` sizes the probe budget. */
 	constructor(bytes: Uint8Array, ids: Int32Array, n: number, lookups: number) {
 		if (n > MAX_IDS) offFastPath('too many ids for the table');
-		// At most 3/4 full: a smaller table misses the cache less, and the stored hash makes the
-		// extra probes of linear probing cheap (four slots share a cache line).
+		// At most 4/5 full: a smaller table misses the cache less and takes fewer pages, and the
+		// stored hash makes the extra probes of linear probing cheap (four slots share a cache line).
 		let size = 16;
-		while (size * 3 < 4 * n) size *= 2;
+		while (size * 4 < 5 * n) size *= 2;
 		this.slots = new Int32Array(SLOT * size);
 		this.mask = size - 1;
 		this.budget = PROBE_BUDGET * (n + lookups + 16);
@@ -67,6 +67,12 @@ export class SpanTable {
 	/** The variable whose id is src[start .. end), or -1. */
 	find(src: Uint8Array, start: number, end: number): number {
 		return end - start > MAX_LENGTH ? -1 : this.probe(src, start, end, -1);
+	}
+
+	/** The variable whose id is src[start ..] up to the next double quote (a string without escapes), or -1. */
+	findQuoted(src: Uint8Array, start: number): number {
+		const end = src.indexOf(0x22, start);
+		return this.find(src, start, end);
 	}
 
 	/** Finds src[start .. end); when absent, inserts it as variable `insert` (unless -1) and returns that. */
