@@ -9,7 +9,7 @@ import { isUtf8 } from 'node:buffer';
 import { closeSync, fstatSync, openSync, readSync } from 'node:fs';
 import type { Diagram } from '../lib/graph/diagram';
 import { diagramFileKind, requireDiagramFileKind, withFileName } from '../lib/graph/file-kind';
-import { FAST_READ_MIN_BYTES, readNativeFast } from '../lib/graph/fast-native';
+import { FAST_READ_MIN_BYTES } from '../lib/graph/fast-native/min-bytes';
 import { parseDiagramJson } from '../lib/graph/native-json';
 import { CLI_READ_LIMITS, diagramTooLarge } from '../lib/graph/size-limits';
 import { decodeTextFile } from '../lib/graph/text-decoding';
@@ -121,8 +121,10 @@ function decode(bytes: Uint8Array, plain = isPlainUtf8(bytes)): string {
  * reader leaves the file to the full one, which then gives every message. `text` decodes the
  * bytes as the full path does.
  */
-function readFast(shown: string, bytes: Uint8Array, text: () => string): Diagram | null {
+async function readFast(shown: string, bytes: Uint8Array, text: () => string): Promise<Diagram | null> {
 	if (diagramFileKind(shown, '{') !== 'json') return null;
+	// Loaded only when used, so that the start-up of a command on a small file does not grow.
+	const { readNativeFast } = await import('../lib/graph/fast-native');
 	const read = readNativeFast(bytes, CLI_READ_LIMITS, () => withFileName(shown, () => parseDiagramJson(text(), CLI_READ_LIMITS)));
 	return read.ok ? read.diagram : null;
 }
@@ -140,14 +142,14 @@ export async function readDiagramInput(io: CliIo, path: string): Promise<Diagram
 		// Text given in-process (the tests) takes the fast path at any size, so that the command's
 		// tests exercise it, when the text survives UTF-8 as it is.
 		const given = text;
-		const fast = /[\uD800-\uDFFF]/.test(given) ? null : readFast(shown, Buffer.from(given, 'utf8'), () => given);
+		const fast = /[\uD800-\uDFFF]/.test(given) ? null : await readFast(shown, Buffer.from(given, 'utf8'), () => given);
 		if (fast) return fast;
 	} else {
 		const max = CLI_READ_LIMITS.chars;
 		const bytes = path === '-' ? await readStdinBounded(max) : readFileBounded(path, max);
 		const plain = isPlainUtf8(bytes);
 		// Small files: the full reader is as fast (FAST_READ_MIN_BYTES says why).
-		const fast = plain && bytes.length >= FAST_READ_MIN_BYTES ? readFast(shown, bytes, () => decode(bytes, plain)) : null;
+		const fast = plain && bytes.length >= FAST_READ_MIN_BYTES ? await readFast(shown, bytes, () => decode(bytes, plain)) : null;
 		if (fast) return fast;
 		text = withFileName(shown, () => decode(bytes, plain));
 	}

@@ -177,6 +177,24 @@ export class JsonBytes {
 		return true;
 	}
 
+	/**
+	 * Whitespace, then true (and consumed, its span set as a string without escapes) when the
+	 * bytes at the cursor are `quoted`: a string written as `"text"` with no escape in it.
+	 */
+	consume(quoted: Uint8Array): boolean {
+		const b = this.bytes;
+		const p = this.peek() === 0x22 ? this.pos : -1;
+		const n = quoted.length;
+		if (p < 0 || p + n > b.length) return false;
+		for (let i = 1; i < n; i++) if (b[p + i] !== quoted[i]) return false;
+		this.start = p + 1;
+		this.end = p + n - 1;
+		this.escaped = false;
+		this.wide = false;
+		this.pos = p + n;
+		return true;
+	}
+
 	/** True when the span start..end holds exactly the ASCII text `word`. */
 	spanIs(word: string): boolean {
 		const b = this.bytes;

@@ -58,6 +58,9 @@ const COLON = 0x3a;
 const TOP_KEYS = ['format', 'version', 'title', 'variables', 'arrows', 'exposures', 'outcomes', 'adjusted'] as const;
 const VARIABLE_KEYS = ['id', 'label', 'measured', 'x', 'y', 'note'] as const;
 const ARROW_KEYS = ['from', 'to', 'note'] as const;
+const TOP_QUOTED = quotedKeys(TOP_KEYS);
+const VARIABLE_QUOTED = quotedKeys(VARIABLE_KEYS);
+const ARROW_QUOTED = quotedKeys(ARROW_KEYS);
 const [FORMAT, VERSION, TITLE, VARIABLES, ARROWS, EXPOSURES, OUTCOMES, ADJUSTED] = [0, 1, 2, 3, 4, 5, 6, 7];
 const [ID, LABEL, MEASURED, X, Y, NOTE] = [0, 1, 2, 3, 4, 5];
 const [FROM, TO, ARROW_NOTE] = [0, 1, 2];
@@ -92,10 +95,22 @@ function keyIndex(js: JsonBytes, keys: readonly string[]): number {
 	return offFastPath(`a key the fast path does not read at byte ${js.start}`);
 }
 
-/** After an object's key: the key's index in `keys`, refused if `seen` has it already; consumes the colon. */
-function nextKey(js: JsonBytes, keys: readonly string[], seen: number): number {
-	js.string();
-	const key = keyIndex(js, keys);
+/** Each key of a list as the bytes of its quoted form, `"id"`, to compare in place. */
+function quotedKeys(keys: readonly string[]): Uint8Array[] {
+	return keys.map((k) => Uint8Array.from(`"${k}"`, (c) => c.charCodeAt(0)));
+}
+
+/**
+ * After an object's key: the key's index in `keys`, refused if `seen` has it already; consumes
+ * the colon. The key Causeway writes next (`guess`) is compared in place first, which spares
+ * scanning the key as a string and comparing it with each name.
+ */
+function nextKey(js: JsonBytes, keys: readonly string[], quoted: readonly Uint8Array[], seen: number, guess: number): number {
+	let key = guess;
+	if (guess >= keys.length || !js.consume(quoted[guess])) {
+		js.string();
+		key = keyIndex(js, keys);
+	}
 	if (seen & (1 << key)) offFastPath(`the key "${keys[key]}" is written twice in one object`);
 	js.expect(COLON, 'a colon');
 	return key;
@@ -195,7 +210,7 @@ class DiagramScan {
 		let seen = 0;
 		if (!js.empty(CLOSE_OBJECT))
 			do {
-				const key = nextKey(js, TOP_KEYS, seen);
+				const key = nextKey(js, TOP_KEYS, TOP_QUOTED, seen, FORMAT);
 				seen |= 1 << key;
 				if (key === FORMAT) {
 					js.string();
@@ -259,7 +274,7 @@ class DiagramScan {
 		js.expect(OPEN_OBJECT, 'an object');
 		if (!js.empty(CLOSE_OBJECT))
 			do {
-				const key = nextKey(js, VARIABLE_KEYS, seen);
+				const key = nextKey(js, VARIABLE_KEYS, VARIABLE_QUOTED, seen, keys);
 				seen |= 1 << key;
 				if (key !== keys++) this.plainVariables = false;
 				if (key === ID) {
@@ -303,7 +318,7 @@ class DiagramScan {
 		js.expect(OPEN_OBJECT, 'an object');
 		if (!js.empty(CLOSE_OBJECT))
 			do {
-				const key = nextKey(js, ARROW_KEYS, seen);
+				const key = nextKey(js, ARROW_KEYS, ARROW_QUOTED, seen, keys);
 				seen |= 1 << key;
 				if (key !== keys++) this.plainArrows = false;
 				if (key === FROM) {
