@@ -71,15 +71,16 @@ export class SpanTable {
 
 	/** The variable whose id is src[start ..] up to the next double quote (a string without escapes), or -1. */
 	findQuoted(src: Uint8Array, start: number): number {
-		const end = src.indexOf(0x22, start);
-		return this.find(src, start, end);
+		return this.probe(src, start, -1, -1);
 	}
 
-	/** Finds src[start .. end); when absent, inserts it as variable `insert` (unless -1) and returns that. */
+	/**
+	 * Finds src[start .. end) (end -1: up to the next double quote); when absent, inserts it as
+	 * variable `insert` (unless -1) and returns that.
+	 */
 	private probe(src: Uint8Array, start: number, end: number, insert: number): number {
-		const len = end - start;
+		const len = this.hashSpan(src, start, end) - start;
 		if (len > MAX_LENGTH) offFastPath('an id too long for the table');
-		this.hashSpan(src, start, end);
 		const { h, w0, w1 } = this;
 		const slots = this.slots;
 		let slot = h & this.mask;
@@ -104,13 +105,20 @@ export class SpanTable {
 		}
 	}
 
-	/** Sets h (FNV-1a with a final mix, so the low bits used for the slot depend on every byte) and w0, w1 (the first 8 bytes). */
-	private hashSpan(src: Uint8Array, start: number, end: number): void {
+	/**
+	 * Sets h (FNV-1a with a final mix, so the low bits used for the slot depend on every byte)
+	 * and w0, w1 (the first 8 bytes) of src[start .. end), or up to the next double quote when
+	 * end is -1 (found in the same pass); returns the end.
+	 */
+	private hashSpan(src: Uint8Array, start: number, end: number): number {
 		let h = FNV_OFFSET;
 		let w0 = 0;
 		let w1 = 0;
-		for (let p = start; p < end; p++) {
+		const stop = end < 0 ? src.length : end;
+		let p = start;
+		for (; p < stop; p++) {
 			const c = src[p];
+			if (c === 0x22 && end < 0) break;
 			h = Math.imul(h ^ c, FNV_PRIME);
 			const k = p - start;
 			if (k < 4) w0 |= c << (8 * k);
@@ -122,6 +130,7 @@ export class SpanTable {
 		this.h = h | 0;
 		this.w0 = w0;
 		this.w1 = w1;
+		return p;
 	}
 }
 

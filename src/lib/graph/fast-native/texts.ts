@@ -10,14 +10,16 @@
  */
 /** ignoreBOM: a text may start with U+FEFF, which the default decoder would drop. */
 const utf8 = new TextDecoder('utf-8', { ignoreBOM: true });
-const codes: number[] = [];
+/** One reusable array of char codes per length (setting an array's length each time was a slow builtin call). */
+const codesOfLength: number[][] = [];
 
 /** The text of bytes[start .. end), a string's content: `wide` when it holds a byte ≥ 0x80, `escaped` when a backslash. */
 export function spanText(bytes: Uint8Array, start: number, end: number, wide: boolean, escaped: boolean): string {
 	if (escaped) return JSON.parse(utf8.decode(bytes.subarray(start - 1, end + 1))) as string;
-	if (wide || end - start > 64) return utf8.decode(bytes.subarray(start, end));
-	codes.length = end - start;
-	for (let k = start; k < end; k++) codes[k - start] = bytes[k];
+	const length = end - start;
+	if (wide || length > 64) return utf8.decode(bytes.subarray(start, end));
+	const codes = (codesOfLength[length] ??= new Array<number>(length).fill(0));
+	for (let k = 0; k < length; k++) codes[k] = bytes[start + k];
 	return String.fromCharCode.apply(null, codes);
 }
 
