@@ -77,7 +77,7 @@ function compileScanned(s: ScannedDiagram): { graph: CompiledDag; from: Int32Arr
 		from[e] = f;
 		to[e] = t;
 	}
-	const ids = idTexts(bytes, n, s.ids, s.idWide);
+	const ids = idTexts(table.pool, table.poolStart, n);
 	const indexOf = new IdIndex(ids, table);
 	const graph = compileIndexed(ids, indexOf, from, to);
 	// The flags straight into the new graph's array, rather than through a list of 100,000

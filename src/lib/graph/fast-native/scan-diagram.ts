@@ -26,8 +26,6 @@ export interface ScannedDiagram {
 	/** Variables: id i is bytes[ids[2i] .. ids[2i+1]), with no escape in it. */
 	readonly n: number;
 	readonly ids: Int32Array;
-	/** 1 where the id holds a byte ≥ 0x80. */
-	readonly idWide: Uint8Array;
 	readonly measured: Uint8Array;
 	/**
 	 * Arrows: arrow e runs from the id that starts at bytes[ends[2e]] to the one at bytes[ends[2e+1]]
@@ -178,7 +176,6 @@ class DiagramScan {
 	private readonly ends: Grow;
 	private readonly labels: Grow;
 	private measured: Uint8Array;
-	private idWide: Uint8Array;
 	private labelFlags: Uint8Array;
 	private plainVariables = true;
 	private plainArrows = true;
@@ -195,7 +192,6 @@ class DiagramScan {
 		this.ends = new Grow(4 * guess);
 		this.labels = new Grow(2 * guess);
 		this.measured = new Uint8Array(guess);
-		this.idWide = new Uint8Array(guess);
 		this.labelFlags = new Uint8Array(guess);
 	}
 
@@ -235,7 +231,6 @@ class DiagramScan {
 			bytes: this.bytes,
 			n,
 			ids: this.ids.data.subarray(0, 2 * n),
-			idWide: this.idWide.subarray(0, n),
 			measured: this.measured.subarray(0, n),
 			m: this.ends.length >> 1,
 			ends: this.ends.data.subarray(0, this.ends.length),
@@ -280,7 +275,6 @@ class DiagramScan {
 				if (key === ID) {
 					plainId(js, 'an id');
 					this.ids.push2(js.start, js.end);
-					this.idWide[i] = js.wide ? 1 : 0;
 				} else if (key === LABEL) {
 					boundedString(js, MAX_LABEL_CHARS, 'a label');
 					labelStart = js.start;
@@ -301,9 +295,6 @@ class DiagramScan {
 		const measured = new Uint8Array(this.measured.length * 2);
 		measured.set(this.measured);
 		this.measured = measured;
-		const wide = new Uint8Array(this.idWide.length * 2);
-		wide.set(this.idWide);
-		this.idWide = wide;
 		const flags = new Uint8Array(this.labelFlags.length * 2);
 		flags.set(this.labelFlags);
 		this.labelFlags = flags;

@@ -31,8 +31,8 @@ export class SpanTable {
 	private readonly slots: Int32Array;
 	private readonly mask: number;
 	/** The ids' bytes end to end; id i is pool[poolStart[i] .. poolStart[i + 1]). */
-	private readonly pool: Uint8Array;
-	private readonly poolStart: Int32Array;
+	readonly pool: Uint8Array;
+	readonly poolStart: Int32Array;
 	private probes = 0;
 	private readonly budget: number;
 	/** The hash and first bytes of the span last hashed (set by `hashSpan`). */
