@@ -77,6 +77,7 @@ function compileScanned(s: ScannedDiagram): { graph: CompiledDag; from: Int32Arr
 		from[e] = f;
 		to[e] = t;
 	}
+	table.settle();
 	const ids = idTexts(table.pool, table.poolStart, n);
 	const indexOf = new IdIndex(ids, table);
 	const graph = compileIndexed(ids, indexOf, from, to);

@@ -34,7 +34,7 @@ export class SpanTable {
 	readonly pool: Uint8Array;
 	readonly poolStart: Int32Array;
 	private probes = 0;
-	private readonly budget: number;
+	private budget: number;
 	/** The hash and first bytes of the span last hashed (set by `hashSpan`). */
 	private h = 0;
 	private w0 = 0;
@@ -62,6 +62,14 @@ export class SpanTable {
 		let duplicate = -1;
 		for (let i = 0; i < n && duplicate === -1; i++) if (this.probe(pool, this.poolStart[i], this.poolStart[i + 1], i) !== i) duplicate = i;
 		this.duplicate = duplicate;
+	}
+
+	/**
+	 * Ends the probe budget once the file is read: the few lookups that follow (the question's
+	 * ids, IdIndex) must answer, not leave a fast path that is already taken.
+	 */
+	settle(): void {
+		this.budget = Infinity;
 	}
 
 	/** The variable whose id is src[start .. end), or -1. */
