@@ -4,7 +4,9 @@
  * - start-up on the small demo diagram against a bare `node -e 0`;
  * - diagram separation (d-separation) on 100,000 variables and 200,000 arrows (≈12 MiB) against networkx's whole process
  *   (bench/nx_dsep_file.py with Debian's /usr/bin/python3: read the file, build the graph,
- *   nx.d_separated), with both answers;
+ *   nx.d_separated), runs alternating, with both answers, the ratios and the load; the same
+ *   diagram through the full reader (as a version 1 file, which the fast reader leaves to it)
+ *   and with the text output;
  * - plan sets on 2,000 variables with the default cap; all diagram claims of 2,000 variables
  *   (1.6 million lines through a pipe); plan roles on 2,000 and 10,000 variables, and on 100,000 the refusal and
  *   --only for ten variables.
@@ -86,6 +88,13 @@ function timed(cmd: string, args: string[], dir: string, repeat: number): Run & 
 	return { ...runs[0], wall: median(runs.map((r) => r.wall)), cpu: median(runs.map((r) => r.cpu)), runs };
 }
 
+/** The run with the median CPU time (wall time as its own median), with its output. */
+function medianRun(runs: Run[]): Run {
+	const byCpu = [...runs].sort((a, b) => a.cpu - b.cpu);
+	return { ...byCpu[Math.floor(byCpu.length / 2)], wall: median(runs.map((r) => r.wall)), cpu: median(runs.map((r) => r.cpu)) };
+}
+
+const fmtLoad = (l: number[]) => l.map((x) => x.toFixed(1)).join(', ');
 const cli = (args: string[]) => ['bin/causeway.js', ...args];
 const fmtCpu = (ms: number) => (Number.isNaN(ms) ? 'n/a' : fmtMs(ms));
 
@@ -127,18 +136,40 @@ export async function benchCli(quick: boolean): Promise<Section> {
 		notes.push(`Start-up loads ${fmtBytes(eagerBytes)} of the ${fmtBytes(allBytes)} bundle (esbuild metafile, dist-cli/meta.json); the rest is loaded by the command that needs it.`);
 
 		// dsep on the big diagram, ours and networkx's whole process, on the same file and query.
+		// The runs alternate (ours, networkx, ours, …) so that a change in the machine's load hits
+		// both; medians; the load is printed beside the ratio.
 		const q = ['--from', 'v1', '--to', 'v2', '--given', 'v3,v4'];
 		const size = `${fmtInt(bigN)} variables, ${fmtInt(2 * bigN)} arrows, ${fmtBytes(statSync(big).size)}`;
-		const dsep = timed(node, cli(['diagram', 'separation', big, ...q, '--json']), dir, quick ? 1 : 3);
-		const ourAnswer = dsep.status === 0 ? (JSON.parse(dsep.stdout) as { separated: boolean }).separated : null;
 		const nx = networkx();
+		const pairs = quick ? 1 : 5;
+		const ourRuns: Run[] = [];
+		const nxRuns: Run[] = [];
+		const loadAtDsep = loadavg();
+		for (let i = 0; i < pairs; i++) {
+			ourRuns.push(runOnce(node, cli(['diagram', 'separation', big, ...q, '--json']), dir));
+			if (nx) nxRuns.push(runOnce(nx.python, ['bench/nx_dsep_file.py', big, 'v1', 'v2', 'v3,v4'], dir));
+		}
+		const loadAfterDsep = loadavg();
+		const dsep = medianRun(ourRuns);
+		const ourAnswer = dsep.status === 0 ? (JSON.parse(dsep.stdout) as { separated: boolean }).separated : null;
 		let nxCell = 'networkx not installed';
 		if (nx) {
-			const ref = timed(nx.python, ['bench/nx_dsep_file.py', big, 'v1', 'v2', 'v3,v4'], dir, 1);
+			const ref = medianRun(nxRuns);
 			const nxAnswer = ref.status === 0 ? (JSON.parse(ref.stdout) as { separated: boolean }).separated : null;
-			nxCell = `networkx ${nx.version}: ${fmtMs(ref.wall)} wall, ${fmtCpu(ref.cpu)} CPU; ×${(ref.wall / dsep.wall).toFixed(1)} wall, ×${(ref.cpu / dsep.cpu).toFixed(1)} CPU; same answer: ${nxAnswer === ourAnswer ? 'yes' : 'NO'}`;
+			nxCell =
+				`networkx ${nx.version}: ${fmtMs(ref.wall)} wall, ${fmtCpu(ref.cpu)} CPU; ours ×${(ref.wall / dsep.wall).toFixed(1)} faster in wall time, ` +
+				`×${(ref.cpu / dsep.cpu).toFixed(1)} in CPU time (target ≥ 10×); same answer: ${nxAnswer === ourAnswer ? 'yes' : 'NO'}; ` +
+				`${pairs} alternating runs each, medians; load ${fmtLoad(loadAtDsep)} → ${fmtLoad(loadAfterDsep)}`;
 		}
 		rows.push({ what: 'diagram separation (whole process) vs networkx d_separated (whole process)', size, wall: fmtMs(dsep.wall), CPU: fmtCpu(dsep.cpu), result: `separated: ${ourAnswer}; ${nxCell}` });
+		// The same diagram as a version 1 file: the fast reader leaves it to the full reader
+		// (JSON.parse, schema, checks, compiling; src/lib/graph/fast-native), for comparison.
+		const v1 = join(dir, `random-${bigN}-v1.json`);
+		writeFileSync(v1, readFileSync(big, 'utf8').replace('"version":2', '"version":1'));
+		const full = timed(node, cli(['diagram', 'separation', v1, ...q, '--json']), dir, quick ? 1 : 3);
+		rows.push({ what: 'diagram separation through the full reader (same diagram as version 1)', size, wall: fmtMs(full.wall), CPU: fmtCpu(full.cpu), result: `separated: ${full.status === 0 ? (JSON.parse(full.stdout) as { separated: boolean }).separated : `exit ${full.status}`}; the fast path is ×${(full.cpu / dsep.cpu).toFixed(1)} less CPU` });
+		const text = timed(node, cli(['diagram', 'separation', big, ...q]), dir, quick ? 1 : 3);
+		rows.push({ what: 'diagram separation, printed path (text output)', size, wall: fmtMs(text.wall), CPU: fmtCpu(text.cpu), result: text.status === 0 ? text.stdout.trim().slice(0, 60) + '…' : `exit ${text.status}` });
 
 		const check = timed(node, cli(['review', 'verdict', big, '--json']), dir, 1);
 		rows.push({ what: 'review verdict (on the planned set)', size, wall: fmtMs(check.wall), CPU: fmtCpu(check.cpu), result: `exit ${check.status}` });
@@ -168,7 +199,7 @@ export async function benchCli(quick: boolean): Promise<Section> {
 	} finally {
 		rmSync(dir, { recursive: true, force: true });
 	}
-	const load = (l: number[]) => l.map((x) => x.toFixed(1)).join(', ');
+	const load = fmtLoad;
 	notes.push(
 		`Each figure is one whole process: node bin/causeway.js (the esbuild bundle in dist-cli) or /usr/bin/python3 bench/nx_dsep_file.py; wall time, and CPU time (user + system) from /usr/bin/time; medians where more than one run. ` +
 			`Load average (1, 5, 15 min) before: ${load(loadBefore)}; after: ${load(loadavg())} — on a loaded 2-core machine wall time includes waiting for a core, so the CPU ratio is the steadier one.`

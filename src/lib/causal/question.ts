@@ -7,6 +7,7 @@ import type { Diagram } from '../graph/diagram';
 import { compileIndexed, type CompiledDag } from '../graph/compiled';
 import { InputError } from '../graph/errors';
 import { inspectDiagram, type DiagramIssue } from '../graph/validate';
+import { precompiledGraph } from '../graph/fast-native/lazy-diagram';
 
 export interface QuestionOptions {
 	exposures?: string[];
@@ -42,6 +43,9 @@ export function compareSets(a: readonly string[], b: readonly string[]): number 
 
 /** Throws InputError for the first structural error (duplicate ids, unknown ends, cycles). */
 export function compileChecked(d: Diagram): CompiledDag {
+	// A diagram from the fast reader comes with its graph, checked the same way (graph/fast-native).
+	const ready = precompiledGraph(d);
+	if (ready) return ready;
 	const { issues, resolved } = inspectDiagram(d);
 	const blocking = issues.filter((issue) => STRUCTURAL.has(issue.code));
 	if (blocking.length > 0) throw new InputError(blocking[0].message);
