@@ -17,6 +17,7 @@ import { dropEmptyMargins } from '../association/chi-square';
 import { completeRows, observedLevels } from '../table/columns';
 import type { CodedColumn } from '../table/types';
 import type { TestResult } from '../types';
+import type { TableStatistics } from '../sufficient/table-statistics';
 
 /** Counts of x × y in each stratum: Float64Array of K·r·c, stratum-major. */
 export interface StratifiedTables {
@@ -32,8 +33,8 @@ export interface StratifiedTables {
 }
 
 /** Cross-tabulate x × y within the strata formed by `given` (complete cases). O(n·|given|). */
-export function stratify(x: CodedColumn, y: CodedColumn, given: readonly CodedColumn[]): StratifiedTables {
-	const rows = completeRows([x, y, ...given]);
+export function stratify(x: CodedColumn, y: CodedColumn, given: readonly CodedColumn[], stats?: TableStatistics): StratifiedTables {
+	const rows = stats ? stats.rows([x, y, ...given]) : completeRows([x, y, ...given]);
 	const ox = observedLevels(x, rows);
 	const oy = observedLevels(y, rows);
 	const og = given.map((g) => observedLevels(g, rows));
