@@ -49,15 +49,20 @@ async function readText(ctx: Context, path: string): Promise<string> {
 	}
 }
 
-/** Streams a file into typed columns without holding its text (files can be large). */
-async function streamFile(path: string): Promise<TableSource> {
+/**
+ * Streams a file into typed columns without holding its text (files can be large); its size
+ * lets the reader size the columns once instead of growing them.
+ */
+async function streamFile(path: string): Promise<{ source: TableSource; size: number }> {
+	let size: number;
 	try {
 		const s = await stat(path);
 		if (s.isDirectory()) throw Object.assign(new Error('folder'), { code: 'EISDIR' });
+		size = s.size;
 	} catch (err) {
 		throw new UsageError(describeFsError(err, path));
 	}
-	return createReadStream(path) as unknown as AsyncIterable<Uint8Array>;
+	return { source: createReadStream(path, { highWaterMark: 1 << 20 }) as unknown as AsyncIterable<Uint8Array>, size };
 }
 
 export interface DataInput {
@@ -86,7 +91,8 @@ export async function runOnData(ctx: Context, usage: string, extra: Partial<Data
 			const summary = parseSummaryMatrix(await readText(ctx, dataPath));
 			return { diagram, dataName: dataPath, report: runSummaryChecks(diagram, summary, { mapping, ...extra }) };
 		}
-		const parsed = ctx.io.readFile ? parseTable(await readText(ctx, dataPath)) : await parseTableStream(await streamFile(dataPath));
+		const file = ctx.io.readFile ? null : await streamFile(dataPath);
+		const parsed = file ? await parseTableStream(file.source, { totalBytes: file.size }) : parseTable(await readText(ctx, dataPath));
 		if (!parsed.ok) throw new InputError(where(parsed.error));
 		return { diagram, dataName: dataPath, report: runDataChecks(diagram, parsed.table, { mapping, types, ...extra }) };
 	} catch (e) {

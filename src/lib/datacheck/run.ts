@@ -115,6 +115,7 @@ export function* dataCheckSteps(diagram: Diagram, table: Table, options: DataChe
 	const isCancelled = options.isCancelled;
 	statistics.interrupt = isCancelled ? interruptWhen(isCancelled) : NEVER;
 	statistics.interrupt.poll();
+	statistics.expect([...new Set(Object.values(mapping.columns))].map(columnOf));
 	const progress = (stage: DataCheckProgress['stage']) => (d: number, total: number) => options.onProgress?.({ stage, fraction: d / total });
 	const arrows: ArrowChecks = parts.arrows ? yield* arrowCheckSteps(diagram, columnOf, mapping, { alpha, pictures: options.pictures, onProgress: progress('arrows'), statistics }) : { alpha, checks: [], skipped: [] };
 	const claims: ClaimChecks = parts.claims

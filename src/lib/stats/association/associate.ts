@@ -43,7 +43,7 @@ export function associate(a: Column, b: Column, stats?: TableStatistics): Associ
 	const columns: [string, string] = [a.name, b.name];
 	const rows = stats ? stats.rows([a, b]) : completeRows([a, b]);
 	if (rows.length === 0) throw new StatsError(`'${a.name}' and '${b.name}' are never both observed in the same row.`);
-	for (const c of [a, b]) requireVariation(c, rows);
+	for (const c of [a, b]) requireVariation(c, rows, stats);
 	const [main, ...others] = chooseTests(a, b, rows, stats);
 	const total = columnLength(a);
 	const used = rows.length;
@@ -52,13 +52,13 @@ export function associate(a: Column, b: Column, stats?: TableStatistics): Associ
 }
 
 /** A column that does not vary in the complete cases cannot be associated with anything: say which. */
-function requireVariation(c: Column, rows: Int32Array): void {
+function requireVariation(c: Column, rows: Int32Array, stats: TableStatistics | undefined): void {
 	if (c.kind === 'continuous') {
 		const first = c.values[rows[0]];
 		for (let k = 1; k < rows.length; k++) if (c.values[rows[k]] !== first) return;
 		throw new StatsError(`'${c.name}' has the single value ${first} in the complete cases; no association can be tested.`, { column: c.name });
 	}
-	const levels = observedLevels(c, rows).levels;
+	const levels = (stats ? stats.observed(c, rows) : observedLevels(c, rows)).levels;
 	if (levels.length < 2)
 		throw new StatsError(`'${c.name}' has a single observed level ('${levels[0]}') in the complete cases; no association can be tested.`, {
 			column: c.name

@@ -17,8 +17,9 @@ import type { TableStatistics } from '../sufficient/table-statistics';
 /** Complete cases as values and group codes 0…k−1 (observed levels only). */
 export function groupedValues(group: CodedColumn, response: Column, stats?: TableStatistics): { values: Float64Array; groups: Int32Array; levels: string[] } {
 	const rows = stats ? stats.rows([group, response]) : completeRows([group, response]);
-	const { codes, levels } = observedLevels(group, rows);
+	const { codes, levels } = stats ? stats.observed(group, rows) : observedLevels(group, rows);
 	const v = stats ? stats.numeric(response) : numericValues(response);
+	if (stats && rows.length === v.length) return { values: v, groups: codes, levels }; // every row: no copy
 	const values = new Float64Array(rows.length);
 	for (let k = 0; k < rows.length; k++) values[k] = v[rows[k]];
 	return { values, groups: codes, levels };

@@ -39,8 +39,9 @@ export interface LevelOddsRatios {
 export function levelOddsRatios(outcome: CodedColumn, variable: CodedColumn, stats?: TableStatistics): LevelOddsRatios {
 	if (outcome.kind !== 'binary') throw new StatsError(`Odds ratios per level need a binary outcome; '${outcome.name}' is ${outcome.kind}.`, { column: outcome.name });
 	const rows = stats ? stats.rows([outcome, variable]) : completeRows([outcome, variable]);
-	const { codes, levels } = observedLevels(variable, rows);
-	const oy = observedLevels(outcome, rows);
+	const observe = (c: CodedColumn) => (stats ? stats.observed(c, rows) : observedLevels(c, rows));
+	const { codes, levels } = observe(variable);
+	const oy = observe(outcome);
 	if (levels.length < 2) throw new StatsError(`'${variable.name}' has a single observed level; no odds ratio can be formed.`, { column: variable.name });
 	if (oy.levels.length < 2) throw new StatsError(`'${outcome.name}' has a single observed level; no odds ratio can be formed.`, { column: outcome.name });
 	const n = new Float64Array(levels.length);

@@ -125,13 +125,12 @@ function exposureTerm(terms: readonly DesignTerm[], exposure: Column): DesignTer
 
 /**
  * The crude and adjusted logistic fits of a plan whose first covariate is the exposure, from
- * the table's statistics: one crude fit per exposure, outcome and rows, and the adjusted fit
- * started from it (shared with the standardized estimates, g-computation.ts).
+ * the table's statistics: one crude fit per exposure, outcome and rows, one adjusted fit
+ * shared with the standardized estimates (g-computation.ts).
  */
 export function adjustedLogistic(stats: TableStatistics, plan: DesignPlan, exposure: Column): { crude: LogisticFit; adjusted: LogisticFit } {
 	const term = exposureTerm(plan.terms, exposure);
-	const crude = stats.logistic(plan, [0, ...term.indices]);
-	return { crude, adjusted: stats.logistic(plan, [...Array(plan.p).keys()], { start: crude }) };
+	return { crude: stats.logistic(plan, [0, ...term.indices]), adjusted: stats.logistic(plan, [...Array(plan.p).keys()]) };
 }
 
 /** A linear fit of the plan's outcome on its `columns`, from the shared cross-products. */

@@ -69,8 +69,11 @@ export interface LogisticOptions {
 export function fitLogistic(design: Design, options: LogisticOptions = {}): LogisticFit {
 	const y = design.y;
 	if (!y) throw new StatsError('A logistic regression needs an outcome.');
-	for (let k = 0; k < y.length; k++)
+	let binary = true;
+	for (let k = 0; k < y.length; k++) {
 		if (!(y[k] >= 0 && y[k] <= 1)) throw new StatsError(`The outcome of a logistic regression must lie in [0, 1] (found ${y[k]}).`);
+		if (y[k] !== 0 && y[k] !== 1) binary = false;
+	}
 	const check = options.collinearity ?? checkCollinearity(design);
 	const { n } = design;
 	const p = check.keep.length;
@@ -80,7 +83,8 @@ export function fitLogistic(design: Design, options: LogisticOptions = {}): Logi
 	for (let k = 0; k < n; k++) events += y[k];
 	const ybar = events / n;
 	let nullDeviance = 0;
-	for (let k = 0; k < n; k++) nullDeviance += 2 * (ylogy(y[k], ybar) + ylogy(1 - y[k], 1 - ybar));
+	if (binary) nullDeviance = binaryNullDeviance(events, n);
+	else for (let k = 0; k < n; k++) nullDeviance += 2 * (ylogy(y[k], ybar) + ylogy(1 - y[k], 1 - ybar));
 	return logisticFit(result, {
 		names: check.keep.map((j) => design.names[j]),
 		n,
@@ -90,6 +94,12 @@ export function fitLogistic(design: Design, options: LogisticOptions = {}): Logi
 		notes: design.notes,
 		maxIterations: options.maxIterations ?? 25
 	});
+}
+
+/** The deviance of the intercept-only model for 0/1 outcomes: 2·(E·log(n/E) + (n − E)·log(n/(n − E))). O(1). */
+export function binaryNullDeviance(events: number, n: number): number {
+	const ybar = events / n;
+	return 2 * ((events > 0 ? events * Math.log(1 / ybar) : 0) + (n - events > 0 ? (n - events) * Math.log(1 / (1 - ybar)) : 0));
 }
 
 /** The reported fit from an IRLS result. O(p³). */

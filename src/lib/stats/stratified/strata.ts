@@ -58,8 +58,9 @@ export function strata2x2(exposure: Column, outcome: Column, by: Column, stats?:
 	requireBinary(outcome, 'outcome');
 	const rows = stats ? stats.rows([exposure, outcome, by]) : completeRows([exposure, outcome, by]);
 	if (rows.length === 0) throw new StatsError(`'${exposure.name}', '${outcome.name}' and '${by.name}' are never observed together.`);
-	const ex = observedLevels(exposure, rows);
-	const out = observedLevels(outcome, rows);
+	const observe = (c: CodedColumn) => (stats ? stats.observed(c, rows) : observedLevels(c, rows));
+	const ex = observe(exposure);
+	const out = observe(outcome);
 	if (ex.levels.length < 2 || out.levels.length < 2) throw new StatsError('Stratified odds ratios need both levels of the exposure and of the outcome.');
 	let stratum: Int32Array;
 	let labels: string[];
@@ -70,7 +71,7 @@ export function strata2x2(exposure: Column, outcome: Column, by: Column, stats?:
 		({ stratum, labels } = fifths(values, rows, sorted));
 		kind = 'fifths';
 	} else {
-		const o = observedLevels(by, rows);
+		const o = observe(by);
 		stratum = o.codes;
 		labels = o.levels;
 		kind = 'levels';

@@ -15,6 +15,9 @@ export class ColumnOrder {
 	/** Row indices in ascending order of value (missing values last or first; never read). */
 	readonly order: Uint32Array;
 	private ids: { ids: Int32Array; count: number } | null = null;
+	/** The ranks over every row, kept: most checks use complete columns. */
+	private allRanks: Ranking | null = null;
+	private count: number | null = null;
 
 	constructor(readonly values: Float64Array) {
 		this.order = sortedOrder(values);
@@ -31,6 +34,11 @@ export class ColumnOrder {
 
 	/** Mid-ranks of the values at `rows` (in the order of `rows`) and Σ(t³ − t) over ties. O(n). */
 	midRanks(rows: Int32Array, interrupt?: Interrupt): Ranking {
+		if (rows.length === this.values.length) return (this.allRanks ??= this.ranksOver(rows, interrupt));
+		return this.ranksOver(rows, interrupt);
+	}
+
+	private ranksOver(rows: Int32Array, interrupt?: Interrupt): Ranking {
 		const { order, values } = this;
 		const pos = this.positions(rows);
 		const ranks = new Float64Array(rows.length);
@@ -85,6 +93,23 @@ export class ColumnOrder {
 		const out = new Float64Array(sorted.length);
 		for (let k = 0; k < sorted.length; k++) out[k] = this.values[sorted[k]];
 		return out;
+	}
+
+	/** Number of distinct values (missing not counted). O(n) once. */
+	distinctCount(): number {
+		if (this.count === null) {
+			const { order, values } = this;
+			let count = 0;
+			let last = NaN;
+			for (let i = 0; i < order.length; i++) {
+				const v = values[order[i]];
+				if (v !== v) continue;
+				if (count === 0 || v !== last) count++;
+				last = v;
+			}
+			this.count = count;
+		}
+		return this.count;
 	}
 
 	/** Dense ids 0…count−1 of the distinct values, per row (−1 for missing). O(n). */

@@ -25,10 +25,10 @@ export interface Patterns {
 
 const MAX_SLOTS = 1 << 22;
 
-/** Whether grouping pays: few enough patterns for the rows. */
-export function fewPatterns(sources: readonly PatternSource[], rows: number): boolean {
+/** Whether grouping pays: few enough patterns (the product of the sources' counts) for the rows. */
+export function fewPatterns(counts: readonly number[], rows: number): boolean {
 	let product = 1;
-	for (const s of sources) product *= Math.max(1, s.count);
+	for (const c of counts) product *= Math.max(1, c);
 	return product <= MAX_SLOTS && product * 4 <= rows;
 }
 
