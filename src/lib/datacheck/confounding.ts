@@ -68,7 +68,7 @@ export function checkConfounders(seen: Diagram, columnOf: (name: string) => Colu
 }
 
 /** The confounder check one candidate per step (steps.ts), with the table's shared statistics. */
-export function* confounderSteps(seen: Diagram, columnOf: (name: string) => Column, mapping: VariableMapping, statistics?: TableStatistics): Steps<ConfounderChecks | null> {
+export function* confounderSteps(seen: Diagram, columnOf: (name: string) => Column, mapping: VariableMapping, statistics?: TableStatistics, onProgress?: (done: number, total: number) => void): Steps<ConfounderChecks | null> {
 	const stats = statistics ?? new TableStatistics();
 	if (seen.exposures.length !== 1 || seen.outcomes.length !== 1) return null;
 	const [xId] = seen.exposures;
@@ -78,8 +78,9 @@ export function* confounderSteps(seen: Diagram, columnOf: (name: string) => Colu
 	const y = columnOf(mappedColumn(mapping, yId));
 	const roles = new Map(variableRoles(seen).map((r) => [r.id, r]));
 	const candidates: CandidateCheck[] = [];
-	for (const v of seen.variables) {
+	for (const [index, v] of seen.variables.entries()) {
 		stats.interrupt.poll();
+		onProgress?.(index, seen.variables.length);
 		if (v.id === xId || v.id === yId || own(mapping.columns, v.id) === undefined) continue;
 		const c = columnOf(mappedColumn(mapping, v.id));
 		const r = roles.get(v.id);

@@ -25,6 +25,8 @@ export interface EstimateOptions {
 	maxSets?: number;
 	/** The table's shared statistics (and the run's interrupt); made for this call when absent. */
 	statistics?: TableStatistics;
+	/** Called before each row with (done, total). */
+	onProgress?: (done: number, total: number) => void;
 }
 
 export type EstimatesOutcome = { estimates: Estimates; message: null } | { estimates: null; message: string };
@@ -164,8 +166,9 @@ export function* estimateSteps(seen: Diagram, columnOf: (name: string) => Column
 	let plannedEffect: { effect: ExposureEffect; used: Column[] } | null = null;
 	let model: 'logistic' | 'linear' = outcome.kind === 'binary' ? 'logistic' : 'linear';
 	const warnings = new Set<string>();
-	for (const w of wanted) {
+	for (const [index, w] of wanted.entries()) {
 		stats.interrupt.poll();
+		options.onProgress?.(index, wanted.length);
 		const label = rowLabel(w.roles, w.set);
 		const blank = { roles: w.roles, label, adjustedFor: w.set, n: 0, term: exposure.name, estimate: NaN, ci: [NaN, NaN] as [number, number], pValue: NaN, crudeSameRows: null, crudeSameRowsCi: null, changePercent: null, changeMarked: false, standardized: null, warnings: [] };
 		const noData = w.set.filter((id) => own(mapping.columns, id) === undefined);

@@ -99,8 +99,8 @@ export function runDataChecks(diagram: Diagram, table: Table, options: DataCheck
  * runDataChecks giving way to the event loop between checks (every `sliceMs` of work), so a
  * worker can take a cancel message: `isCancelled` then says so and the run throws Cancelled.
  */
-export function runDataChecksAsync(diagram: Diagram, table: Table, options: DataCheckOptions & { pause: () => Promise<void>; sliceMs?: number }): Promise<DataCheckReport> {
-	return drainAsync(dataCheckSteps(diagram, table, options), options.pause, options.sliceMs);
+export function runDataChecksAsync(diagram: Diagram, table: Table, options: DataCheckOptions & { pause: () => Promise<void>; sliceMs?: number; now?: () => number }): Promise<DataCheckReport> {
+	return drainAsync(dataCheckSteps(diagram, table, options), options.pause, options.sliceMs, options.now);
 }
 
 /** The checks as steps (steps.ts): one per arrow, claim, estimate row and candidate. */
@@ -122,8 +122,10 @@ export function* dataCheckSteps(diagram: Diagram, table: Table, options: DataChe
 		? yield* claimCheckSteps(seen, columnOf, mapping, { alpha, max: options.maxClaims, onProgress: progress('claims'), statistics })
 		: { alpha, checks: [], noTestableClaim: [], tested: 0, contradicted: 0, truncated: false };
 	if (parts.estimates) options.onProgress?.({ stage: 'estimates', fraction: 0 });
-	const est = parts.estimates ? yield* estimateSteps(seen, columnOf, mapping, { planned: options.planned, maxSets: options.maxSets, statistics }) : { estimates: null, message: 'Not computed.' };
-	const confounders = parts.estimates && parts.confounders ? yield* confounderSteps(seen, columnOf, mapping, statistics) : null;
+	// The estimate rows are the first half of the stage, the confounder check the second.
+	const half = (from: number) => (d: number, total: number) => options.onProgress?.({ stage: 'estimates', fraction: from + (parts.confounders ? 0.5 : 1 - from) * (d / total) });
+	const est = parts.estimates ? yield* estimateSteps(seen, columnOf, mapping, { planned: options.planned, maxSets: options.maxSets, statistics, onProgress: half(0) }) : { estimates: null, message: 'Not computed.' };
+	const confounders = parts.estimates && parts.confounders ? yield* confounderSteps(seen, columnOf, mapping, statistics, half(0.5)) : null;
 	const categoryCodes = t.columns.flatMap((c) => {
 		const values = categoryCodeValues(c);
 		return values ? [{ column: c.name, values }] : [];

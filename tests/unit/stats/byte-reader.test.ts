@@ -6,7 +6,8 @@
 // Also the byte-level number path against Number() (Clinger's fast path must agree exactly).
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { parseTable, parseTableStream, type ParseOptions, type ParseResult } from '../../../src/lib/stats/table/read-table';
+import { parseTable, parseTableStream, type ParseOptions } from '../../../src/lib/stats/table/read-table';
+import type { ParseResult } from '../../../src/lib/stats/table/types';
 import * as reference from './reference/papa-table-reader';
 import { plainDecimal } from '../../../src/lib/stats/table/byte-number';
 import { parseNumber } from '../../../src/lib/stats/table/cells';

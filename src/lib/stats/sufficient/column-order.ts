@@ -8,7 +8,7 @@
  * Reason: the arrow and claim checks ranked the same columns over and over (the radix sort
  * was 8 % of `causeway test` on 10⁶ rows, profiled with node --cpu-prof).
  */
-import { sortedOrder, type Ranking } from '../association/ranks';
+import { sortedOrder, type Ranking, type SortScratch } from '../association/ranks';
 import { POLL_MASK, type Interrupt } from './interrupt';
 
 export class ColumnOrder {
@@ -19,8 +19,11 @@ export class ColumnOrder {
 	private allRanks: Ranking | null = null;
 	private count: number | null = null;
 
-	constructor(readonly values: Float64Array) {
-		this.order = sortedOrder(values);
+	constructor(
+		readonly values: Float64Array,
+		scratch?: SortScratch
+	) {
+		this.order = sortedOrder(values, scratch);
 	}
 
 	/** Position of each of `rows` in that list (−1 for other rows); null when `rows` is every row. */

@@ -14,7 +14,7 @@
  * Long loops poll the interrupt (interrupt.ts). Pass one object to all the checks of a table.
  */
 import type { ContingencyTable } from '../association/contingency';
-import type { Ranking } from '../association/ranks';
+import { sortScratch, type Ranking, type SortScratch } from '../association/ranks';
 import { StatsError } from '../errors';
 import { collinearityFromGram, type CollinearityCheck } from '../regression/collinearity';
 import { materialize, planDesign, type Design, type DesignPlan, type DesignVector } from '../regression/design';
@@ -68,6 +68,8 @@ export interface Units {
 export class TableStatistics {
 	/** Polled by long loops; the data checks set it per run. */
 	interrupt: Interrupt;
+	/** Polls whichever interrupt is current (for the caches that outlive a run). */
+	private readonly current: Interrupt = { poll: () => this.interrupt.poll() };
 	private readonly rowSets = new Map<string, Int32Array>();
 	private readonly moments = new WeakMap<Int32Array, Moments>();
 	private readonly orders = new WeakMap<Float64Array, ColumnOrder>();
@@ -77,6 +79,7 @@ export class TableStatistics {
 	private readonly fits = new Map<string, LogisticFit>();
 	private readonly fitKeys = new WeakMap<LogisticFit, string>();
 	private last: { plan: DesignPlan; design: Design } | null = null;
+	private scratch: SortScratch | null = null;
 	/** Arrays whose missing values define each row set. */
 	private readonly rowSetArrays = new WeakMap<Int32Array, Set<object>>();
 	private expected: Column[] = [];
@@ -140,7 +143,7 @@ export class TableStatistics {
 			const vectors: TableVector[] = valid.flatMap((c): TableVector[] =>
 				c.kind === 'continuous' ? [{ kind: 'values', values: c.values }] : c.levels.slice(1).map((_, l) => ({ kind: 'level', codes: c.codes, level: l + 1 }))
 			);
-			m = new Moments(rows, this.interrupt, vectors.length <= MAX_EXPECTED ? vectors : []);
+			m = new Moments(rows, this.current, vectors.length <= MAX_EXPECTED ? vectors : []);
 			this.moments.set(rows, m);
 		}
 		return m;
@@ -150,7 +153,8 @@ export class TableStatistics {
 		let o = this.orders.get(values);
 		if (!o) {
 			this.interrupt.poll();
-			o = new ColumnOrder(values);
+			if (this.scratch?.copy.length !== values.length) this.scratch = sortScratch(values.length);
+			o = new ColumnOrder(values, this.scratch);
 			this.orders.set(values, o);
 		}
 		return o;

@@ -55,6 +55,14 @@ export class ColumnBuilder {
 	private distinct: number[] = [];
 	private moreThanTwo = false;
 	private labels: ByteLabels | null = null;
+	/**
+	 * While a numeric column (of undeclared kind) has shown at most two distinct numbers, they
+	 * are kept as codes (0: the first distinct number, 1: the second, −1: missing) rather than
+	 * as doubles: most two-valued columns end up binary, and this halves the memory written
+	 * for them (writing fresh memory is most of a million-row read, measured) and the copy
+	 * into codes at the end. A third number turns them into doubles (unpair).
+	 */
+	private pair: Int32Array | null = null;
 	/** Numeric mode and no user missing tokens: plain numbers are read from the bytes. */
 	private fastNumbers: boolean;
 	private readonly decimalComma: boolean;
@@ -65,8 +73,9 @@ export class ColumnBuilder {
 	) {
 		const coded = spec.declared === 'binary' || spec.declared === 'categorical' || spec.declared === 'ordinal';
 		this.mode = coded ? 'coded' : 'numeric';
-		this.numbers = coded ? new Float64Array(0) : new Float64Array(initialCapacity);
+		this.numbers = coded || spec.declared === undefined ? new Float64Array(0) : new Float64Array(initialCapacity);
 		if (coded) this.codes = new Int32Array(initialCapacity);
+		else if (spec.declared === undefined) this.pair = new Int32Array(initialCapacity);
 		this.fastNumbers = !coded && !spec.extraMissing;
 		this.decimalComma = spec.decimalComma;
 	}
@@ -90,10 +99,7 @@ export class ColumnBuilder {
 				this.numberCells++;
 				if (!this.moreThanTwo) this.noteDistinct(x);
 			}
-			const length = this.length;
-			if (length === this.numbers.length) this.grow();
-			this.numbers[length] = x;
-			this.length = length + 1;
+			this.storeNumber(x);
 			return;
 		} else if (this.mode === 'coded') {
 			const labels = (this.labels ??= new ByteLabels());
@@ -168,6 +174,19 @@ export class ColumnBuilder {
 
 	private finishNumeric(): BuiltColumn {
 		const { name } = this.spec;
+		const pair = this.pair;
+		if (pair !== null && this.distinct.length === 2) {
+			// Codes by first appearance; the reference level is the smaller number.
+			const [d0, d1] = this.distinct;
+			const codes = fitted(pair, this.length);
+			if (d1 < d0) for (let i = 0; i < codes.length; i++) if (codes[i] >= 0) codes[i] = 1 - codes[i];
+			const [lo, hi] = d0 < d1 ? [d0, d1] : [d1, d0];
+			return {
+				column: { name, kind: 'binary', codes, levels: [String(lo), String(hi)], missing: this.missing },
+				notes: [`'${name}': binary (values ${lo} and ${hi}; reference ${lo}).`]
+			};
+		}
+		if (pair !== null) this.unpair();
 		const values = fitted(this.numbers, this.length);
 		if (this.spec.declared !== 'continuous' && this.distinct.length === 2 && !this.moreThanTwo) {
 			const [lo, hi] = this.distinct[0] < this.distinct[1] ? this.distinct : [this.distinct[1], this.distinct[0]];
@@ -226,8 +245,48 @@ export class ColumnBuilder {
 		return code;
 	}
 
+	/** A number (NaN: missing) of a numeric column, as a pair code or a double. */
+	private storeNumber(x: number): void {
+		const pair = this.pair;
+		if (pair !== null) {
+			let code = -1;
+			if (x === x) {
+				const d = this.distinct;
+				code = d[0] === x ? 0 : d[1] === x ? 1 : -2;
+				// A third number, or a zero of the other sign than the one kept (−0 and 0 are one value but are stored as read).
+				if (code === -2 || (x === 0 && !Object.is(x, d[code]))) {
+					this.unpair();
+					this.storeNumber(x);
+					return;
+				}
+			}
+			if (this.length === pair.length) {
+				const bigger = new Int32Array(Math.max(16, pair.length * 2));
+				bigger.set(pair);
+				this.pair = bigger;
+			}
+			(this.pair as Int32Array)[this.length++] = code;
+			return;
+		}
+		const length = this.length;
+		if (length === this.numbers.length) this.grow();
+		this.numbers[length] = x;
+		this.length = length + 1;
+	}
+
+	/** Pair codes back to the numbers they stand for. */
+	private unpair(): void {
+		const pair = this.pair as Int32Array;
+		const d = this.distinct;
+		const numbers = new Float64Array(pair.length);
+		for (let i = 0; i < this.length; i++) numbers[i] = pair[i] < 0 ? NaN : d[pair[i]];
+		this.numbers = numbers;
+		this.pair = null;
+	}
+
 	/** First text cell in a so-far numeric column: re-code the numbers seen as labels. */
 	private switchToCoded(): void {
+		if (this.pair !== null) this.unpair();
 		this.mode = 'coded';
 		this.fastNumbers = false;
 		this.codes = new Int32Array(this.numbers.length);
@@ -257,9 +316,10 @@ export class ColumnBuilder {
 
 	private append(x: number, code: number): void {
 		if (this.mode === 'numeric') {
-			if (this.length === this.numbers.length) this.grow();
-			this.numbers[this.length] = x;
-		} else if (this.mode === 'coded') {
+			this.storeNumber(x);
+			return;
+		}
+		if (this.mode === 'coded') {
 			if (this.length === this.codes.length) {
 				const bigger = new Int32Array(Math.max(16, this.codes.length * 2));
 				bigger.set(this.codes);
