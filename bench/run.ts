@@ -5,7 +5,8 @@
  *
  *   npm run bench                 full run (about 10–15 minutes on a 2-core machine)
  *   npm run bench -- --quick      smaller sizes of every section (about 2–3 minutes); not written
- *   npm run bench -- --only=1,3   some sections only (1 d-sep, 2 listing, 3 claims, 4 data,
+ *   npm run bench -- --only=1,3   some sections only (1 d-sep, 2 listing, 3 claims, 4 data (4c: only the
+ *                                 million-row reading, commands and R),
  *                                 5 editor, 6 bundle, 7 reviewer tools, 8 paths, cli command line); not written
  *   npm run bench -- --only=layout   layout and SVG export of large diagrams (bench/layout.ts)
  *   --no-write / --write          override whether bench/RESULTS.md is written
@@ -18,6 +19,7 @@ import { benchListing } from './listing';
 import { benchClaims } from './claims';
 import { benchData } from './data';
 import { benchLogistic } from './logistic';
+import { benchDataScale } from './data-scale';
 import { benchEditor } from './editor';
 import { benchBundle } from './bundle';
 import { benchPaths } from './paths';
@@ -62,6 +64,7 @@ async function main(): Promise<void> {
 	await section('3', () => benchClaims(quick ? [50, 200] : [50, 200, 1_000]));
 	await section('4', () => benchData(quick ? [10_000] : [10_000, 100_000, 1_000_000]));
 	await section('4', () => benchLogistic(quick ? 100_000 : 1_000_000, quick ? 1 : 3));
+	await section(only?.has('4c') ? '4c' : '4', () => benchDataScale(quick ? 100_000 : 1_000_000, quick ? 1 : 3));
 
 	if (wanted('5') || wanted('6')) {
 		let app: BuiltApp | null = null;

@@ -7,7 +7,8 @@
  */
 import { own } from '../stats/own';
 import type { Diagram } from '../graph/diagram';
-import { associate, completeRows, StatsError, type Column, type TestResult } from '../stats';
+import { associate, completeRows, StatsError, TableStatistics, type Column, type TestResult } from '../stats';
+import { drain, type Steps } from './steps';
 import { pictureData } from './pictures';
 import { twoWayTable, type TwoWayTable } from './two-way';
 import type { ArrowCheck, ArrowChecks, ArrowSupport, ReadMeasure, VariableMapping } from './types';
@@ -22,6 +23,8 @@ export interface ArrowCheckOptions {
 	pictures?: boolean;
 	/** Called after each arrow with (done, total). */
 	onProgress?: (done: number, total: number) => void;
+	/** The table's shared statistics (and the run's interrupt); made for this call when absent. */
+	statistics?: TableStatistics;
 }
 
 /**
@@ -54,9 +57,9 @@ export function supportOf(p: number, strength: number | null, alpha: number, mea
 }
 
 /** Cohen's d: difference in means of the numeric column between the binary one's levels, over the pooled SD. O(n). */
-function standardizedDifference(group: Column, numeric: Column): number {
+function standardizedDifference(group: Column, numeric: Column, stats?: TableStatistics): number {
 	if (group.kind === 'continuous' || numeric.kind !== 'continuous') return NaN;
-	const rows = completeRows([group, numeric]);
+	const rows = stats ? stats.rows([group, numeric]) : completeRows([group, numeric]);
 	const sum = [0, 0];
 	const sq = [0, 0];
 	const count = [0, 0];
@@ -74,7 +77,7 @@ function standardizedDifference(group: Column, numeric: Column): number {
 }
 
 /** The measure a practitioner reads for the pair, with Cohen's small size where one applies. O(n). */
-export function readMeasure(a: Column, b: Column, main: TestResult, table: TwoWayTable | null): ReadMeasure | null {
+export function readMeasure(a: Column, b: Column, main: TestResult, table: TwoWayTable | null, stats?: TableStatistics): ReadMeasure | null {
 	const ors = table?.levelOddsRatios;
 	if (ors && ors.levels.length > 0) {
 		const strongest = ors.levels.reduce((m, l) => (Math.abs(Math.log(l.oddsRatio)) > Math.abs(Math.log(m.oddsRatio)) ? l : m));
@@ -94,7 +97,7 @@ export function readMeasure(a: Column, b: Column, main: TestResult, table: TwoWa
 	}
 	const binary = a.kind === 'binary' && b.kind === 'continuous' ? ([a, b] as const) : b.kind === 'binary' && a.kind === 'continuous' ? ([b, a] as const) : null;
 	if (binary) {
-		const d = standardizedDifference(binary[0], binary[1]);
+		const d = standardizedDifference(binary[0], binary[1], stats);
 		const [group, numeric] = binary;
 		if (Number.isFinite(d) && group.kind === 'binary')
 			return {
@@ -119,26 +122,33 @@ export function readMeasure(a: Column, b: Column, main: TestResult, table: TwoWa
 }
 
 export function checkArrows(diagram: Diagram, columnOf: (name: string) => Column, mapping: VariableMapping, options: ArrowCheckOptions = {}): ArrowChecks {
+	return drain(arrowCheckSteps(diagram, columnOf, mapping, options));
+}
+
+/** The arrow checks one arrow per step (steps.ts), with the table's shared statistics. */
+export function* arrowCheckSteps(diagram: Diagram, columnOf: (name: string) => Column, mapping: VariableMapping, options: ArrowCheckOptions = {}): Steps<ArrowChecks> {
 	const alpha = options.alpha ?? DEFAULT_ALPHA;
+	const stats = options.statistics ?? new TableStatistics();
 	const checks: ArrowCheck[] = [];
 	const skipped: ArrowChecks['skipped'] = [];
-	diagram.arrows.forEach((a, index) => {
+	for (const [index, a] of diagram.arrows.entries()) {
+		stats.interrupt.poll();
 		options.onProgress?.(index, diagram.arrows.length);
 		const cf = own(mapping.columns, a.from);
 		const ct = own(mapping.columns, a.to);
 		if (cf === undefined || ct === undefined) {
 			const missing = [a.from, a.to].filter((id) => own(mapping.columns, id) === undefined);
 			skipped.push({ from: a.from, to: a.to, why: `no data for ${missing.map((id) => `"${id}"`).join(' and ')}` });
-			return;
+			continue;
 		}
 		const tail = columnOf(cf);
 		const head = columnOf(ct);
 		const base = { from: a.from, to: a.to, columns: [cf, ct] as [string, string] };
 		try {
-			const r = associate(tail, head);
+			const r = associate(tail, head, stats);
 			const strength = associationStrength([r.main, ...r.others]);
-			const table = tail.kind !== 'continuous' && head.kind !== 'continuous' ? twoWayTable(tail, head) : null;
-			const measure = readMeasure(tail, head, r.main, table);
+			const table = tail.kind !== 'continuous' && head.kind !== 'continuous' ? twoWayTable(tail, head, stats) : null;
+			const measure = readMeasure(tail, head, r.main, table, stats);
 			checks.push({
 				...base,
 				kinds: [tail.kind, head.kind],
@@ -150,12 +160,13 @@ export function checkArrows(diagram: Diagram, columnOf: (name: string) => Column
 				strength: strength?.value ?? null,
 				strengthName: strength?.name ?? null,
 				message: null,
-				...(options.pictures ? { picture: pictureData(tail, head) } : {})
+				...(options.pictures ? { picture: pictureData(tail, head, stats) } : {})
 			});
 		} catch (e) {
 			if (!(e instanceof StatsError)) throw e;
 			checks.push({ ...base, kinds: [tail.kind, head.kind], support: 'untested', main: null, others: [], strength: null, strengthName: null, measure: null, table: null, message: e.message });
 		}
-	});
+		yield;
+	}
 	return { alpha, checks, skipped };
 }

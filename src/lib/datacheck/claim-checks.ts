@@ -13,7 +13,8 @@ import { own } from '../stats/own';
 import type { Diagram } from '../graph/diagram';
 import { findCycle } from '../graph/validate';
 import { impliedClaims } from '../causal';
-import { benjaminiHochbergAdjust, holmAdjust, StatsError, testConditionalIndependence, type Column } from '../stats';
+import { benjaminiHochbergAdjust, holmAdjust, NEVER, StatsError, TableStatistics, testConditionalIndependence, type Column, type Interrupt } from '../stats';
+import { drain, type Steps } from './steps';
 import { DEFAULT_ALPHA } from './arrow-checks';
 import type { ClaimCheck, ClaimChecks, VariableMapping } from './types';
 
@@ -23,6 +24,8 @@ export interface ClaimCheckOptions {
 	max?: number;
 	/** Called before each claim's test with (done, total). */
 	onProgress?: (done: number, total: number) => void;
+	/** The table's shared statistics (and the run's interrupt); made for this call when absent. */
+	statistics?: TableStatistics;
 }
 
 /** Arrows between a and b that keep the diagram acyclic. O(n + m) each. */
@@ -43,9 +46,23 @@ export function claimFamily(
 	truncated: boolean,
 	onProgress?: (done: number, total: number) => void
 ): ClaimChecks {
+	return drain(claimFamilySteps(claims, test, diagram, alpha, truncated, onProgress));
+}
+
+/** claimFamily one claim per step (steps.ts); `interrupt` is polled before each claim. */
+export function* claimFamilySteps(
+	claims: readonly { a: string; b: string; given: string[] | null }[],
+	test: (a: string, b: string, given: string[]) => Pick<ClaimCheck, 'main' | 'others'>,
+	diagram: Diagram,
+	alpha: number,
+	truncated: boolean,
+	onProgress?: (done: number, total: number) => void,
+	interrupt: Interrupt = NEVER
+): Steps<ClaimChecks> {
 	const noTestableClaim: { a: string; b: string }[] = [];
 	const checks: ClaimCheck[] = [];
 	for (const [index, c] of claims.entries()) {
+		interrupt.poll();
 		onProgress?.(index, claims.length);
 		if (c.given === null) {
 			noTestableClaim.push({ a: c.a, b: c.b });
@@ -59,6 +76,7 @@ export function claimFamily(
 			if (!(e instanceof StatsError)) throw e;
 			checks.push({ ...base, status: 'untested', main: null, others: [], p: NaN, message: e.message });
 		}
+		yield;
 	}
 	const p = checks.map((c) => c.p);
 	const holm = holmAdjust(p);
@@ -88,20 +106,27 @@ export function claimFamily(
  * with a column; suggestions are checked for cycles on it too.
  */
 export function checkClaims(seen: Diagram, columnOf: (name: string) => Column, mapping: VariableMapping, options: ClaimCheckOptions = {}): ClaimChecks {
+	return drain(claimCheckSteps(seen, columnOf, mapping, options));
+}
+
+/** The claim checks one claim per step (steps.ts), with the table's shared statistics. */
+export function claimCheckSteps(seen: Diagram, columnOf: (name: string) => Column, mapping: VariableMapping, options: ClaimCheckOptions = {}): Steps<ClaimChecks> {
 	const alpha = options.alpha ?? DEFAULT_ALPHA;
+	const stats = options.statistics ?? new TableStatistics();
 	const listed = impliedClaims(seen, { max: options.max === undefined ? undefined : options.max + 1 });
 	const truncated = options.max !== undefined && listed.length > options.max;
 	const claims = truncated ? listed.slice(0, options.max) : listed;
 	const col = (id: string) => columnOf(mappedColumn(mapping, id));
-	return claimFamily(
+	return claimFamilySteps(
 		claims,
 		(a, b, given) => {
-			const r = testConditionalIndependence(col(a), col(b), given.map(col));
+			const r = testConditionalIndependence(col(a), col(b), given.map(col), stats);
 			return { main: r.main, others: r.others };
 		},
 		seen,
 		alpha,
 		truncated,
-		options.onProgress
+		options.onProgress,
+		stats.interrupt
 	);
 }

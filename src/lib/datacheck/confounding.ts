@@ -24,16 +24,18 @@ import {
 	mantelHaenszel,
 	StatsError,
 	strata2x2,
+	TableStatistics,
 	type Column
 } from '../stats';
+import { drain, type Steps } from './steps';
 import { readMeasure } from './arrow-checks';
 import { twoWayTable } from './two-way';
 import type { CandidateCheck, ConfounderChecks, PairSummary, VariableMapping } from './types';
 
-function pairSummary(a: Column, b: Column): PairSummary {
+function pairSummary(a: Column, b: Column, stats: TableStatistics): PairSummary {
 	try {
-		const r = associate(a, b);
-		const table = a.kind !== 'continuous' && b.kind !== 'continuous' ? twoWayTable(a, b) : null;
+		const r = associate(a, b, stats);
+		const table = a.kind !== 'continuous' && b.kind !== 'continuous' ? twoWayTable(a, b, stats) : null;
 		return {
 			columns: [a.name, b.name],
 			test: r.main.test,
@@ -42,7 +44,7 @@ function pairSummary(a: Column, b: Column): PairSummary {
 			df: r.main.df,
 			pValue: r.main.pValue,
 			n: r.main.n,
-			measure: readMeasure(a, b, r.main, table),
+			measure: readMeasure(a, b, r.main, table, stats),
 			table,
 			message: null
 		};
@@ -61,7 +63,13 @@ function guard<T>(f: () => T): T | { message: string } {
 	}
 }
 
-export function checkConfounders(seen: Diagram, columnOf: (name: string) => Column, mapping: VariableMapping): ConfounderChecks | null {
+export function checkConfounders(seen: Diagram, columnOf: (name: string) => Column, mapping: VariableMapping, statistics?: TableStatistics): ConfounderChecks | null {
+	return drain(confounderSteps(seen, columnOf, mapping, statistics));
+}
+
+/** The confounder check one candidate per step (steps.ts), with the table's shared statistics. */
+export function* confounderSteps(seen: Diagram, columnOf: (name: string) => Column, mapping: VariableMapping, statistics?: TableStatistics, onProgress?: (done: number, total: number) => void): Steps<ConfounderChecks | null> {
+	const stats = statistics ?? new TableStatistics();
 	if (seen.exposures.length !== 1 || seen.outcomes.length !== 1) return null;
 	const [xId] = seen.exposures;
 	const [yId] = seen.outcomes;
@@ -70,7 +78,9 @@ export function checkConfounders(seen: Diagram, columnOf: (name: string) => Colu
 	const y = columnOf(mappedColumn(mapping, yId));
 	const roles = new Map(variableRoles(seen).map((r) => [r.id, r]));
 	const candidates: CandidateCheck[] = [];
-	for (const v of seen.variables) {
+	for (const [index, v] of seen.variables.entries()) {
+		stats.interrupt.poll();
+		onProgress?.(index, seen.variables.length);
 		if (v.id === xId || v.id === yId || own(mapping.columns, v.id) === undefined) continue;
 		const c = columnOf(mappedColumn(mapping, v.id));
 		const r = roles.get(v.id);
@@ -90,7 +100,7 @@ export function checkConfounders(seen: Diagram, columnOf: (name: string) => Colu
 			continue;
 		}
 		const change = guard(() => {
-			const e = estimateExposureEffect(y, x, [c]);
+			const e = estimateExposureEffect(y, x, [c], stats);
 			const a = e.adjusted[0];
 			const cr = e.crude.find((q) => q.term === a?.term);
 			if (!a || !cr) throw new StatsError(`The exposure '${x.name}' was left out of the model adjusted for '${c.name}'.`);
@@ -99,7 +109,7 @@ export function checkConfounders(seen: Diagram, columnOf: (name: string) => Colu
 		const stratified =
 			x.kind === 'binary' && y.kind === 'binary'
 				? guard(() => {
-						const s = strata2x2(x, y, c);
+						const s = strata2x2(x, y, c, stats);
 						const mh = mantelHaenszel(s.tables);
 						const bd = guard(() => breslowDay(s.tables, mh.oddsRatio));
 						return {
@@ -114,7 +124,8 @@ export function checkConfounders(seen: Diagram, columnOf: (name: string) => Colu
 						};
 					})
 				: null;
-		candidates.push({ ...base, withExposure: pairSummary(c, x), withOutcome: pairSummary(c, y), change, stratified });
+		candidates.push({ ...base, withExposure: pairSummary(c, x, stats), withOutcome: pairSummary(c, y, stats), change, stratified });
+		yield;
 	}
 	return { exposure: xId, outcome: yId, exposureKind: x.kind, outcomeKind: y.kind, candidates };
 }

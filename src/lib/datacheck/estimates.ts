@@ -14,7 +14,8 @@ import type { Diagram } from '../graph/diagram';
 import { InputError } from '../graph/errors';
 import { adjustmentSets, checkAdjustment, compareSets, sortIds } from '../causal';
 import type { AdjustmentSets } from '../causal';
-import { completeRows, estimateExposureEffect, eValue, numericValues, standardize, StatsError, type Column, type ExposureEffect } from '../stats';
+import { estimateExposureEffect, eValue, standardize, StatsError, TableStatistics, type Column, type ExposureEffect } from '../stats';
+import { drain, type Steps } from './steps';
 import type { EstimateRole, EstimateRow, Estimates, EValueSummary, VariableMapping } from './types';
 
 export interface EstimateOptions {
@@ -22,6 +23,10 @@ export interface EstimateOptions {
 	planned?: readonly string[];
 	/** Show at most this many minimal sets (default 20). */
 	maxSets?: number;
+	/** The table's shared statistics (and the run's interrupt); made for this call when absent. */
+	statistics?: TableStatistics;
+	/** Called before each row with (done, total). */
+	onProgress?: (done: number, total: number) => void;
 }
 
 export type EstimatesOutcome = { estimates: Estimates; message: null } | { estimates: null; message: string };
@@ -42,9 +47,9 @@ export function rowLabel(roles: readonly EstimateRole[], set: readonly string[])
  * difference d = estimate / SD(outcome) is turned into a risk ratio RR ≈ exp(0.91·d), the
  * approximation VanderWeele & Ding (2017) give for continuous outcomes (from memory). O(n).
  */
-function eValueOfDifference(effect: ExposureEffect, outcome: Column, used: readonly Column[]): EValueSummary | null {
-	const rows = completeRows(used);
-	const y = numericValues(outcome);
+function eValueOfDifference(effect: ExposureEffect, outcome: Column, used: readonly Column[], stats: TableStatistics): EValueSummary | null {
+	const rows = stats.rows(used);
+	const y = stats.numeric(outcome);
 	let mean = 0;
 	for (const r of rows) mean += y[r];
 	mean /= rows.length;
@@ -117,10 +122,10 @@ export function separationWarning(effect: ExposureEffect): string | null {
  * the odds ratio into confounding (crude → marginal) and non-collapsibility (marginal →
  * conditional). Null for other kinds. One more logistic fit.
  */
-function standardizedRow(outcome: Column, exposure: Column, used: readonly Column[], crudeSameRows: number | null): EstimateRow['standardized'] {
+function standardizedRow(outcome: Column, exposure: Column, used: readonly Column[], crudeSameRows: number | null, stats: TableStatistics): EstimateRow['standardized'] {
 	if (outcome.kind !== 'binary' || exposure.kind !== 'binary') return null;
 	try {
-		const g = standardize(outcome, exposure, used);
+		const g = standardize(outcome, exposure, used, 0.95, stats);
 		return {
 			risk1: g.risk1.estimate,
 			risk0: g.risk0.estimate,
@@ -138,6 +143,12 @@ function standardizedRow(outcome: Column, exposure: Column, used: readonly Colum
 }
 
 export function estimateEffects(seen: Diagram, columnOf: (name: string) => Column, mapping: VariableMapping, options: EstimateOptions = {}): EstimatesOutcome {
+	return drain(estimateSteps(seen, columnOf, mapping, options));
+}
+
+/** The estimates one row per step (steps.ts), with the table's shared statistics. */
+export function* estimateSteps(seen: Diagram, columnOf: (name: string) => Column, mapping: VariableMapping, options: EstimateOptions = {}): Steps<EstimatesOutcome> {
+	const stats = options.statistics ?? new TableStatistics();
 	const question = estimateQuestion(seen, mapping.columns, 'has no column in the data');
 	if ('message' in question) return { estimates: null, message: question.message };
 	const { exposure: exposureId, outcome: outcomeId } = question;
@@ -161,7 +172,9 @@ export function estimateEffects(seen: Diagram, columnOf: (name: string) => Colum
 	let plannedEffect: { effect: ExposureEffect; used: Column[] } | null = null;
 	let model: 'logistic' | 'linear' = outcome.kind === 'binary' ? 'logistic' : 'linear';
 	const warnings = new Set<string>();
-	for (const w of wanted) {
+	for (const [index, w] of wanted.entries()) {
+		stats.interrupt.poll();
+		options.onProgress?.(index, wanted.length);
 		const label = rowLabel(w.roles, w.set);
 		const blank = { roles: w.roles, label, adjustedFor: w.set, n: 0, term: exposure.name, estimate: NaN, ci: [NaN, NaN] as [number, number], pValue: NaN, crudeSameRows: null, crudeSameRowsCi: null, changePercent: null, changeMarked: false, standardized: null, warnings: [] };
 		const noData = w.set.filter((id) => own(mapping.columns, id) === undefined);
@@ -172,7 +185,7 @@ export function estimateEffects(seen: Diagram, columnOf: (name: string) => Colum
 		const sufficient = checkAdjustment(seen, { adjusted: w.set }).valid;
 		try {
 			const used = w.set.map(col);
-			const r = estimateExposureEffect(outcome, exposure, used);
+			const r = estimateExposureEffect(outcome, exposure, used, stats);
 			model = r.model;
 			const a = r.adjusted[0];
 			if (!a) throw new StatsError(`The exposure '${exposure.name}' was left out of the model (collinear with the adjustment set).`);
@@ -190,7 +203,7 @@ export function estimateEffects(seen: Diagram, columnOf: (name: string) => Colum
 				pValue: a.pValue,
 				crudeSameRows: isCrude ? null : r.crude[0].estimate,
 				crudeSameRowsCi: isCrude ? null : r.crude[0].ci,
-				standardized: standardizedRow(outcome, exposure, used, isCrude ? null : r.crude[0].estimate),
+				standardized: standardizedRow(outcome, exposure, used, isCrude ? null : r.crude[0].estimate, stats),
 				changePercent: isCrude ? null : r.change[0].percent,
 				changeMarked: isCrude ? false : r.change[0].atLeastTenPercent,
 				warnings: rowWarnings
@@ -201,6 +214,7 @@ export function estimateEffects(seen: Diagram, columnOf: (name: string) => Colum
 			if (!(e instanceof StatsError || e instanceof InputError)) throw e;
 			rows.push({ ...blank, sufficient, message: `Not estimated: ${e.message}` });
 		}
+		yield;
 	}
 	let eValueSummary: EValueSummary | null = null;
 	if (plannedEffect) {
@@ -208,7 +222,7 @@ export function estimateEffects(seen: Diagram, columnOf: (name: string) => Colum
 		if (effect.model === 'logistic') {
 			const e = effect.eValues[0];
 			eValueSummary = e ? { point: e.point, ciBound: e.ciBound, notes: e.notes } : null;
-		} else if (exposure.kind === 'binary') eValueSummary = eValueOfDifference(effect, outcome, used);
+		} else if (exposure.kind === 'binary') eValueSummary = eValueOfDifference(effect, outcome, used, stats);
 		else notes.push('No E-value: for a continuous exposure it depends on the contrast chosen.');
 	}
 	if (model === 'linear' && outcome.kind !== 'continuous') notes.push(`The outcome '${outcome.name}' is ${outcome.kind}; its level scores are modelled by linear regression.`);

@@ -4,7 +4,7 @@
  * parseTableStream from src/lib/stats), runSummaryChecks(diagram, summary) for a
  * correlation or covariance matrix (parseSummaryMatrix).
  */
-export { runDataChecks, prepareTable } from './run';
+export { runDataChecks, runDataChecksAsync, dataCheckSteps, prepareTable } from './run';
 export type { DataCheckOptions, DataCheckProgress } from './run';
 export { runSummaryChecks, parseSummaryMatrix } from './summary';
 export type { SummaryCheckOptions } from './summary';

@@ -8,7 +8,7 @@
  *   type-7 rule, Hyndman & Fan 1996; whiskers to the furthest value within 1.5 IQR, Tukey 1977).
  * Complete cases only. O(n) for bars and scatter, O(n log n) for box plots.
  */
-import { completeRows, type CodedColumn, type Column, type ContinuousColumn } from '../stats';
+import { completeRows, type CodedColumn, type Column, type ContinuousColumn, type TableStatistics } from '../stats';
 
 export interface BarsPicture {
 	kind: 'bars';
@@ -55,11 +55,13 @@ export type PictureData = BarsPicture | ScatterPicture | BoxPicture;
 
 const MAX_POINTS = 300;
 
-export function pictureData(tail: Column, head: Column): PictureData {
-	const rows = completeRows([tail, head]);
+/** With the table's statistics, rows and the numeric column's order are shared (no sort per picture). */
+export function pictureData(tail: Column, head: Column, stats?: TableStatistics): PictureData {
+	const rows = stats ? stats.rows([tail, head]) : completeRows([tail, head]);
 	if (tail.kind !== 'continuous' && head.kind !== 'continuous') return bars(tail, head, rows);
 	if (tail.kind === 'continuous' && head.kind === 'continuous') return scatter(tail, head, rows);
-	return tail.kind === 'continuous' ? box(head as CodedColumn, tail, rows, false) : box(tail, head as ContinuousColumn, rows, true);
+	const [group, value, groupIsTail] = tail.kind === 'continuous' ? [head as CodedColumn, tail, false] : [tail, head as ContinuousColumn, true];
+	return box(group, value, stats ? stats.order(value.values).sortedRows(rows) : rows, groupIsTail, !!stats);
 }
 
 function bars(x: CodedColumn, y: CodedColumn, rows: Int32Array): BarsPicture {
@@ -114,7 +116,8 @@ function quantile(sorted: Float64Array, p: number): number {
 	return sorted[lo] + (h - lo) * (sorted[hi] - sorted[lo]);
 }
 
-function box(group: CodedColumn, value: ContinuousColumn, rows: Int32Array, groupIsTail: boolean): BoxPicture {
+/** `rows`: the complete cases, already in ascending order of value when `sorted`. */
+function box(group: CodedColumn, value: ContinuousColumn, rows: Int32Array, groupIsTail: boolean, sorted: boolean): BoxPicture {
 	const sizes = new Int32Array(group.levels.length);
 	for (const r of rows) sizes[group.codes[r]]++;
 	const parts = Array.from(sizes, (s) => new Float64Array(s));
@@ -126,7 +129,7 @@ function box(group: CodedColumn, value: ContinuousColumn, rows: Int32Array, grou
 	const boxes: BoxStats[] = [];
 	parts.forEach((v, g) => {
 		if (v.length === 0) return;
-		v.sort();
+		if (!sorted) v.sort();
 		const q1 = quantile(v, 0.25);
 		const q3 = quantile(v, 0.75);
 		const fence = 1.5 * (q3 - q1);

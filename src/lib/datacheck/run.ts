@@ -14,11 +14,12 @@ import { own } from '../stats/own';
 import type { Diagram } from '../graph/diagram';
 import { InputError } from '../graph/errors';
 import { validateDiagram } from '../graph/validate';
-import { categoryCodeValues, type Column, type Table } from '../stats';
-import { checkArrows } from './arrow-checks';
-import { checkClaims } from './claim-checks';
-import { checkConfounders } from './confounding';
-import { estimateEffects } from './estimates';
+import { categoryCodeValues, interruptWhen, NEVER, TableStatistics, type Column, type Table } from '../stats';
+import { arrowCheckSteps } from './arrow-checks';
+import { claimCheckSteps } from './claim-checks';
+import { confounderSteps } from './confounding';
+import { estimateSteps } from './estimates';
+import { drain, drainAsync, type Steps } from './steps';
 import { dataDiagram } from './mapping';
 import { retypeTable } from './retype';
 import { applyDataSettings, type SettingProblems } from './settings';
@@ -43,6 +44,13 @@ export interface DataCheckOptions {
 	maxSets?: number;
 	/** Progress by stage: arrows, claims, then estimates; `fraction` of that stage done. */
 	onProgress?: (p: DataCheckProgress) => void;
+	/**
+	 * Statistics of the table computed once and shared by every check (src/lib/stats/sufficient);
+	 * keep one per table across runs (the data worker does). Made for this run when absent.
+	 */
+	statistics?: TableStatistics;
+	/** Asked between checks and inside long loops; when it says so the run throws Cancelled. */
+	isCancelled?: () => boolean;
 }
 
 export interface DataCheckProgress {
@@ -84,19 +92,40 @@ export function analysedColumns(diagram: Diagram, mapping: VariableMapping, colu
 }
 
 export function runDataChecks(diagram: Diagram, table: Table, options: DataCheckOptions = {}): DataCheckReport {
+	return drain(dataCheckSteps(diagram, table, options));
+}
+
+/**
+ * runDataChecks giving way to the event loop between checks (every `sliceMs` of work), so a
+ * worker can take a cancel message: `isCancelled` then says so and the run throws Cancelled.
+ */
+export function runDataChecksAsync(diagram: Diagram, table: Table, options: DataCheckOptions & { pause: () => Promise<void>; sliceMs?: number; now?: () => number }): Promise<DataCheckReport> {
+	return drainAsync(dataCheckSteps(diagram, table, options), options.pause, options.sliceMs, options.now);
+}
+
+/** The checks as steps (steps.ts): one per arrow, claim, estimate row and candidate. */
+export function* dataCheckSteps(diagram: Diagram, table: Table, options: DataCheckOptions = {}): Steps<DataCheckReport> {
 	const structural = validateDiagram(diagram).find((i) => STRUCTURAL.has(i.code));
 	if (structural) throw new InputError(structural.message);
 	const { table: t, columnOf, mapping, used } = applyDataSettings(diagram, table, options);
 	const seen = dataDiagram(diagram, mapping);
 	const parts = { arrows: true, claims: true, estimates: true, confounders: true, ...options.parts };
 	const alpha = options.alpha ?? 0.05;
-	const arrows: ArrowChecks = parts.arrows ? checkArrows(diagram, columnOf, mapping, { alpha, pictures: options.pictures, onProgress: (d, t) => options.onProgress?.({ stage: 'arrows', fraction: d / t }) }) : { alpha, checks: [], skipped: [] };
+	const statistics = options.statistics ?? new TableStatistics();
+	const isCancelled = options.isCancelled;
+	statistics.interrupt = isCancelled ? interruptWhen(isCancelled) : NEVER;
+	statistics.interrupt.poll();
+	statistics.expect([...new Set(Object.values(mapping.columns))].map(columnOf));
+	const progress = (stage: DataCheckProgress['stage']) => (d: number, total: number) => options.onProgress?.({ stage, fraction: d / total });
+	const arrows: ArrowChecks = parts.arrows ? yield* arrowCheckSteps(diagram, columnOf, mapping, { alpha, pictures: options.pictures, onProgress: progress('arrows'), statistics }) : { alpha, checks: [], skipped: [] };
 	const claims: ClaimChecks = parts.claims
-		? checkClaims(seen, columnOf, mapping, { alpha, max: options.maxClaims, onProgress: (d, t) => options.onProgress?.({ stage: 'claims', fraction: d / t }) })
+		? yield* claimCheckSteps(seen, columnOf, mapping, { alpha, max: options.maxClaims, onProgress: progress('claims'), statistics })
 		: { alpha, checks: [], noTestableClaim: [], tested: 0, contradicted: 0, truncated: false };
 	if (parts.estimates) options.onProgress?.({ stage: 'estimates', fraction: 0 });
-	const est = parts.estimates ? estimateEffects(seen, columnOf, mapping, { planned: options.planned, maxSets: options.maxSets }) : { estimates: null, message: 'Not computed.' };
-	const confounders = parts.estimates && parts.confounders ? checkConfounders(seen, columnOf, mapping) : null;
+	// The estimate rows are the first half of the stage, the confounder check the second.
+	const half = (from: number) => (d: number, total: number) => options.onProgress?.({ stage: 'estimates', fraction: from + (parts.confounders ? 0.5 : 1 - from) * (d / total) });
+	const est = parts.estimates ? yield* estimateSteps(seen, columnOf, mapping, { planned: options.planned, maxSets: options.maxSets, statistics, onProgress: half(0) }) : { estimates: null, message: 'Not computed.' };
+	const confounders = parts.estimates && parts.confounders ? yield* confounderSteps(seen, columnOf, mapping, statistics, half(0.5)) : null;
 	const categoryCodes = t.columns.flatMap((c) => {
 		const values = categoryCodeValues(c);
 		return values ? [{ column: c.name, values }] : [];

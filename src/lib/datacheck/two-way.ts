@@ -6,7 +6,7 @@
  * difference for a 2 × 2 table. Rows are the first variable (the arrow's tail). Complete cases.
  * O(n + r·c) and one logistic fit.
  */
-import { chiSquareTest, crossTabulate, levelOddsRatios, StatsError, type CodedColumn, type LevelOddsRatios } from '../stats';
+import { chiSquareTest, crossTabulate, levelOddsRatios, StatsError, type CodedColumn, type LevelOddsRatios, type TableStatistics } from '../stats';
 
 export interface TwoWayTable {
 	rowVariable: string;
@@ -26,8 +26,8 @@ export interface TwoWayTable {
 	message: string | null;
 }
 
-export function twoWayTable(a: CodedColumn, b: CodedColumn): TwoWayTable {
-	const t = crossTabulate(a, b);
+export function twoWayTable(a: CodedColumn, b: CodedColumn, stats?: TableStatistics): TwoWayTable {
+	const t = stats ? stats.crossTab(a, b) : crossTabulate(a, b);
 	const counts = Array.from({ length: t.rows }, (_, i) => Array.from(t.counts.subarray(i * t.cols, (i + 1) * t.cols)));
 	const rowProportions = counts.map((row) => {
 		const total = row.reduce((s, x) => s + x, 0);
@@ -44,8 +44,8 @@ export function twoWayTable(a: CodedColumn, b: CodedColumn): TwoWayTable {
 	}
 	let ors: LevelOddsRatios | null = null;
 	try {
-		if (t.cols === 2 && b.kind === 'binary') ors = levelOddsRatios(b, a);
-		else if (t.rows === 2 && a.kind === 'binary') ors = levelOddsRatios(a, b);
+		if (t.cols === 2 && b.kind === 'binary') ors = levelOddsRatios(b, a, stats);
+		else if (t.rows === 2 && a.kind === 'binary') ors = levelOddsRatios(a, b, stats);
 	} catch (e) {
 		if (!(e instanceof StatsError)) throw e;
 	}

@@ -93,3 +93,8 @@ export type { Strata2x2 } from './stratified/strata';
 export { standardize } from './standardization/g-computation';
 export type { MarginalEstimate, Standardization } from './standardization/g-computation';
 export { categoryCodeValues, MAX_CODE_VALUES } from './table/category-codes';
+
+// Statistics computed once per table and shared by every check; cooperative cancellation
+export { TableStatistics } from './sufficient/table-statistics';
+export { Cancelled, interruptWhen, NEVER } from './sufficient/interrupt';
+export type { Interrupt } from './sufficient/interrupt';

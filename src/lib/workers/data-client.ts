@@ -18,6 +18,8 @@ export interface DataRunnerEvents {
 	partial(r: DataCheckReport, pending: DataPart[]): void;
 	report(r: DataCheckReport, ms: number): void;
 	checkFailed(message: string): void;
+	/** The check asked to stop has stopped (the parts already shown stay). */
+	checkCancelled?(): void;
 }
 
 /** The diagram carries its data settings (column links, kinds, levels): nothing else is sent. */
@@ -37,6 +39,8 @@ export class DataRunner {
 	#loading: Worker | null = null;
 	#loadId = 0;
 	#checkId = 0;
+	/** Whether the latest check has not answered with its report (or failure, or cancel) yet. */
+	#checking = false;
 
 	constructor(events: DataRunnerEvents, createWorker: () => Worker = defaultWorker) {
 		this.#events = events;
@@ -94,7 +98,23 @@ export class DataRunner {
 	check(request: CheckRequest): void {
 		if (!this.#current) return;
 		const message: DataRequest = { id: ++this.#checkId, kind: 'check', ...request };
+		this.#checking = true;
 		this.#current.postMessage(message);
+	}
+
+	get checking(): boolean {
+		return this.#checking;
+	}
+
+	/**
+	 * Stops the running checks at the next check (or inside a long one); the parts already
+	 * reported stay. Returns false when no check is running.
+	 */
+	cancelCheck(): boolean {
+		if (!this.#current || !this.#checking) return false;
+		const message: DataRequest = { id: this.#checkId, kind: 'cancel' };
+		this.#current.postMessage(message);
+		return true;
 	}
 
 	/** Forget the data (the worker and its table go). */
@@ -103,6 +123,7 @@ export class DataRunner {
 		this.#current?.terminate();
 		this.#current = null;
 		this.#checkId++;
+		this.#checking = false;
 	}
 
 	dispose(): void {
@@ -111,9 +132,11 @@ export class DataRunner {
 
 	#onCheckReply(reply: DataReply): void {
 		if (reply.id !== this.#checkId) return; // superseded
+		if (reply.kind === 'report' || reply.kind === 'check-failed' || reply.kind === 'check-cancelled') this.#checking = false;
 		if (reply.kind === 'check-progress') this.#events.checkProgress(reply.progress);
 		else if (reply.kind === 'partial') this.#events.partial(reply.report, reply.pending);
 		else if (reply.kind === 'report') this.#events.report(reply.report, reply.ms);
 		else if (reply.kind === 'check-failed') this.#events.checkFailed(reply.message);
+		else if (reply.kind === 'check-cancelled') this.#events.checkCancelled?.();
 	}
 }

@@ -12,7 +12,9 @@ export type DataSource = { kind: 'file'; file: File } | { kind: 'url'; url: stri
 
 export type DataRequest =
 	| { id: number; kind: 'load'; source: DataSource }
-	| { id: number; kind: 'check'; diagram: Diagram; planned?: string[] };
+	| { id: number; kind: 'check'; diagram: Diagram; planned?: string[] }
+	/** Stop the check with this id (between two checks, or inside a long one). */
+	| { id: number; kind: 'cancel' };
 
 export type DataReply =
 	| { id: number; kind: 'load-progress'; progress: ParseProgress }
@@ -21,4 +23,5 @@ export type DataReply =
 	| { id: number; kind: 'check-progress'; progress: DataCheckProgress }
 	| { id: number; kind: 'partial'; report: DataCheckReport; pending: DataPart[] }
 	| { id: number; kind: 'report'; report: DataCheckReport; ms: number }
-	| { id: number; kind: 'check-failed'; message: string };
+	| { id: number; kind: 'check-failed'; message: string }
+	| { id: number; kind: 'check-cancelled' };

@@ -49,15 +49,20 @@ async function readText(ctx: Context, path: string): Promise<string> {
 	}
 }
 
-/** Streams a file into typed columns without holding its text (files can be large). */
-async function streamFile(path: string): Promise<TableSource> {
+/**
+ * Streams a file into typed columns without holding its text (files can be large); its size
+ * lets the reader size the columns once instead of growing them.
+ */
+async function streamFile(path: string): Promise<{ source: TableSource; size: number }> {
+	let size: number;
 	try {
 		const s = await stat(path);
 		if (s.isDirectory()) throw Object.assign(new Error('folder'), { code: 'EISDIR' });
+		size = s.size;
 	} catch (err) {
 		throw new UsageError(describeFsError(err, path));
 	}
-	return createReadStream(path) as unknown as AsyncIterable<Uint8Array>;
+	return { source: createReadStream(path, { highWaterMark: 1 << 20 }) as unknown as AsyncIterable<Uint8Array>, size };
 }
 
 /**
@@ -66,7 +71,8 @@ async function streamFile(path: string): Promise<TableSource> {
  * `estimate` and `export --data` accept and refuse the same files with the same words.
  */
 export async function readDataTable(ctx: Context, path: string): Promise<Table> {
-	const parsed = ctx.io.readFile ? parseTable(await readText(ctx, path)) : await parseTableStream(await streamFile(path));
+	const file = ctx.io.readFile ? null : await streamFile(path);
+	const parsed = file ? await parseTableStream(file.source, { totalBytes: file.size }) : parseTable(await readText(ctx, path));
 	if (!parsed.ok) throw new InputError(`${path}: ${parsed.error.message}`);
 	return parsed.table;
 }

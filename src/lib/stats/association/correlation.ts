@@ -15,12 +15,17 @@ import { completeRows, numericValues } from '../table/columns';
 import type { Column } from '../table/types';
 import type { TestResult } from '../types';
 import { midRanks } from './ranks';
+import type { TableStatistics } from '../sufficient/table-statistics';
 
-/** Complete-case pairs of two columns as numbers (binary as 0/1, ordinal as scores). */
-export function pairedValues(a: Column, b: Column): { x: Float64Array; y: Float64Array } {
-	const rows = completeRows([a, b]);
-	const va = numericValues(a);
-	const vb = numericValues(b);
+/**
+ * Complete-case pairs of two columns as numbers (binary as 0/1, ordinal as scores). With the
+ * table's statistics, numbers and rows are shared, and every row complete means no copy.
+ */
+export function pairedValues(a: Column, b: Column, stats?: TableStatistics): { x: Float64Array; y: Float64Array } {
+	const rows = stats ? stats.rows([a, b]) : completeRows([a, b]);
+	const va = stats ? stats.numeric(a) : numericValues(a);
+	const vb = stats ? stats.numeric(b) : numericValues(b);
+	if (stats && rows.length === va.length) return { x: va, y: vb };
 	const x = new Float64Array(rows.length);
 	const y = new Float64Array(rows.length);
 	for (let k = 0; k < rows.length; k++) {
@@ -90,9 +95,10 @@ export function pearsonTest(x: Float64Array, y: Float64Array): TestResult {
 	};
 }
 
-export function spearmanTest(x: Float64Array, y: Float64Array): TestResult {
+/** `ranks`: the mid-ranks of x and y when already known (the table's shared statistics). */
+export function spearmanTest(x: Float64Array, y: Float64Array, ranks?: readonly [Float64Array, Float64Array]): TestResult {
 	const n = x.length;
-	const rho = pearsonR(midRanks(x).ranks, midRanks(y).ranks);
+	const rho = ranks ? pearsonR(ranks[0], ranks[1]) : pearsonR(midRanks(x).ranks, midRanks(y).ranks);
 	requireVariation(rho, n, 4, "Spearman's correlation");
 	const t = tForR(rho, n);
 	return {

@@ -11,13 +11,15 @@ import { StatsError } from '../errors';
 import { completeRows, numericValues, observedLevels } from '../table/columns';
 import type { CodedColumn, Column } from '../table/types';
 import type { TestResult } from '../types';
-import { midRanks } from './ranks';
+import { midRanks, type Ranking } from './ranks';
+import type { TableStatistics } from '../sufficient/table-statistics';
 
 /** Complete cases as values and group codes 0…k−1 (observed levels only). */
-export function groupedValues(group: CodedColumn, response: Column): { values: Float64Array; groups: Int32Array; levels: string[] } {
-	const rows = completeRows([group, response]);
-	const { codes, levels } = observedLevels(group, rows);
-	const v = numericValues(response);
+export function groupedValues(group: CodedColumn, response: Column, stats?: TableStatistics): { values: Float64Array; groups: Int32Array; levels: string[] } {
+	const rows = stats ? stats.rows([group, response]) : completeRows([group, response]);
+	const { codes, levels } = stats ? stats.observed(group, rows) : observedLevels(group, rows);
+	const v = stats ? stats.numeric(response) : numericValues(response);
+	if (stats && rows.length === v.length) return { values: v, groups: codes, levels }; // every row: no copy
 	const values = new Float64Array(rows.length);
 	for (let k = 0; k < rows.length; k++) values[k] = v[rows[k]];
 	return { values, groups: codes, levels };
@@ -65,10 +67,11 @@ export function oneWayAnova(values: Float64Array, groups: Int32Array, k: number)
 	};
 }
 
-export function kruskalWallis(values: Float64Array, groups: Int32Array, k: number): TestResult {
+/** `ranking`: the values' mid-ranks when already known (the table's shared statistics). */
+export function kruskalWallis(values: Float64Array, groups: Int32Array, k: number, ranking?: Ranking): TestResult {
 	const n = values.length;
 	requireGroups(k, n, 'The Kruskal–Wallis test');
-	const { ranks, tieSum } = midRanks(values);
+	const { ranks, tieSum } = ranking ?? midRanks(values);
 	const { sums, sizes } = groupSums(ranks, groups, k);
 	let s = 0;
 	for (let g = 0; g < k; g++) if (sizes[g] > 0) s += (sums[g] * sums[g]) / sizes[g];

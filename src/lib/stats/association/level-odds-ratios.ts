@@ -9,7 +9,8 @@
  */
 import { StatsError } from '../errors';
 import { buildDesign } from '../regression/design';
-import { fitLogistic } from '../regression/logistic';
+import { fitLogistic, type LogisticFit } from '../regression/logistic';
+import type { TableStatistics } from '../sufficient/table-statistics';
 import { completeRows, observedLevels } from '../table/columns';
 import type { CodedColumn } from '../table/types';
 
@@ -34,11 +35,13 @@ export interface LevelOddsRatios {
 	warnings: string[];
 }
 
-export function levelOddsRatios(outcome: CodedColumn, variable: CodedColumn): LevelOddsRatios {
+/** With the table's statistics the fit is made on the L covariate patterns (the counts), O(n + L³·iterations). */
+export function levelOddsRatios(outcome: CodedColumn, variable: CodedColumn, stats?: TableStatistics): LevelOddsRatios {
 	if (outcome.kind !== 'binary') throw new StatsError(`Odds ratios per level need a binary outcome; '${outcome.name}' is ${outcome.kind}.`, { column: outcome.name });
-	const rows = completeRows([outcome, variable]);
-	const { codes, levels } = observedLevels(variable, rows);
-	const oy = observedLevels(outcome, rows);
+	const rows = stats ? stats.rows([outcome, variable]) : completeRows([outcome, variable]);
+	const observe = (c: CodedColumn) => (stats ? stats.observed(c, rows) : observedLevels(c, rows));
+	const { codes, levels } = observe(variable);
+	const oy = observe(outcome);
 	if (levels.length < 2) throw new StatsError(`'${variable.name}' has a single observed level; no odds ratio can be formed.`, { column: variable.name });
 	if (oy.levels.length < 2) throw new StatsError(`'${outcome.name}' has a single observed level; no odds ratio can be formed.`, { column: outcome.name });
 	const n = new Float64Array(levels.length);
@@ -48,7 +51,11 @@ export function levelOddsRatios(outcome: CodedColumn, variable: CodedColumn): Le
 		events[codes[k]] += oy.codes[k];
 	}
 	// A binary variable's design column carries the column's name; a factor's, name[level].
-	const fit = fitLogistic(buildDesign(outcome, [variable]));
+	let fit: LogisticFit;
+	if (stats) {
+		const plan = stats.plan(outcome, [variable]);
+		fit = stats.logistic(plan, [...Array(plan.p).keys()]);
+	} else fit = fitLogistic(buildDesign(outcome, [variable]));
 	const byName = new Map(fit.coefficients.map((c) => [c.name, c]));
 	const out: LevelOddsRatio[] = levels.slice(1).map((level, i) => {
 		const c = byName.get(`${variable.name}[${level}]`) ?? (levels.length === 2 ? fit.coefficients[1] : undefined);

@@ -18,6 +18,7 @@ import type { TestResult } from '../types';
 import { nestedModelTest } from './nested-models';
 import { partialCorrelationTest } from './partial-correlation';
 import { cochranMantelHaenszel, stratifiedGTest, stratify } from './stratified';
+import type { TableStatistics } from '../sufficient/table-statistics';
 
 export interface IndependenceResult {
 	x: string;
@@ -27,7 +28,8 @@ export interface IndependenceResult {
 	others: TestResult[];
 }
 
-export function testConditionalIndependence(x: Column, y: Column, given: readonly Column[]): IndependenceResult {
+/** With the table's statistics (src/lib/stats/sufficient), rows, cross-products, ranks, tables and fits are shared between tests. */
+export function testConditionalIndependence(x: Column, y: Column, given: readonly Column[], stats?: TableStatistics): IndependenceResult {
 	const names = { x: x.name, y: y.name, given: given.map((g) => g.name) };
 	const seen = new Set<string>();
 	for (const c of [x, y, ...given]) {
@@ -35,21 +37,21 @@ export function testConditionalIndependence(x: Column, y: Column, given: readonl
 		seen.add(c.name);
 	}
 	if (given.length === 0) {
-		const a = associate(x, y);
+		const a = associate(x, y, stats);
 		return { ...names, main: a.main, others: a.others };
 	}
 	const all = [x, y, ...given];
-	if (all.every((c) => c.kind === 'continuous')) return { ...names, main: partialCorrelationTest(x, y, given), others: [] };
+	if (all.every((c) => c.kind === 'continuous')) return { ...names, main: partialCorrelationTest(x, y, given, stats), others: [] };
 	if (all.every(isDiscrete)) {
-		const tables = stratify(x as CodedColumn, y as CodedColumn, given as CodedColumn[]);
+		const tables = stratify(x as CodedColumn, y as CodedColumn, given as CodedColumn[], stats);
 		const g = stratifiedGTest(tables);
 		if (tables.rows === 2 && tables.cols === 2) return { ...names, main: g, others: [cochranMantelHaenszel(tables)] };
 		return { ...names, main: g, others: [] };
 	}
-	if (y.kind === 'continuous') return { ...names, main: nestedModelTest(y, x, given), others: [] };
-	if (x.kind === 'continuous') return { ...names, main: nestedModelTest(x, y, given), others: [] };
-	if (y.kind === 'binary') return { ...names, main: nestedModelTest(y, x, given), others: [] };
-	if (x.kind === 'binary') return { ...names, main: nestedModelTest(x, y, given), others: [] };
+	if (y.kind === 'continuous') return { ...names, main: nestedModelTest(y, x, given, stats), others: [] };
+	if (x.kind === 'continuous') return { ...names, main: nestedModelTest(x, y, given, stats), others: [] };
+	if (y.kind === 'binary') return { ...names, main: nestedModelTest(y, x, given, stats), others: [] };
+	if (x.kind === 'binary') return { ...names, main: nestedModelTest(x, y, given, stats), others: [] };
 	throw new StatsError(
 		`No test for '${x.name}' and '${y.name}' (both with more than two levels) given a continuous variable; a multinomial model would be needed.`
 	);

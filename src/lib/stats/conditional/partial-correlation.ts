@@ -3,7 +3,8 @@
  * z = atanh(r)·√(n − |Z| − 3), two-sided normal p-value (Fisher 1924; the test used by
  * the PC algorithm, Kalisch & Bühlmann, JMLR 2007). The partial correlation is computed
  * from the inverse of the correlation matrix of {x, y, Z} on complete cases, which equals
- * the correlation of the residuals of x and y regressed on Z. O(n·m² + m³), m = |Z| + 2.
+ * the correlation of the residuals of x and y regressed on Z. O(n·m² + m³), m = |Z| + 2;
+ * O(m³) from the table's shared cross-products (src/lib/stats/sufficient).
  */
 import { normalTwoSidedP } from '../distributions';
 import { StatsError } from '../errors';
@@ -12,6 +13,7 @@ import type { Column } from '../table/types';
 import type { TestResult } from '../types';
 import { fisherZInterval } from '../association/correlation';
 import { cholesky, choleskyInverse } from '../regression/linalg';
+import type { TableStatistics } from '../sufficient/table-statistics';
 
 export function partialCorrelationResult(r: number, n: number, k: number): TestResult {
 	if (n - k - 3 < 1) throw new StatsError(`A partial correlation given ${k} variables needs at least ${k + 4} complete cases (found ${n}).`);
@@ -49,6 +51,11 @@ export function correlationMatrix(columns: readonly Float64Array[]): Float64Arra
 			out[a * m + b] = s;
 			out[b * m + a] = s;
 		}
+	return correlationFromCrossProducts(out, m);
+}
+
+/** Centred cross-products (m × m) scaled in place to correlations. O(m²). */
+export function correlationFromCrossProducts(out: Float64Array, m: number): Float64Array {
 	const d = Array.from({ length: m }, (_, a) => Math.sqrt(out[a * m + a]));
 	for (let a = 0; a < m; a++) {
 		if (!(d[a] > 0)) throw new StatsError(`A variable of the partial correlation does not vary in the complete cases.`);
@@ -57,8 +64,14 @@ export function correlationMatrix(columns: readonly Float64Array[]): Float64Arra
 	return out;
 }
 
-export function partialCorrelationTest(x: Column, y: Column, given: readonly Column[]): TestResult {
+export function partialCorrelationTest(x: Column, y: Column, given: readonly Column[], stats?: TableStatistics): TestResult {
 	const all = [x, y, ...given];
+	if (stats) {
+		const rows = stats.rows(all);
+		const vectors = all.map((c) => ({ kind: 'values' as const, values: stats.numeric(c) }));
+		const corr = correlationFromCrossProducts(stats.momentsOf(rows).matrix(vectors), all.length);
+		return partialCorrelationResult(partialFromCorrelation(corr, all.length), rows.length, given.length);
+	}
 	const rows = completeRows(all);
 	const arrays = all.map((c) => {
 		const v = numericValues(c);

@@ -29,7 +29,15 @@ export interface CollinearityCheck {
 }
 
 export function checkCollinearity(design: Design): CollinearityCheck {
-	const { n, p, x, names } = design;
+	return collinearityFromGram(centeredGram(design), design.names);
+}
+
+/**
+ * Centred cross-products Σ (x_j − x̄_j)(x_m − x̄_m) of the non-intercept design columns
+ * (lower triangle, row-major (p − 1) × (p − 1)). O(n·p²).
+ */
+export function centeredGram(design: Design): Float64Array {
+	const { n, p, x } = design;
 	const q = p - 1;
 	const mean = new Float64Array(q);
 	for (let k = 0; k < n; k++) for (let j = 0; j < q; j++) mean[j] += x[k * p + j + 1];
@@ -45,6 +53,16 @@ export function checkCollinearity(design: Design): CollinearityCheck {
 			for (let m = 0; m <= j; m++) gram[j * q + m] += dj * d[m];
 		}
 	}
+	return gram;
+}
+
+/**
+ * The check on centred cross-products (from centeredGram, or from sufficient statistics
+ * computed once for many models); `names` are the design's coefficient names, intercept
+ * first. O(p³).
+ */
+export function collinearityFromGram(gram: Float64Array, names: readonly string[]): CollinearityCheck {
+	const q = names.length - 1;
 	const keep: number[] = [0];
 	const dropped: DroppedColumn[] = [];
 	const kept: number[] = []; // indices into 0..q−1

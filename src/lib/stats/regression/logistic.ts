@@ -23,10 +23,12 @@ import { normalQuantile, normalTwoSidedP } from '../distributions';
 import { StatsError } from '../errors';
 import type { Column } from '../table/types';
 import { eventsPerVariable } from './checks';
-import { checkCollinearity, selectColumns, type DroppedColumn } from './collinearity';
+import type { Interrupt } from '../sufficient/interrupt';
+import { checkCollinearity, type CollinearityCheck, type DroppedColumn } from './collinearity';
 import { buildDesign, type Design } from './design';
+import { irls, ylogy, type IrlsResult } from './irls';
 import type { Coefficient } from './linear';
-import { cholesky, choleskyInverse, choleskySolve } from './linalg';
+import { cholesky, choleskyInverse } from './linalg';
 
 export interface LogisticCoefficient extends Coefficient {
 	oddsRatio: number;
@@ -56,89 +58,64 @@ export interface LogisticFit {
 export interface LogisticOptions {
 	maxIterations?: number;
 	tolerance?: number;
-}
-
-const BOUND = 10 * Number.EPSILON;
-
-/** y·log(y/μ) with 0·log 0 = 0. */
-function ylogy(y: number, mu: number): number {
-	return y > 0 ? y * Math.log(y / mu) : 0;
+	/** Starting estimates for the kept columns (warm start); R's starting values when absent. */
+	start?: Float64Array | null;
+	/** The collinearity check of the design, when already known (sufficient statistics). */
+	collinearity?: CollinearityCheck;
+	interrupt?: Interrupt;
 }
 
 /** Fit on a prepared design; y may be 0/1 or fractions in [0, 1]. */
 export function fitLogistic(design: Design, options: LogisticOptions = {}): LogisticFit {
 	const y = design.y;
 	if (!y) throw new StatsError('A logistic regression needs an outcome.');
-	for (let k = 0; k < y.length; k++)
+	let binary = true;
+	for (let k = 0; k < y.length; k++) {
 		if (!(y[k] >= 0 && y[k] <= 1)) throw new StatsError(`The outcome of a logistic regression must lie in [0, 1] (found ${y[k]}).`);
-	const maxIterations = options.maxIterations ?? 25;
-	const tolerance = options.tolerance ?? 1e-8;
-	const check = checkCollinearity(design);
-	const d = selectColumns(design, check.keep);
-	const { n, p, x } = d;
-	if (n <= p) throw new StatsError(`Too few complete cases (${n}) for ${p} coefficients.`);
-
-	let beta: Float64Array | null = null;
-	const history: Float64Array[] = [];
-	const xtwx = new Float64Array(p * p);
-	const xtwz = new Float64Array(p);
-	let devOld = Infinity;
-	let deviance = NaN;
-	let converged = false;
-	let iterations = 0;
-	let atBounds = 0;
-	for (let iter = 0; iter <= maxIterations; iter++) {
-		xtwx.fill(0);
-		xtwz.fill(0);
-		deviance = 0;
-		atBounds = 0;
-		for (let k = 0; k < n; k++) {
-			const base = k * p;
-			const yk = y[k];
-			let eta: number;
-			let mu: number;
-			if (beta === null) {
-				mu = (yk + 0.5) / 2;
-				eta = Math.log(mu / (1 - mu));
-			} else {
-				eta = 0;
-				for (let j = 0; j < p; j++) eta += x[base + j] * beta[j];
-				mu = 1 / (1 + Math.exp(-eta));
-				if (mu < Number.EPSILON) mu = Number.EPSILON;
-				else if (mu > 1 - Number.EPSILON) mu = 1 - Number.EPSILON;
-			}
-			if (mu < BOUND || mu > 1 - BOUND) atBounds++;
-			deviance += 2 * (ylogy(yk, mu) + ylogy(1 - yk, 1 - mu));
-			const w = mu * (1 - mu);
-			const wz = w * eta + (yk - mu);
-			for (let j = 0; j < p; j++) {
-				const wxj = w * x[base + j];
-				xtwz[j] += x[base + j] * wz;
-				const row = j * p;
-				for (let m = 0; m <= j; m++) xtwx[row + m] += wxj * x[base + m];
-			}
-		}
-		if (beta !== null && Math.abs(deviance - devOld) / (Math.abs(deviance) + 0.1) < tolerance) {
-			converged = true;
-			break;
-		}
-		if (iter === maxIterations) break;
-		devOld = deviance;
-		for (let j = 0; j < p; j++) for (let m = 0; m < j; m++) xtwx[m * p + j] = xtwx[j * p + m];
-		const l = cholesky(xtwx, p);
-		if (!l) throw new StatsError('The logistic model could not be fitted: the weighted design is singular (collinear covariates or separation).');
-		beta = choleskySolve(l, xtwz, p);
-		history.push(beta);
-		iterations = iter + 1;
+		if (y[k] !== 0 && y[k] !== 1) binary = false;
 	}
-	if (beta === null) throw new StatsError('The logistic model could not be fitted.');
-	for (let j = 0; j < p; j++) for (let m = 0; m < j; m++) xtwx[m * p + j] = xtwx[j * p + m];
+	const check = options.collinearity ?? checkCollinearity(design);
+	const { n } = design;
+	const p = check.keep.length;
+	if (n <= p) throw new StatsError(`Too few complete cases (${n}) for ${p} coefficients.`);
+	const result = irls({ x: design.x, stride: design.p, cols: Int32Array.from(check.keep), units: n, y, trials: null }, options);
+	let events = 0;
+	for (let k = 0; k < n; k++) events += y[k];
+	const ybar = events / n;
+	let nullDeviance = 0;
+	if (binary) nullDeviance = binaryNullDeviance(events, n);
+	else for (let k = 0; k < n; k++) nullDeviance += 2 * (ylogy(y[k], ybar) + ylogy(1 - y[k], 1 - ybar));
+	return logisticFit(result, {
+		names: check.keep.map((j) => design.names[j]),
+		n,
+		events,
+		nullDeviance,
+		dropped: check.dropped,
+		notes: design.notes,
+		maxIterations: options.maxIterations ?? 25
+	});
+}
+
+/** The deviance of the intercept-only model for 0/1 outcomes: 2·(E·log(n/E) + (n − E)·log(n/(n − E))). O(1). */
+export function binaryNullDeviance(events: number, n: number): number {
+	const ybar = events / n;
+	return 2 * ((events > 0 ? events * Math.log(1 / ybar) : 0) + (n - events > 0 ? (n - events) * Math.log(1 / (1 - ybar)) : 0));
+}
+
+/** The reported fit from an IRLS result. O(p³). */
+export function logisticFit(
+	result: IrlsResult,
+	about: { names: string[]; n: number; events: number; nullDeviance: number; dropped: DroppedColumn[]; notes: readonly string[]; maxIterations: number }
+): LogisticFit {
+	const { beta, xtwx, deviance, converged, iterations, atBounds, history } = result;
+	const { names, n, events, nullDeviance, dropped, maxIterations } = about;
+	const p = names.length;
 	const l = cholesky(xtwx, p, 0);
 	const covariance = l ? choleskyInverse(l, p) : new Float64Array(p * p).fill(NaN);
 
 	const z = normalQuantile(0.975);
-	const coefficients: LogisticCoefficient[] = d.names.map((name, j) => {
-		const b = (beta as Float64Array)[j];
+	const coefficients: LogisticCoefficient[] = names.map((name, j) => {
+		const b = beta[j];
 		const se = Math.sqrt(covariance[j * p + j]);
 		const lo = b - z * se;
 		const hi = b + z * se;
@@ -154,18 +131,9 @@ export function fitLogistic(design: Design, options: LogisticOptions = {}): Logi
 		};
 	});
 
-	let events = 0;
-	for (let k = 0; k < n; k++) events += y[k];
-	const ybar = events / n;
-	let nullDeviance = 0;
-	for (let k = 0; k < n; k++) nullDeviance += 2 * (ylogy(y[k], ybar) + ylogy(1 - y[k], 1 - ybar));
-
-	const diverging =
-		history.length >= 4
-			? d.names.filter((_, j) => Math.abs(history[history.length - 1][j] - history[history.length - 4][j]) > 1)
-			: [];
+	const diverging = history.length >= 4 ? names.filter((_, j) => Math.abs(history[history.length - 1][j] - history[history.length - 4][j]) > 1) : [];
 	const detected = atBounds > 0 || !converged;
-	const warnings = check.dropped.map((c) => c.message);
+	const warnings = dropped.map((c) => c.message);
 	if (!converged) warnings.push(`The fit did not converge in ${maxIterations} iterations.`);
 	if (detected)
 		warnings.push(
@@ -189,8 +157,8 @@ export function fitLogistic(design: Design, options: LogisticOptions = {}): Logi
 		iterations,
 		converged,
 		separation: { detected, fittedAtBounds: atBounds, diverging },
-		dropped: check.dropped,
-		notes: [...design.notes, 'Wald 95 % intervals with the normal distribution.'],
+		dropped,
+		notes: [...about.notes, 'Wald 95 % intervals with the normal distribution.'],
 		warnings,
 		reference: 'IRLS (Nelder & Wedderburn 1972; McCullagh & Nelder 1989 §2.5)'
 	};

@@ -21,8 +21,10 @@
 import { normalQuantile } from '../distributions';
 import { StatsError } from '../errors';
 import { checkCollinearity, selectColumns } from '../regression/collinearity';
-import { buildDesign } from '../regression/design';
-import { fitLogistic } from '../regression/logistic';
+import { buildDesign, type DesignTerm } from '../regression/design';
+import { adjustedLogistic } from '../regression/exposure-effect';
+import { fitLogistic, type LogisticFit } from '../regression/logistic';
+import type { TableStatistics, Units } from '../sufficient/table-statistics';
 import type { Column } from '../table/types';
 
 export interface MarginalEstimate {
@@ -50,34 +52,55 @@ export interface Standardization {
 
 const expit = (x: number) => 1 / (1 + Math.exp(-x));
 
-export function standardize(outcome: Column, exposure: Column, adjustFor: readonly Column[], level = 0.95): Standardization {
+export function standardize(outcome: Column, exposure: Column, adjustFor: readonly Column[], level = 0.95, stats?: TableStatistics): Standardization {
 	if (outcome.kind !== 'binary') throw new StatsError(`Standardized risks need a binary outcome; '${outcome.name}' is ${outcome.kind}.`, { column: outcome.name });
 	if (exposure.kind !== 'binary') throw new StatsError(`Standardized risks here need a binary exposure; '${exposure.name}' is ${exposure.kind}.`, { column: exposure.name });
-	const full = buildDesign(outcome, [exposure, ...adjustFor]);
-	const design = selectColumns(full, checkCollinearity(full).keep);
-	const e = design.terms.find((t) => t.column === exposure.name)?.indices[0];
-	if (e === undefined) throw new StatsError(`The exposure '${exposure.name}' was left out of the model (a single level, or collinear with the adjustment set).`);
-	const fit = fitLogistic(design);
-	const { n, p, x } = design;
+	let fit: LogisticFit;
+	let units: Units;
+	let e: number;
+	let n: number;
+	let names: string[];
+	if (stats) {
+		const plan = stats.plan(outcome, [exposure, ...adjustFor]);
+		const keep = stats.collinearity(plan, [...Array(plan.p).keys()]).keep;
+		names = keep.map((j) => plan.names[j]);
+		e = exposureIndex(plan.terms, names, plan.names, exposure);
+		fit = adjustedLogistic(stats, plan, exposure).adjusted;
+		units = stats.units(plan, keep);
+		n = plan.n;
+	} else {
+		const full = buildDesign(outcome, [exposure, ...adjustFor]);
+		const design = selectColumns(full, checkCollinearity(full).keep);
+		e = exposureIndex(design.terms, design.names, design.names, exposure);
+		fit = fitLogistic(design);
+		names = design.names;
+		units = { x: design.x, stride: design.p, cols: Int32Array.from(design.names.keys()), units: design.n, weights: null };
+		n = design.n;
+	}
+	const p = names.length;
 	const beta = fit.coefficients.map((c) => c.estimate);
 	const g1 = new Float64Array(p);
 	const g0 = new Float64Array(p);
 	let r1 = 0;
 	let r0 = 0;
-	for (let k = 0; k < n; k++) {
-		const base = k * p;
+	const xr = new Float64Array(p);
+	const { x, stride, cols, weights } = units;
+	for (let k = 0; k < units.units; k++) {
+		const base = k * stride;
+		for (let j = 0; j < p; j++) xr[j] = x[base + cols[j]];
+		const m = weights === null ? 1 : weights[k];
 		let eta = 0;
-		for (let j = 0; j < p; j++) if (j !== e) eta += x[base + j] * beta[j];
+		for (let j = 0; j < p; j++) if (j !== e) eta += xr[j] * beta[j];
 		const p1 = expit(eta + beta[e]);
 		const p0 = expit(eta);
-		r1 += p1;
-		r0 += p0;
-		const w1 = p1 * (1 - p1);
-		const w0 = p0 * (1 - p0);
+		r1 += m * p1;
+		r0 += m * p0;
+		const w1 = m * p1 * (1 - p1);
+		const w0 = m * p0 * (1 - p0);
 		for (let j = 0; j < p; j++) {
-			const xj = j === e ? 1 : x[base + j];
+			const xj = j === e ? 1 : xr[j];
 			g1[j] += w1 * xj;
-			if (j !== e) g0[j] += w0 * x[base + j];
+			if (j !== e) g0[j] += w0 * xr[j];
 		}
 	}
 	r1 /= n;
@@ -120,4 +143,12 @@ export function standardize(outcome: Column, exposure: Column, adjustFor: readon
 		level,
 		warnings: fit.warnings
 	};
+}
+
+/** The exposure's column among the fitted coefficients (`names`), refused when it was left out. */
+function exposureIndex(terms: readonly DesignTerm[], names: readonly string[], designNames: readonly string[], exposure: Column): number {
+	const j = terms.find((t) => t.column === exposure.name)?.indices[0];
+	const e = j === undefined ? -1 : names.indexOf(designNames[j]);
+	if (e < 0) throw new StatsError(`The exposure '${exposure.name}' was left out of the model (a single level, or collinear with the adjustment set).`);
+	return e;
 }

@@ -17,6 +17,9 @@
 import { StatsError } from '../errors';
 import { sortLevels } from './columns';
 import { parseNumber, trimCell, type MissingTest } from './cells';
+import { ByteLabels } from './byte-labels';
+import { plainDecimal } from './byte-number';
+import { fieldText } from './field-text';
 import type { Column, ColumnKind } from './types';
 
 export interface ColumnSpec {
@@ -29,6 +32,8 @@ export interface ColumnSpec {
 	levelCap: number;
 	decimalComma: boolean;
 	isMissing: MissingTest;
+	/** Whether the user gave missing-value tokens of their own (a plain number may then be one). */
+	extraMissing?: boolean;
 }
 
 export type BuiltColumn = { column: Column; notes: string[] } | { skipped: string };
@@ -49,6 +54,18 @@ export class ColumnBuilder {
 	// The first two distinct numbers, to recognise a binary numeric column without a set.
 	private distinct: number[] = [];
 	private moreThanTwo = false;
+	private labels: ByteLabels | null = null;
+	/**
+	 * While a numeric column (of undeclared kind) has shown at most two distinct numbers, they
+	 * are kept as codes (0: the first distinct number, 1: the second, −1: missing) rather than
+	 * as doubles: most two-valued columns end up binary, and this halves the memory written
+	 * for them (writing fresh memory is most of a million-row read, measured) and the copy
+	 * into codes at the end. A third number turns them into doubles (unpair).
+	 */
+	private pair: Int32Array | null = null;
+	/** Numeric mode and no user missing tokens: plain numbers are read from the bytes. */
+	private fastNumbers: boolean;
+	private readonly decimalComma: boolean;
 
 	constructor(
 		private readonly spec: ColumnSpec,
@@ -56,8 +73,51 @@ export class ColumnBuilder {
 	) {
 		const coded = spec.declared === 'binary' || spec.declared === 'categorical' || spec.declared === 'ordinal';
 		this.mode = coded ? 'coded' : 'numeric';
-		this.numbers = coded ? new Float64Array(0) : new Float64Array(initialCapacity);
+		this.numbers = coded || spec.declared === undefined ? new Float64Array(0) : new Float64Array(initialCapacity);
 		if (coded) this.codes = new Int32Array(initialCapacity);
+		else if (spec.declared === undefined) this.pair = new Int32Array(initialCapacity);
+		this.fastNumbers = !coded && !spec.extraMissing;
+		this.decimalComma = spec.decimalComma;
+	}
+
+	/**
+	 * Add the cell bytes[start, end) of file row `row`: plain numbers of a numeric column are
+	 * read from the bytes (byte-number.ts) and repeated labels of a coded column are looked up
+	 * by their bytes (byte-labels.ts); every other cell goes through `push` as text, so the
+	 * two paths give the same column.
+	 */
+	pushBytes(bytes: Uint8Array, start: number, end: number, flags: number, row: number): void {
+		if (this.fastNumbers) {
+			let x = NaN;
+			if (start === end) this.missing++;
+			else {
+				x = plainDecimal(bytes, start, end, this.decimalComma);
+				if (x !== x) {
+					this.push(fieldText(bytes, start, end, flags, row), row);
+					return;
+				}
+				this.numberCells++;
+				if (!this.moreThanTwo) this.noteDistinct(x);
+			}
+			this.storeNumber(x);
+			return;
+		} else if (this.mode === 'coded') {
+			const labels = (this.labels ??= new ByteLabels());
+			const cell = labels.get(bytes, start, end, flags);
+			if (cell !== null) {
+				if (cell.code < 0) this.missing++;
+				else if (cell.isNumber) this.numberCells++;
+				else this.textCells++;
+				this.append(NaN, cell.code);
+				return;
+			}
+			const numbers = this.numberCells;
+			this.push(fieldText(bytes, start, end, flags, row), row);
+			if (this.mode === 'coded' && this.length > 0)
+				labels.set(bytes, start, end, flags, { code: this.codes[this.length - 1], isNumber: this.numberCells > numbers });
+			return;
+		}
+		this.push(fieldText(bytes, start, end, flags, row), row);
 	}
 
 	/** Add the cell of file row `row` (1-based, header = row 1). */
@@ -114,11 +174,27 @@ export class ColumnBuilder {
 
 	private finishNumeric(): BuiltColumn {
 		const { name } = this.spec;
+		const pair = this.pair;
+		if (pair !== null && this.distinct.length === 2) {
+			// Codes by first appearance; the reference level is the smaller number.
+			const [d0, d1] = this.distinct;
+			const codes = fitted(pair, this.length);
+			if (d1 < d0) for (let i = 0; i < codes.length; i++) if (codes[i] >= 0) codes[i] = 1 - codes[i];
+			const [lo, hi] = d0 < d1 ? [d0, d1] : [d1, d0];
+			return {
+				column: { name, kind: 'binary', codes, levels: [String(lo), String(hi)], missing: this.missing },
+				notes: [`'${name}': binary (values ${lo} and ${hi}; reference ${lo}).`]
+			};
+		}
+		if (pair !== null) this.unpair();
 		const values = fitted(this.numbers, this.length);
 		if (this.spec.declared !== 'continuous' && this.distinct.length === 2 && !this.moreThanTwo) {
 			const [lo, hi] = this.distinct[0] < this.distinct[1] ? this.distinct : [this.distinct[1], this.distinct[0]];
 			const codes = new Int32Array(this.length);
-			for (let i = 0; i < codes.length; i++) codes[i] = Number.isNaN(values[i]) ? -1 : values[i] === lo ? 0 : 1;
+			for (let i = 0; i < codes.length; i++) {
+				const v = values[i];
+				codes[i] = v === lo ? 0 : v === hi ? 1 : -1; // NaN (missing) equals neither
+			}
 			return {
 				column: { name, kind: 'binary', codes, levels: [String(lo), String(hi)], missing: this.missing },
 				notes: [`'${name}': binary (values ${lo} and ${hi}; reference ${lo}).`]
@@ -153,7 +229,8 @@ export class ColumnBuilder {
 
 	private noteDistinct(x: number): void {
 		if (this.moreThanTwo) return;
-		if (this.distinct.includes(x)) return;
+		const d = this.distinct;
+		if (d[0] === x || d[1] === x) return; // (SameValueZero as includes: 0 and −0 are one value)
 		if (this.distinct.length < 2) this.distinct.push(x);
 		else this.moreThanTwo = true;
 	}
@@ -168,9 +245,50 @@ export class ColumnBuilder {
 		return code;
 	}
 
+	/** A number (NaN: missing) of a numeric column, as a pair code or a double. */
+	private storeNumber(x: number): void {
+		const pair = this.pair;
+		if (pair !== null) {
+			let code = -1;
+			if (x === x) {
+				const d = this.distinct;
+				code = d[0] === x ? 0 : d[1] === x ? 1 : -2;
+				// A third number, or a zero of the other sign than the one kept (−0 and 0 are one value but are stored as read).
+				if (code === -2 || (x === 0 && !Object.is(x, d[code]))) {
+					this.unpair();
+					this.storeNumber(x);
+					return;
+				}
+			}
+			if (this.length === pair.length) {
+				const bigger = new Int32Array(Math.max(16, pair.length * 2));
+				bigger.set(pair);
+				this.pair = bigger;
+			}
+			(this.pair as Int32Array)[this.length++] = code;
+			return;
+		}
+		const length = this.length;
+		if (length === this.numbers.length) this.grow();
+		this.numbers[length] = x;
+		this.length = length + 1;
+	}
+
+	/** Pair codes back to the numbers they stand for. */
+	private unpair(): void {
+		const pair = this.pair as Int32Array;
+		const d = this.distinct;
+		const numbers = new Float64Array(pair.length);
+		for (let i = 0; i < this.length; i++) numbers[i] = pair[i] < 0 ? NaN : d[pair[i]];
+		this.numbers = numbers;
+		this.pair = null;
+	}
+
 	/** First text cell in a so-far numeric column: re-code the numbers seen as labels. */
 	private switchToCoded(): void {
+		if (this.pair !== null) this.unpair();
 		this.mode = 'coded';
+		this.fastNumbers = false;
 		this.codes = new Int32Array(this.numbers.length);
 		for (let i = 0; i < this.length; i++) {
 			const x = this.numbers[i];
@@ -183,20 +301,25 @@ export class ColumnBuilder {
 	/** Past the level cap: keep counting (for the messages), hold no data. */
 	private overflow(): void {
 		this.mode = 'overflow';
+		this.fastNumbers = false;
+		this.labels = null;
 		this.codes = new Int32Array(0);
 		this.levelIndex.clear();
 		this.levels = [];
 	}
 
+	private grow(): void {
+		const bigger = new Float64Array(Math.max(16, this.numbers.length * 2));
+		bigger.set(this.numbers);
+		this.numbers = bigger;
+	}
+
 	private append(x: number, code: number): void {
 		if (this.mode === 'numeric') {
-			if (this.length === this.numbers.length) {
-				const bigger = new Float64Array(Math.max(16, this.numbers.length * 2));
-				bigger.set(this.numbers);
-				this.numbers = bigger;
-			}
-			this.numbers[this.length] = x;
-		} else if (this.mode === 'coded') {
+			this.storeNumber(x);
+			return;
+		}
+		if (this.mode === 'coded') {
 			if (this.length === this.codes.length) {
 				const bigger = new Int32Array(Math.max(16, this.codes.length * 2));
 				bigger.set(this.codes);

@@ -98,13 +98,21 @@ export function completeRows(columns: readonly Column[]): Int32Array {
 	const n = columnLength(columns[0]);
 	for (const c of columns)
 		if (columnLength(c) !== n) throw new StatsError(`Column '${c.name}' has ${columnLength(c)} rows; expected ${n}.`, { column: c.name });
+	// One tight loop per column marking its missing rows, then one collecting the rest.
+	const missing = new Uint8Array(n);
+	for (const c of columns) {
+		if (c.kind === 'continuous') {
+			const v = c.values;
+			for (let i = 0; i < n; i++) if (v[i] !== v[i]) missing[i] = 1;
+		} else {
+			const codes = c.codes;
+			for (let i = 0; i < n; i++) if (codes[i] < 0) missing[i] = 1;
+		}
+	}
 	const keep = new Int32Array(n);
 	let count = 0;
-	outer: for (let i = 0; i < n; i++) {
-		for (const c of columns) if (isMissingAt(c, i)) continue outer;
-		keep[count++] = i;
-	}
-	return keep.slice(0, count);
+	for (let i = 0; i < n; i++) if (missing[i] === 0) keep[count++] = i;
+	return count === n ? keep : keep.slice(0, count);
 }
 
 /** Only the observed levels: codes re-numbered 0…L'−1 over the given rows, in level order. */

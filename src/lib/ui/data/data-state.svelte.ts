@@ -36,6 +36,14 @@ export function describeTableError(e: TableError): string {
 	return e.message;
 }
 
+const PART_WORDS: Record<DataPart, string> = { arrows: 'the arrow checks', estimates: 'the estimates and the confounder check', claims: 'the claim checks' };
+
+/** "the estimates and the confounder check and the claim checks" → listed with commas and "and". */
+function describeParts(parts: readonly DataPart[]): string {
+	const words = parts.map((p) => PART_WORDS[p]);
+	return words.length <= 1 ? (words[0] ?? '') : `${words.slice(0, -1).join(', ')} and ${words[words.length - 1]}`;
+}
+
 export class DataState {
 	info = $state.raw<TableInfo | null>(null);
 	summary = $state.raw<{ name: string; stats: SummaryStatistics } | null>(null);
@@ -55,6 +63,8 @@ export class DataState {
 	lastMs = $state(0);
 	/** Parts of the shown report still being computed (claims take longest on large tables). */
 	pending = $state.raw<readonly DataPart[]>([]);
+	/** Parts not computed because the user cancelled the checks (until the next run). */
+	cancelled = $state.raw<readonly DataPart[]>([]);
 
 	#runner: DataRunner;
 	#diagram: Diagram | null = null;
@@ -101,7 +111,15 @@ export class DataState {
 					this.lastMs = ms;
 					if (this.status === 'checking') this.status = 'ready';
 				},
-				checkFailed: (message) => this.#failed(message)
+				checkFailed: (message) => this.#failed(message),
+				checkCancelled: () => {
+					const parts: DataPart[] = this.report ? [...this.pending] : ['arrows', 'estimates', 'claims'];
+					this.cancelled = parts;
+					this.pending = [];
+					this.checkProgress = null;
+					this.error = `The data checks were cancelled${parts.length ? `; ${describeParts(parts)} ${parts.length === 1 ? 'was' : 'were'} not run` : ''}. They run again when the diagram changes.`;
+					this.status = this.hasData ? 'ready' : 'empty';
+				}
 			},
 			createWorker
 		);
@@ -122,6 +140,11 @@ export class DataState {
 		this.loadProgress = { characters: 0, rows: 0, fraction: 0 };
 		this.status = 'loading';
 		this.#runner.load(source);
+	}
+
+	/** Stops the running checks at the next check; the parts already shown stay. */
+	cancelChecks(): void {
+		this.#runner.cancelCheck();
 	}
 
 	cancelLoad(): void {
@@ -163,6 +186,8 @@ export class DataState {
 		this.reportKey = null;
 		this.#forgetRematch();
 		this.error = null;
+		this.pending = [];
+		this.cancelled = [];
 		this.status = 'empty';
 	}
 
@@ -237,6 +262,7 @@ export class DataState {
 		}
 		if (this.status !== 'loading') this.status = 'checking';
 		this.error = null;
+		this.cancelled = [];
 		this.checkProgress = { stage: 'arrows', fraction: 0 };
 		this.#runner.check({ diagram: d });
 	}
