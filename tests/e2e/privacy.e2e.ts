@@ -24,9 +24,21 @@ async function storageReport(page: Page) {
 		}
 		const session = Object.keys(sessionStorage);
 		const databases = 'databases' in indexedDB ? (await indexedDB.databases()).map((d) => d.name) : [];
+		// The autosave's crash-safe copy (src/lib/editor/durable-copy.ts): everything it holds.
+		const durable = databases.includes('causeway')
+			? await new Promise<string>((resolve) => {
+					const open = indexedDB.open('causeway', 1);
+					open.onerror = () => resolve('');
+					open.onsuccess = () => {
+						const all = open.result.transaction('autosave').objectStore('autosave').getAll();
+						all.onsuccess = () => resolve(JSON.stringify(all.result));
+						all.onerror = () => resolve('');
+					};
+				})
+			: '';
 		const cacheNames = 'caches' in window ? await caches.keys() : [];
 		const workers = navigator.serviceWorker ? (await navigator.serviceWorker.getRegistrations()).length : 0;
-		return { local, session, databases, cacheNames, workers, cookie: document.cookie };
+		return { local, session, databases, durable, cacheNames, workers, cookie: document.cookie };
 	});
 }
 
@@ -86,7 +98,11 @@ test('no request leaves the origin while loading, editing, opening, loading data
 	const everything = Object.values(stored.local).join('\n');
 	expect(everything).not.toContain(MARKER);
 	expect(everything).not.toMatch(/age,income,diet/);
-	expect(stored.databases).toEqual([]);
+	// One database, the autosave's crash-safe copy of the diagram, and never the data.
+	expect(stored.databases.filter((name) => name !== 'causeway')).toEqual([]);
+	expect(stored.durable).not.toContain(MARKER);
+	expect(stored.durable).not.toMatch(/age,income,diet/);
+	if (stored.databases.includes('causeway')) expect(stored.durable).toContain('causeway.diagram');
 	expect(stored.cacheNames).toEqual([]);
 	expect(stored.workers).toBe(0);
 	expect(stored.cookie).toBe('');
