@@ -13,7 +13,7 @@
  *  - claims: the implied independencies, O(n² (n + Σ indeg²)), depend on the structure and
  *    what is measured only (`structureKey`).
  *
- * The combined result equals the engine façade's `analyse` (tests/unit/editor/analysis-steps.test.ts).
+ * The combined result equals the engine façade's `analyse` (tests/unit/workers/analysis-steps.test.ts).
  * Pure TypeScript: runs in the workers and, for small diagrams, on the main thread.
  */
 import type { Diagram } from '../graph/diagram';
