@@ -12,16 +12,16 @@
  * twice the verdict's own time that way). Results of a part started for an earlier diagram are
  * dropped; a worker still busy with a part that is no longer wanted is terminated and
  * replaced (a running computation cannot be interrupted otherwise). Nothing computed is sent
- * back to a worker: the claims stay on the page.
+ * back to a worker: the claims stay on the page. Each part runs on its own job runner
+ * (job-runner.ts), which drops stale replies and, without a Worker, runs the same steps on the
+ * main thread.
  */
 import type { Diagram } from '../graph/diagram';
 import {
-	analyseSets,
-	analyseVerdict,
 	analysisKeys,
+	analysisPartSteps,
 	combine,
 	DEFAULT_LIMITS,
-	listClaims,
 	type AnalysisLimits,
 	type AnalysisPart,
 	type AnalysisProgress,
@@ -30,11 +30,12 @@ import {
 	type SetsPart,
 	type VerdictPart
 } from './analysis-steps';
-import type { PartRequest, WorkerReply } from './protocol';
+import { JobRunner, type Where } from './job-runner';
+import type { PartJob, PartProgress, PartResult } from './protocol';
 
 export interface RunnerEvents {
 	/** The analysis of the latest diagram, each time a part of it arrives. */
-	result(a: AppAnalysis, info: { where: 'main' | 'worker'; ms: number; busy: boolean }): void;
+	result(a: AppAnalysis, info: { where: Where; ms: number; busy: boolean }): void;
 	progress(p: AnalysisProgress): void;
 	failed(message: string): void;
 	cancelled(): void;
@@ -64,40 +65,52 @@ function defaultWorker(): Worker {
 
 type Cached = { verdict: { key: string; value: VerdictPart; first?: true } | null; sets: { key: string; value: SetsPart } | null; claims: { key: string; value: ClaimsPart } | null };
 
-/** One worker computing one part at a time. */
+interface PartHandlers {
+	progress(channel: PartChannel, key: string, p: PartProgress): void;
+	done(channel: PartChannel, key: string, result: PartResult, info: { where: Where; ms: number }): void;
+	failed(channel: PartChannel, key: string, message: string): void;
+}
+
+/** One job runner computing one part at a time, with the key of the diagram it works on. */
 class PartChannel {
-	worker: Worker | null = null;
+	readonly jobs: JobRunner<PartJob, PartProgress, PartResult>;
 	/** Key of the part being computed, null when idle. */
 	busyKey: string | null = null;
-	id = 0;
 	fraction = 0;
 
 	constructor(
 		readonly part: AnalysisPart,
-		private readonly create: () => Worker,
-		private readonly onReply: (channel: PartChannel, reply: WorkerReply) => void,
-		private readonly onCrash: (channel: PartChannel, message: string) => void
-	) {}
+		create: () => Worker,
+		private readonly handlers: PartHandlers
+	) {
+		this.jobs = new JobRunner({ steps: () => analysisPartSteps, createWorker: create, crashed: (message) => `The analysis stopped: ${message}` });
+	}
 
-	start(d: Diagram, key: string, limits: AnalysisLimits): void {
-		if (this.busyKey !== null) this.stop();
-		if (!this.worker) {
-			const worker = this.create();
-			worker.onmessage = (e: MessageEvent<WorkerReply>) => this.onReply(this, e.data);
-			worker.onerror = (e: ErrorEvent) => this.onCrash(this, e.message || 'the worker failed');
-			this.worker = worker;
-		}
+	start(d: Diagram, key: string, limits: AnalysisLimits, where: Where): void {
 		this.busyKey = key;
 		this.fraction = 0;
-		const request: PartRequest = { id: ++this.id, part: this.part, diagram: d, limits };
-		this.worker.postMessage(request);
+		const { handlers } = this;
+		// A worker sends the verdict before counting its paths; on the main thread both come at once.
+		this.jobs.run(
+			{ part: this.part, diagram: d, limits, early: where === 'worker' },
+			{
+				progress: (p) => handlers.progress(this, key, p),
+				done: (result, info) => {
+					this.busyKey = null;
+					handlers.done(this, key, result, info);
+				},
+				failed: (message) => {
+					this.busyKey = null;
+					handlers.failed(this, key, message);
+				}
+			},
+			{ where }
+		);
 	}
 
 	stop(): void {
-		this.worker?.terminate();
-		this.worker = null;
+		this.jobs.terminate();
 		this.busyKey = null;
-		this.id++;
 	}
 }
 
@@ -112,22 +125,20 @@ export class AnalysisRunner {
 	#slowFrom = Infinity;
 	/** Parts of the latest diagram waiting for its verdict before they start. */
 	#deferred: AnalysisPart[] = [];
+	/** Set while the parts run together on the main thread: one result at the end. */
+	#batch: { failed: string | null } | null = null;
 
 	constructor(events: RunnerEvents, opts: RunnerOptions = {}) {
 		this.#events = events;
 		this.#mainLimit = opts.mainThreadVariables ?? 20;
 		this.#limits = opts.limits ?? DEFAULT_LIMITS;
 		const create = opts.createWorker ?? defaultWorker;
-		const channel = (part: AnalysisPart) =>
-			new PartChannel(
-				part,
-				create,
-				(c, reply) => this.#onReply(c, reply),
-				(c, message) => {
-					c.stop();
-					this.#events.failed(`The analysis stopped: ${message}`);
-				}
-			);
+		const handlers: PartHandlers = {
+			progress: (c, key, p) => this.#onProgress(c, key, p),
+			done: (c, key, result, info) => this.#onDone(key, result, info),
+			failed: (c, key, message) => this.#onFailed(c, key, message)
+		};
+		const channel = (part: AnalysisPart) => new PartChannel(part, create, handlers);
 		this.#channels = { verdict: channel('verdict'), sets: channel('sets'), claims: channel('claims') };
 	}
 
@@ -162,13 +173,16 @@ export class AnalysisRunner {
 			return true;
 		}
 		const verdictFirst = needed.includes('verdict');
+		const startNow: AnalysisPart[] = [];
 		for (const p of PARTS) {
 			const channel = this.#channels[p];
 			if (channel.busyKey !== null && channel.busyKey !== keys[p]) channel.stop(); // working on something no longer wanted
 			if (!needed.includes(p) || channel.busyKey === keys[p]) continue;
 			if (p !== 'verdict' && verdictFirst) this.#deferred.push(p);
-			else channel.start(d, keys[p], this.#limits);
+			else startNow.push(p);
 		}
+		// Started once the deferred parts are known: without a Worker the verdict answers at once.
+		for (const p of startNow) this.#channels[p].start(d, keys[p], this.#limits, 'worker');
 		if (!needed.includes('verdict')) this.#emit('worker', 0);
 		else this.#reportProgress();
 		return true;
@@ -192,15 +206,19 @@ export class AnalysisRunner {
 		for (const p of PARTS) this.#channels[p].stop();
 	}
 
+	/** The needed parts one after the other on the main thread, then one result. */
 	#runOnMainThread(d: Diagram, needed: readonly AnalysisPart[]): void {
 		const keys = analysisKeys(d);
 		const started = performance.now();
+		const batch: { failed: string | null } = { failed: null };
+		this.#batch = batch;
 		try {
-			if (needed.includes('verdict')) this.#cache.verdict = { key: keys.verdict, value: analyseVerdict(d, this.#limits) };
-			if (needed.includes('sets')) this.#cache.sets = { key: keys.sets, value: analyseSets(d, this.#limits) };
-			if (needed.includes('claims')) this.#cache.claims = { key: keys.claims, value: listClaims(d, this.#limits.maxClaims) };
-		} catch (e) {
-			this.#events.failed(e instanceof Error ? e.message : String(e));
+			for (const p of needed) if (batch.failed === null) this.#channels[p].start(d, keys[p], this.#limits, 'main');
+		} finally {
+			this.#batch = null;
+		}
+		if (batch.failed !== null) {
+			this.#events.failed(batch.failed);
 			return;
 		}
 		const ms = performance.now() - started;
@@ -208,34 +226,34 @@ export class AnalysisRunner {
 		this.#emit('main', ms);
 	}
 
-	#onReply(channel: PartChannel, reply: WorkerReply): void {
-		if (reply.id !== channel.id || channel.busyKey === null) return; // a stale run's message
-		const key = channel.busyKey;
-		switch (reply.kind) {
-			case 'progress':
-				channel.fraction = reply.fraction;
-				this.#reportProgress();
-				break;
-			case 'first':
-				// The verdict before its paths are counted: shown at once; the counting goes on.
-				this.#cache.verdict = { key, value: reply.value, first: true };
-				this.#startDeferred(key);
-				if (this.#latest?.keys.verdict === key) this.#emit('worker', reply.ms);
-				break;
-			case 'done':
-				channel.busyKey = null;
-				if (reply.part === 'verdict') this.#cache.verdict = { key, value: reply.value };
-				else if (reply.part === 'sets') this.#cache.sets = { key, value: reply.value };
-				else this.#cache.claims = { key, value: reply.value };
-				if (reply.part === 'verdict') this.#startDeferred(key);
-				if (this.#latest?.keys[reply.part] === key) this.#emit('worker', reply.ms);
-				break;
-			case 'failed':
-				channel.busyKey = null;
-				if (channel.part === 'verdict') this.#startDeferred(key);
-				this.#events.failed(reply.message);
-				break;
+	#onProgress(channel: PartChannel, key: string, p: PartProgress): void {
+		if (p.kind === 'fraction') {
+			channel.fraction = p.fraction;
+			this.#reportProgress();
+			return;
 		}
+		// The verdict before its paths are counted: shown at once; the counting goes on.
+		this.#cache.verdict = { key, value: p.value, first: true };
+		this.#startDeferred(key);
+		if (this.#latest?.keys.verdict === key) this.#emit(channel.jobs.where ?? 'worker', p.ms);
+	}
+
+	#onDone(key: string, result: PartResult, info: { where: Where; ms: number }): void {
+		if (result.part === 'verdict') this.#cache.verdict = { key, value: result.value };
+		else if (result.part === 'sets') this.#cache.sets = { key, value: result.value };
+		else this.#cache.claims = { key, value: result.value };
+		if (this.#batch) return;
+		if (result.part === 'verdict') this.#startDeferred(key);
+		if (this.#latest?.keys[result.part] === key) this.#emit(info.where, info.ms);
+	}
+
+	#onFailed(channel: PartChannel, key: string, message: string): void {
+		if (this.#batch) {
+			this.#batch.failed = message;
+			return;
+		}
+		if (channel.part === 'verdict') this.#startDeferred(key);
+		this.#events.failed(message);
 	}
 
 	/** Starts the parts that waited for the latest diagram's verdict, now that it is back. */
@@ -244,11 +262,11 @@ export class AnalysisRunner {
 		if (!latest || latest.keys.verdict !== verdictKey) return;
 		const parts = this.#deferred;
 		this.#deferred = [];
-		for (const p of parts) this.#channels[p].start(latest.diagram, latest.keys[p], this.#limits);
+		for (const p of parts) this.#channels[p].start(latest.diagram, latest.keys[p], this.#limits, 'worker');
 	}
 
 	/** The analysis of the latest diagram from the cached parts, once its verdict is known. */
-	#emit(where: 'main' | 'worker', ms: number): void {
+	#emit(where: Where, ms: number): void {
 		const latest = this.#latest;
 		if (!latest) return;
 		const { verdict, sets, claims } = this.#cache;

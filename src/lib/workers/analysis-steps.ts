@@ -13,7 +13,7 @@
  *  - claims: the implied independencies, O(n² (n + Σ indeg²)), depend on the structure and
  *    what is measured only (`structureKey`).
  *
- * The combined result equals the engine façade's `analyse` (tests/unit/editor/analysis-steps.test.ts).
+ * The combined result equals the engine façade's `analyse` (tests/unit/workers/analysis-steps.test.ts).
  * Pure TypeScript: runs in the workers and, for small diagrams, on the main thread.
  */
 import type { Diagram } from '../graph/diagram';
@@ -32,6 +32,8 @@ import {
 	type PathListing,
 	type VariableRoles
 } from '../causal';
+import type { JobSteps } from './job-protocol';
+import type { PartJob, PartProgress, PartResult } from './protocol';
 
 export interface AnalysisLimits {
 	maxSets: number;
@@ -139,6 +141,25 @@ export function combine(verdict: VerdictPart, sets: SetsPart | null, claims: Cla
 		complete: claims !== null
 	};
 }
+
+/**
+ * One part as a job step (job-runner.ts), in a worker or on the main thread. With `early`, the
+ * verdict is sent first (`analyseVerdictFirst`) and the paths counted after it.
+ */
+export const analysisPartSteps: JobSteps<PartJob, PartProgress, PartResult> = ({ part, diagram, limits, early }, context) => {
+	switch (part) {
+		case 'verdict': {
+			if (!early) return { part, value: analyseVerdict(diagram, limits) };
+			const first = analyseVerdictFirst(diagram);
+			context.partial({ kind: 'first', ms: context.elapsedMs(), value: first });
+			return { part, value: first.ready ? analyseVerdict(diagram, limits, first.issues) : first };
+		}
+		case 'sets':
+			return { part, value: analyseSets(diagram, limits) };
+		case 'claims':
+			return { part, value: listClaims(diagram, limits.maxClaims, (fraction) => context.progress({ kind: 'fraction', fraction })) };
+	}
+};
 
 /** All three parts at once (small diagrams on the main thread, tests). */
 export function runAnalysis(d: Diagram, limits: AnalysisLimits = DEFAULT_LIMITS): AppAnalysis {

@@ -1,13 +1,17 @@
 /**
- * The page's side of the data worker. Each file is read in a fresh worker; the worker
- * holding the current table is kept until the new file has been read, so a bad file or a
- * cancel leaves the earlier data (and the results shown from them) in place. Checks go to
- * the current worker; only the reply to the latest request is passed on.
+ * The page's side of the data worker, on two job runners (job-runner.ts). Each file is read in
+ * a fresh worker; the runner holding the current table is kept until the new file has been
+ * read, so a bad file or a cancel leaves the earlier data (and the results shown from them) in
+ * place. Checks go to the current worker, a newer one queued behind the running one, which
+ * stops at its next check; only the replies to the latest request are passed on. Without a
+ * Worker the same data session runs on the main thread.
  */
 import type { Diagram } from '../graph/diagram';
 import type { ParseProgress, TableError } from '../stats';
 import type { DataCheckProgress, DataCheckReport, TableInfo } from '../datacheck';
-import type { DataPart, DataReply, DataRequest, DataSource } from './data-protocol';
+import { JobRunner } from './job-runner';
+import { DataSession } from './data-steps';
+import type { DataJob, DataPart, DataProgress, DataResult, DataSource } from './data-protocol';
 
 export interface DataRunnerEvents {
 	loadProgress(p: ParseProgress): void;
@@ -32,13 +36,14 @@ function defaultWorker(): Worker {
 	return new Worker(new URL('./data.worker.ts', import.meta.url), { type: 'module' });
 }
 
+type DataJobs = JobRunner<DataJob, DataProgress, DataResult>;
+
 export class DataRunner {
 	#events: DataRunnerEvents;
 	#createWorker: () => Worker;
-	#current: Worker | null = null;
-	#loading: Worker | null = null;
-	#loadId = 0;
-	#checkId = 0;
+	/** The runner whose worker holds the current table. */
+	#current: DataJobs | null = null;
+	#loading: DataJobs | null = null;
 	/** Whether the latest check has not answered with its report (or failure, or cancel) yet. */
 	#checking = false;
 
@@ -57,33 +62,31 @@ export class DataRunner {
 
 	load(source: DataSource): void {
 		this.#loading?.terminate();
-		const worker = this.#createWorker();
-		const id = ++this.#loadId;
-		this.#loading = worker;
-		worker.onmessage = (e: MessageEvent<DataReply>) => {
-			const reply = e.data;
-			if (reply.id !== id || this.#loading !== worker) return;
-			if (reply.kind === 'load-progress') this.#events.loadProgress(reply.progress);
-			else if (reply.kind === 'loaded') {
-				this.#loading = null;
-				this.#current?.terminate();
-				this.#current = worker;
-				worker.onmessage = (m: MessageEvent<DataReply>) => this.#onCheckReply(m.data);
-				this.#events.loaded(reply.info, reply.ms);
-			} else if (reply.kind === 'load-failed') {
-				this.#loading = null;
-				worker.terminate();
-				this.#events.loadFailed(reply.error);
-			}
-		};
-		worker.onerror = (e: ErrorEvent) => {
-			if (this.#loading !== worker) return;
+		// Progress at most every 80 ms when the session runs on the main thread (the worker sets its own).
+		const runner: DataJobs = new JobRunner({ steps: () => new DataSession().steps, createWorker: this.#createWorker, supersede: 'queue', progressEveryMs: 80 });
+		this.#loading = runner;
+		const failed = (error: TableError) => {
 			this.#loading = null;
-			worker.terminate();
-			this.#events.loadFailed({ message: `The file could not be read: ${e.message || 'the data worker failed'}` });
+			runner.terminate();
+			this.#events.loadFailed(error);
 		};
-		const request: DataRequest = { id, kind: 'load', source };
-		worker.postMessage(request);
+		runner.run(
+			{ kind: 'load', source },
+			{
+				progress: (p) => {
+					if (p.kind === 'load-progress') this.#events.loadProgress(p.progress);
+				},
+				done: (result, { ms }) => {
+					if (result.kind === 'load-failed') return failed(result.error);
+					if (result.kind !== 'loaded') return;
+					this.#loading = null;
+					this.#current?.terminate();
+					this.#current = runner;
+					this.#events.loaded(result.info, ms);
+				},
+				failed: (message) => failed({ message: `The file could not be read: ${message}` })
+			}
+		);
 	}
 
 	/** Stops reading a file; the data loaded before stay. Returns false when nothing was loading. */
@@ -91,15 +94,34 @@ export class DataRunner {
 		if (!this.#loading) return false;
 		this.#loading.terminate();
 		this.#loading = null;
-		this.#loadId++;
 		return true;
 	}
 
 	check(request: CheckRequest): void {
 		if (!this.#current) return;
-		const message: DataRequest = { id: ++this.#checkId, kind: 'check', ...request };
 		this.#checking = true;
-		this.#current.postMessage(message);
+		const settled = () => (this.#checking = false);
+		this.#current.run(
+			{ kind: 'check', ...request },
+			{
+				progress: (p) => {
+					if (p.kind === 'check-progress') this.#events.checkProgress(p.progress);
+					else if (p.kind === 'partial') this.#events.partial(p.report, p.pending);
+				},
+				done: (result, { ms }) => {
+					settled();
+					if (result.kind === 'report') this.#events.report(result.report, ms);
+				},
+				failed: (message) => {
+					settled();
+					this.#events.checkFailed(message);
+				},
+				cancelled: () => {
+					settled();
+					this.#events.checkCancelled?.();
+				}
+			}
+		);
 	}
 
 	get checking(): boolean {
@@ -112,9 +134,7 @@ export class DataRunner {
 	 */
 	cancelCheck(): boolean {
 		if (!this.#current || !this.#checking) return false;
-		const message: DataRequest = { id: this.#checkId, kind: 'cancel' };
-		this.#current.postMessage(message);
-		return true;
+		return this.#current.cancel();
 	}
 
 	/** Forget the data (the worker and its table go). */
@@ -122,21 +142,10 @@ export class DataRunner {
 		this.cancelLoad();
 		this.#current?.terminate();
 		this.#current = null;
-		this.#checkId++;
 		this.#checking = false;
 	}
 
 	dispose(): void {
 		this.clear();
-	}
-
-	#onCheckReply(reply: DataReply): void {
-		if (reply.id !== this.#checkId) return; // superseded
-		if (reply.kind === 'report' || reply.kind === 'check-failed' || reply.kind === 'check-cancelled') this.#checking = false;
-		if (reply.kind === 'check-progress') this.#events.checkProgress(reply.progress);
-		else if (reply.kind === 'partial') this.#events.partial(reply.report, reply.pending);
-		else if (reply.kind === 'report') this.#events.report(reply.report, reply.ms);
-		else if (reply.kind === 'check-failed') this.#events.checkFailed(reply.message);
-		else if (reply.kind === 'check-cancelled') this.#events.checkCancelled?.();
 	}
 }

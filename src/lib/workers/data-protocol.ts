@@ -1,4 +1,4 @@
-/** Messages between the app and the data worker. Plain data (structured clone). */
+/** The data worker's jobs (job-runner.ts): what the page asks, the progress and the results. Plain data (structured clone). */
 import type { Diagram } from '../graph/diagram';
 import type { ParseProgress, TableError } from '../stats';
 import type { DataCheckProgress, DataCheckReport, TableInfo } from '../datacheck';
@@ -10,18 +10,12 @@ export type DataPart = 'arrows' | 'estimates' | 'claims';
 
 export type DataSource = { kind: 'file'; file: File } | { kind: 'url'; url: string; name: string };
 
-export type DataRequest =
-	| { id: number; kind: 'load'; source: DataSource }
-	| { id: number; kind: 'check'; diagram: Diagram; planned?: string[] }
-	/** Stop the check with this id (between two checks, or inside a long one). */
-	| { id: number; kind: 'cancel' };
+export type DataJob = { kind: 'load'; source: DataSource } | { kind: 'check'; diagram: Diagram; planned?: string[] };
 
-export type DataReply =
-	| { id: number; kind: 'load-progress'; progress: ParseProgress }
-	| { id: number; kind: 'loaded'; info: TableInfo; ms: number }
-	| { id: number; kind: 'load-failed'; error: TableError }
-	| { id: number; kind: 'check-progress'; progress: DataCheckProgress }
-	| { id: number; kind: 'partial'; report: DataCheckReport; pending: DataPart[] }
-	| { id: number; kind: 'report'; report: DataCheckReport; ms: number }
-	| { id: number; kind: 'check-failed'; message: string }
-	| { id: number; kind: 'check-cancelled' };
+export type DataProgress =
+	| { kind: 'load-progress'; progress: ParseProgress }
+	| { kind: 'check-progress'; progress: DataCheckProgress }
+	/** The report so far, while `pending` parts are still being computed. */
+	| { kind: 'partial'; report: DataCheckReport; pending: DataPart[] };
+
+export type DataResult = { kind: 'loaded'; info: TableInfo } | { kind: 'load-failed'; error: TableError } | { kind: 'report'; report: DataCheckReport };

@@ -1,81 +1,10 @@
 /**
- * The data worker: reads a CSV/TSV file as a stream (src/lib/stats/table) with progress,
- * keeps the parsed table (typed arrays; never sent back to the page) and its shared
- * statistics, and runs the data checks (src/lib/datacheck, through data-checks.ts) on it for
- * each diagram the page sends, stopping when asked (a cancel, or a newer diagram). The page
- * loads each new file in a fresh worker and keeps the old one until the new file is read,
- * so a bad file or a cancel leaves the earlier data and results in place.
+ * The data worker: one data session (data-steps.ts) holding the table the page loaded into it.
+ * The page loads each new file in a fresh worker and keeps the old one until the new file is
+ * read, so a bad file or a cancel leaves the earlier data and results in place. Progress goes
+ * out at most every 80 ms.
  */
-import { parseTableStream, type TableSource } from '../stats';
-import { describeTable } from '../datacheck';
-import type { DataReply, DataRequest } from './data-protocol';
-import { WorkerChecks } from './data-checks';
+import { serveJobs } from './job-server';
+import { DataSession } from './data-steps';
 
-const post = (reply: DataReply) => (self as unknown as Worker).postMessage(reply);
-
-
-async function load(id: number, request: Extract<DataRequest, { kind: 'load' }>): Promise<void> {
-	const started = performance.now();
-	let source: TableSource;
-	let name: string;
-	let totalBytes: number | undefined;
-	if (request.source.kind === 'file') {
-		source = request.source.file;
-		name = request.source.file.name;
-	} else {
-		name = request.source.name;
-		const response = await fetch(request.source.url);
-		if (!response.ok || !response.body) {
-			post({ id, kind: 'load-failed', error: { message: `Could not fetch ${name} (HTTP ${response.status}).` } });
-			return;
-		}
-		totalBytes = Number(response.headers.get('content-length')) || undefined;
-		source = response.body;
-	}
-	let lastPost = 0;
-	const result = await parseTableStream(source, {
-		totalBytes,
-		onProgress: (progress) => {
-			const now = performance.now();
-			if (now - lastPost > 80 || progress.fraction === 1) {
-				lastPost = now;
-				post({ id, kind: 'load-progress', progress });
-			}
-		}
-	});
-	if (!result.ok) {
-		post({ id, kind: 'load-failed', error: result.error });
-		return;
-	}
-	checks.setTable(result.table);
-	post({ id, kind: 'loaded', info: describeTable(result.table, name), ms: performance.now() - started });
-}
-
-/**
- * Gives way to the worker's event loop (a message to itself, not a timer: timers in a loop are
- * clamped to 4 ms), so that a cancel message is taken between checks.
- */
-function pause(): Promise<void> {
-	return new Promise((resolve) => {
-		const channel = new MessageChannel();
-		channel.port1.onmessage = () => {
-			channel.port1.close();
-			resolve();
-		};
-		channel.port2.postMessage(null);
-	});
-}
-
-const checks = new WorkerChecks(post, pause);
-
-self.onmessage = (event: MessageEvent<DataRequest>) => {
-	const request = event.data;
-	if (request.kind === 'load') {
-		void load(request.id, request).catch((e: unknown) =>
-			post({ id: request.id, kind: 'load-failed', error: { message: `Could not read the file: ${e instanceof Error ? e.message : String(e)}` } })
-		);
-		return;
-	}
-	if (request.kind === 'cancel') checks.cancel(request.id);
-	else checks.check(request);
-};
+serveJobs(new DataSession().steps, { progressEveryMs: 80 });

@@ -2,33 +2,38 @@
  * Tidy layout in a Web Worker: one short-lived worker per layout (layouts are occasional),
  * terminated when done, so the canvas stays responsive while dagre works (about a second of
  * CPU at 300 variables). Small diagrams are laid out on the main thread, where starting a
- * worker and loading dagre into it would cost more than the layout itself. Both paths call
- * the same entry point, `tidyPositions` (src/lib/layout/tidy.ts), as `causeway export` does.
+ * worker and loading dagre into it would cost more than the layout itself. Both paths run the
+ * same step (`layoutSteps`: `tidyPositions`, src/lib/layout/tidy.ts, as `causeway export` does)
+ * through a job runner (job-runner.ts), which also falls back to the main thread when there is
+ * no Worker.
  */
-import { tidyPositions, type LayoutInput, type Positions } from '../layout';
+import type { LayoutInput, Positions } from '../layout';
+import { JobRunner } from './job-runner';
+import { layoutSteps } from './layout-steps';
 
 /** Up to this many variables the layout takes a few tens of milliseconds: no worker needed. */
 export const MAIN_THREAD_LAYOUT_LIMIT = 60;
 
-export function layoutInWorker(input: LayoutInput): Promise<Positions> {
-	if (input.nodes.length <= MAIN_THREAD_LAYOUT_LIMIT) {
-		try {
-			return Promise.resolve(tidyPositions(input));
-		} catch (e) {
-			return Promise.reject(e instanceof Error ? e : new Error(String(e)));
-		}
-	}
+function defaultWorker(): Worker {
+	return new Worker(new URL('./layout.worker.ts', import.meta.url), { type: 'module' });
+}
+
+export function layoutInWorker(input: LayoutInput, createWorker: () => Worker = defaultWorker): Promise<Positions> {
+	const runner = new JobRunner<LayoutInput, never, Positions>({ steps: () => layoutSteps, createWorker, crashed: (m) => `The layout stopped: ${m}` });
 	return new Promise((resolve, reject) => {
-		const worker = new Worker(new URL('./layout.worker.ts', import.meta.url), { type: 'module' });
-		worker.onmessage = (e: MessageEvent<{ ok: true; positions: Positions } | { ok: false; message: string }>) => {
-			worker.terminate();
-			if (e.data.ok) resolve(e.data.positions);
-			else reject(new Error(e.data.message));
-		};
-		worker.onerror = (e) => {
-			worker.terminate();
-			reject(new Error(e.message || 'the layout worker failed'));
-		};
-		worker.postMessage(input);
+		runner.run(
+			input,
+			{
+				done: (positions) => {
+					runner.terminate();
+					resolve(positions);
+				},
+				failed: (message) => {
+					runner.terminate();
+					reject(new Error(message));
+				}
+			},
+			{ where: input.nodes.length <= MAIN_THREAD_LAYOUT_LIMIT ? 'main' : 'worker' }
+		);
 	});
 }

@@ -1,10 +1,5 @@
-/** Runs the tidy layout off the main thread: the same entry point as the page and the CLI (src/lib/layout/tidy.ts). */
-import { tidyPositions, type LayoutInput } from '../layout';
+/** Runs the tidy layout off the main thread (layout-steps.ts). */
+import { serveJobs } from './job-server';
+import { layoutSteps } from './layout-steps';
 
-self.onmessage = (event: MessageEvent<LayoutInput>) => {
-	try {
-		(self as unknown as Worker).postMessage({ ok: true, positions: tidyPositions(event.data) });
-	} catch (e) {
-		(self as unknown as Worker).postMessage({ ok: false, message: e instanceof Error ? e.message : String(e) });
-	}
-};
+serveJobs(layoutSteps);

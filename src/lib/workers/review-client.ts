@@ -1,10 +1,11 @@
 /**
- * Runs reviewer-tool jobs for the app: small diagrams on the main thread, larger ones in a
- * Web Worker with progress; a newer request supersedes an older one (a busy worker is
- * terminated, since a running computation cannot be interrupted), and cancel() stops it.
+ * Runs reviewer-tool jobs for the app on a job runner (job-runner.ts): small diagrams on the
+ * main thread, larger ones in a Web Worker with progress; a newer request supersedes an older
+ * one (a busy worker is terminated, since a running computation cannot be interrupted), and
+ * cancel() stops it.
  */
-import { runJob, type ReviewJob, type ReviewResult, type StressResult } from './review-steps';
-import type { ReviewReply, ReviewRequest } from './review-protocol';
+import { JobRunner } from './job-runner';
+import { reviewSteps, type ReviewJob, type ReviewResult, type StressResult } from './review-steps';
 
 export interface ReviewRunnerEvents<R> {
 	done(result: R, info: { where: 'main' | 'worker'; ms: number }): void;
@@ -25,15 +26,16 @@ function defaultWorker(): Worker {
 export class ReviewRunner<R extends ReviewResult | StressResult> {
 	#events: ReviewRunnerEvents<R>;
 	#mainLimit: number;
-	#createWorker: () => Worker;
-	#worker: Worker | null = null;
-	#busy = false;
-	#latest = 0;
+	#jobs: JobRunner<ReviewJob, number, ReviewResult | StressResult>;
 
 	constructor(events: ReviewRunnerEvents<R>, opts: ReviewRunnerOptions = {}) {
 		this.#events = events;
 		this.#mainLimit = opts.mainThreadVariables ?? 30;
-		this.#createWorker = opts.createWorker ?? defaultWorker;
+		this.#jobs = new JobRunner({
+			steps: () => reviewSteps,
+			createWorker: opts.createWorker ?? defaultWorker,
+			crashed: (message) => `The reviewer tools stopped: ${message}`
+		});
 	}
 
 	usesWorker(job: ReviewJob): boolean {
@@ -41,64 +43,27 @@ export class ReviewRunner<R extends ReviewResult | StressResult> {
 	}
 
 	run(job: ReviewJob): void {
-		const id = ++this.#latest;
-		if (this.#busy) this.#stop();
-		if (!this.usesWorker(job)) {
-			const started = performance.now();
-			try {
-				const result = runJob(job) as R;
-				this.#events.done(result, { where: 'main', ms: performance.now() - started });
-			} catch (e) {
-				this.#events.failed(e instanceof Error ? e.message : String(e));
-			}
-			return;
-		}
-		const worker = this.#ensureWorker();
-		this.#busy = true;
-		const request: ReviewRequest = { ...job, id };
-		worker.postMessage(request);
+		this.#jobs.run(
+			job,
+			{
+				progress: (fraction) => this.#events.progress(fraction),
+				// The job's kind decides the result's type: a review job gives a ReviewResult.
+				done: (result, info) => this.#events.done(result as R, info),
+				failed: (message) => this.#events.failed(message)
+			},
+			{ where: this.usesWorker(job) ? 'worker' : 'main' }
+		);
 	}
 
 	cancel(): void {
-		this.#latest++;
-		this.#stop();
+		this.#jobs.terminate();
 	}
 
 	get busy(): boolean {
-		return this.#busy;
+		return this.#jobs.busy;
 	}
 
 	dispose(): void {
-		this.#stop();
-	}
-
-	#ensureWorker(): Worker {
-		if (this.#worker) return this.#worker;
-		const worker = this.#createWorker();
-		worker.onmessage = (e: MessageEvent<ReviewReply>) => this.#onReply(e.data);
-		worker.onerror = (e: ErrorEvent) => {
-			this.#stop();
-			this.#events.failed(`The reviewer tools stopped: ${e.message || 'the worker failed'}`);
-		};
-		this.#worker = worker;
-		return worker;
-	}
-
-	#stop(): void {
-		this.#worker?.terminate();
-		this.#worker = null;
-		this.#busy = false;
-	}
-
-	#onReply(reply: ReviewReply): void {
-		if (reply.id !== this.#latest) return;
-		if (reply.kind === 'progress') this.#events.progress(reply.fraction);
-		else if (reply.kind === 'done') {
-			this.#busy = false;
-			this.#events.done(reply.result as R, { where: 'worker', ms: reply.ms });
-		} else {
-			this.#busy = false;
-			this.#events.failed(reply.message);
-		}
+		this.#jobs.terminate();
 	}
 }

@@ -5,6 +5,7 @@
  * thread for small diagrams and in review.worker.ts for large ones.
  */
 import type { Diagram } from '../graph/diagram';
+import type { JobSteps } from './job-protocol';
 import { conditionalInstruments, efficiencyAdvice, planRobustness, reviewAdjustment, setsRobustToAdditions } from '../causal';
 import type { AdjustmentReview, EfficiencyAdvice, Instrument, PlanRobustness, RobustSets } from '../causal';
 
@@ -44,3 +45,6 @@ export function runStress(d: Diagram, stated: string[], onProgress: (fraction: n
 export function runJob(job: ReviewJob, onProgress?: (fraction: number) => void): ReviewResult | StressResult {
 	return job.kind === 'review' ? runReview(job.diagram, job.stated) : runStress(job.diagram, job.stated, onProgress);
 }
+
+/** The reviewer tools as job steps (job-runner.ts), for the worker and the main thread alike. */
+export const reviewSteps: JobSteps<ReviewJob, number, ReviewResult | StressResult> = (job, context) => runJob(job, (fraction) => context.progress(fraction));

@@ -12,6 +12,7 @@ import { compileDag } from '../../../src/lib/graph/compiled';
 import type { Diagram } from '../../../src/lib/graph/diagram';
 import { adjustmentOracle, descendantsOf } from '../reference/brute-force';
 import { randomAdjustmentQuery } from '../reference/random-dag';
+import { diagramOf as publishedDiagram, M_BIAS, renamed } from '../reference/published-diagrams';
 
 function diagramOf(ids: readonly string[], edges: readonly (readonly [number, number])[], measured: readonly boolean[], X: readonly number[], Y: readonly number[], Z: readonly number[]): Diagram {
 	return {
@@ -27,20 +28,7 @@ function diagramOf(ids: readonly string[], edges: readonly (readonly [number, nu
 describe('absent arrows that the adjustment depends on', () => {
 	it('M-bias (Greenland 2003): the empty set rests on the absence of arrows from the collider into exposure or outcome', () => {
 		// X ← U1 → M ← U2 → Y, X → Y; U1, U2 unmeasured; planned set empty.
-		const d: Diagram = {
-			title: 'M-bias',
-			variables: ['X', 'Y', 'M', 'U1', 'U2'].map((id) => ({ id, label: id, measured: !id.startsWith('U') })),
-			arrows: [
-				{ from: 'U1', to: 'X' },
-				{ from: 'U1', to: 'M' },
-				{ from: 'U2', to: 'M' },
-				{ from: 'U2', to: 'Y' },
-				{ from: 'X', to: 'Y' }
-			],
-			exposures: ['X'],
-			outcomes: ['Y'],
-			adjusted: []
-		};
+		const d = publishedDiagram(renamed(M_BIAS, { A: 'U1', B: 'U2' }), { unmeasured: ['U1', 'U2'] });
 		const r = criticalAbsentArrows(d, adjustmentSets(d), checkAdjustment(d).valid);
 		const pairs = r.items.map((i) => `${i.from}->${i.to}`);
 		// M → Y opens X ← U1 → M → Y; M → X opens X ← M ← U2 → Y; U1 → Y and U2 → X are unmeasured confounding.

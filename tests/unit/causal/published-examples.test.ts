@@ -17,6 +17,7 @@ import {
 } from '../../../src/lib/causal/analysis';
 import type { AdjustmentCheck, Role } from '../../../src/lib/causal/types';
 import { optimalSetSentence, rolesText } from '../../../src/lib/wording';
+import { BUTTERFLY, diagramOf, FRONT_DOOR, M_BIAS, OVERADJUSTMENT, PEARL_BACK_DOOR } from '../reference/published-diagrams';
 
 /** A diagram from "a->b" arrows; variables in order of first mention. */
 function diagram(spec: { arrows: string[]; exposures: string[]; outcomes: string[]; unmeasured?: string[]; adjusted?: string[] }): Diagram {
@@ -42,11 +43,7 @@ const forbidden = (c: AdjustmentCheck) => c.problems.flatMap((p) => (p.kind === 
 
 describe('Pearl, Causality (2nd ed. 2009), §3.3.1, the back-door example (graph and statements reconstructed from memory)', () => {
 	// Eight variables: X1→X3→X, X1→X4←X2, X2→X5→Y, X4→X, X4→Y, X→X6→Y (X = treatment, Y = outcome).
-	const d = diagram({
-		arrows: ['X1->X3', 'X1->X4', 'X2->X4', 'X2->X5', 'X3->X', 'X4->X', 'X4->Y', 'X5->Y', 'X->X6', 'X6->Y'],
-		exposures: ['X'],
-		outcomes: ['Y']
-	});
+	const d = diagramOf(PEARL_BACK_DOOR);
 
 	it('minimal sufficient sets are {X1,X4}, {X2,X4}, {X3,X4}, {X4,X5} (from memory, DESIGN.md "Outside checks")', () => {
 		const r = adjustmentSets(d);
@@ -81,7 +78,7 @@ describe('Pearl, Causality (2nd ed. 2009), §3.3.1, the back-door example (graph
 
 describe('M-bias (Greenland, Epidemiology 2003)', () => {
 	// A→X, A→M←B, B→Y, X→Y: M is a pre-exposure collider of two independent causes.
-	const d = diagram({ arrows: ['A->X', 'A->M', 'B->M', 'B->Y', 'X->Y'], exposures: ['X'], outcomes: ['Y'] });
+	const d = diagramOf(M_BIAS);
 
 	it('Greenland: the empty set is sufficient (it is the unique minimal set)', () => {
 		expect(adjustmentSets(d).sets).toEqual([[]]);
@@ -106,7 +103,7 @@ describe('M-bias (Greenland, Epidemiology 2003)', () => {
 
 describe('Overadjustment (Schisterman, Cole & Platt, Epidemiology 2009)', () => {
 	// C confounds; M is an intermediate on X→M→Y; D is a descendant of the intermediate.
-	const d = diagram({ arrows: ['C->X', 'C->Y', 'X->M', 'M->Y', 'X->Y', 'M->D'], exposures: ['X'], outcomes: ['Y'] });
+	const d = diagramOf(OVERADJUSTMENT);
 
 	it('Schisterman et al.: adjusting an intermediate is not valid for the total effect', () => {
 		const c = checkAdjustment(d, { adjusted: ['C', 'M'] });
@@ -181,10 +178,9 @@ describe('Confounder as a member of some minimal sufficient set (VanderWeele & S
 
 describe('Butterfly bias (Ding & Miratrix, J Causal Inference 2015)', () => {
 	// A→X, A→C←B, B→Y, C→X, C→Y, X→Y: C is a confounder and a collider at once.
-	const arrows = ['A->X', 'A->C', 'B->C', 'B->Y', 'C->X', 'C->Y', 'X->Y'];
 
 	it('Ding & Miratrix: neither the empty set nor C alone removes bias; C with A or with B does', () => {
-		const d = diagram({ arrows, exposures: ['X'], outcomes: ['Y'] });
+		const d = diagramOf(BUTTERFLY);
 		expect(checkAdjustment(d, { adjusted: [] }).valid).toBe(false);
 		const c = checkAdjustment(d, { adjusted: ['C'] });
 		expect(c.valid).toBe(false);
@@ -201,7 +197,7 @@ describe('Butterfly bias (Ding & Miratrix, J Causal Inference 2015)', () => {
 	});
 
 	it('Ding & Miratrix: with A and B unmeasured, no adjustment set exists', () => {
-		const d = diagram({ arrows, exposures: ['X'], outcomes: ['Y'], unmeasured: ['A', 'B'] });
+		const d = diagramOf(BUTTERFLY, { unmeasured: ['A', 'B'] });
 		const r = adjustmentSets(d);
 		expect(r.identifiable).toBe(false);
 		expect(r.sets).toEqual([]);
@@ -212,10 +208,9 @@ describe('Butterfly bias (Ding & Miratrix, J Causal Inference 2015)', () => {
 
 describe('Front-door structure (Pearl, Biometrika 1995)', () => {
 	// U→X, U→Y with U unmeasured; X→M→Y, M shielded from U.
-	const arrows = ['U->X', 'U->Y', 'X->M', 'M->Y'];
 
 	it('Pearl 1995: with the confounder unmeasured, no adjustment set identifies the effect', () => {
-		const d = diagram({ arrows, exposures: ['X'], outcomes: ['Y'], unmeasured: ['U'] });
+		const d = diagramOf(FRONT_DOOR);
 		const r = adjustmentSets(d);
 		expect(r.identifiable).toBe(false);
 		expect(r.sets).toEqual([]);
@@ -226,7 +221,7 @@ describe('Front-door structure (Pearl, Biometrika 1995)', () => {
 	});
 
 	it('the same structure with U measured is identified by {U}', () => {
-		const d = diagram({ arrows, exposures: ['X'], outcomes: ['Y'] });
+		const d = diagramOf(FRONT_DOOR, { unmeasured: [] });
 		expect(adjustmentSets(d).sets).toEqual([['U']]);
 	});
 });

@@ -18,6 +18,7 @@ import {
 import type { AdjustmentReview, PlanWeakness } from '../../../src/lib/causal/review-types';
 import { compileDiagram } from '../../../src/lib/graph/compiled';
 import { dSeparatedOracle } from '../reference/brute-force';
+import { BUTTERFLY, diagramOf, M_BIAS, OVERADJUSTMENT, PEARL_BACK_DOOR, renamed } from '../reference/published-diagrams';
 
 function diagram(spec: { arrows: string[]; exposures: string[]; outcomes: string[]; unmeasured?: string[]; adjusted?: string[]; labels?: Record<string, string> }): Diagram {
 	const arrows = spec.arrows.map((a) => {
@@ -41,7 +42,7 @@ const changeText = (w: PlanWeakness) => (w.change.kind === 'unmeasure' ? `unmeas
 
 describe('M-bias (Greenland, Pearl & Robins, Epidemiology 1999; Greenland, Epidemiology 2003)', () => {
 	// X ← A → M ← B → Y, X → Y: M is a pre-exposure collider.
-	const d = diagram({ arrows: ['A->X', 'A->M', 'B->M', 'B->Y', 'X->Y'], exposures: ['X'], outcomes: ['Y'] });
+	const d = diagramOf(M_BIAS);
 
 	it('a paper adjusting for M alone: collider bias on the back-door path X ← A → M ← B → Y', () => {
 		const r = reviewAdjustment(d, { adjusted: ['M'] });
@@ -72,7 +73,8 @@ describe('M-bias (Greenland, Pearl & Robins, Epidemiology 1999; Greenland, Epide
 
 describe('Butterfly bias (Ding & Miratrix, J Causal Inference 2015)', () => {
 	// A → X, A → M, B → M, B → Y, M → X, M → Y, X → Y: M is both a confounder and a collider.
-	const d = diagram({ arrows: ['A->X', 'A->M', 'B->M', 'B->Y', 'M->X', 'M->Y', 'X->Y'], exposures: ['X'], outcomes: ['Y'] });
+	// The collider (C in reference/published-diagrams.ts) is named M here.
+	const d = diagramOf(renamed(BUTTERFLY, { C: 'M' }));
 
 	it('Ding & Miratrix: adjusting M alone blocks X ← M → Y but opens X ← A → M ← B → Y', () => {
 		const r = reviewAdjustment(d, { adjusted: ['M'] });
@@ -97,7 +99,7 @@ describe('Butterfly bias (Ding & Miratrix, J Causal Inference 2015)', () => {
 
 describe('Overadjustment (Schisterman, Cole & Platt, Epidemiology 2009)', () => {
 	// C → X, C → Y, X → M → Y, X → Y, M → D.
-	const d = diagram({ arrows: ['C->X', 'C->Y', 'X->M', 'M->Y', 'X->Y', 'M->D'], exposures: ['X'], outcomes: ['Y'] });
+	const d = diagramOf(OVERADJUSTMENT);
 
 	it('Schisterman et al.: adjusting the intermediate M is overadjustment; no superset can repair it', () => {
 		const r = reviewAdjustment(d, { adjusted: ['C', 'M'] });
@@ -182,11 +184,7 @@ describe('Conditional instruments (van der Zander, Textor & Liśkiewicz, IJCAI 2
 });
 
 describe('Robustness on Pearl’s back-door example (Causality, 2nd ed. 2009, §3.3.1; graph from memory)', () => {
-	const d = diagram({
-		arrows: ['X1->X3', 'X1->X4', 'X2->X4', 'X2->X5', 'X3->X', 'X4->X', 'X4->Y', 'X5->Y', 'X->X6', 'X6->Y'],
-		exposures: ['X'],
-		outcomes: ['Y']
-	});
+	const d = diagramOf(PEARL_BACK_DOOR);
 
 	it('the plan {X4, X5} rests most directly on there being no arrow X3 → Y or X6 → X5, and X → X6 not reversed', () => {
 		const r = planRobustness(d, { adjusted: ['X4', 'X5'] });

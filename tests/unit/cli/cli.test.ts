@@ -4,6 +4,7 @@ import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { runCli as run, diagramJson as diagram, MBIAS } from './harness';
+import { diagramOf, FRONT_DOOR, renamed } from '../reference/published-diagrams';
 
 const DEMO = 'static/demo/cycling-hypertension.causeway.json';
 
@@ -51,27 +52,9 @@ describe('causeway plan sets', () => {
 	});
 
 	it('overrides the question from the command line and reports non-identifiable questions', async () => {
-		// Front door (Pearl 1995): x → m → y with x ← u → y and u unmeasured.
-		const fd = JSON.stringify({
-			format: 'causeway.diagram',
-			version: 1,
-			title: 'front door',
-			variables: [
-				{ id: 'x', label: 'x', measured: true },
-				{ id: 'm', label: 'm', measured: true },
-				{ id: 'y', label: 'y', measured: true },
-				{ id: 'u', label: 'u', measured: false }
-			],
-			arrows: [
-				{ from: 'x', to: 'm' },
-				{ from: 'm', to: 'y' },
-				{ from: 'u', to: 'x' },
-				{ from: 'u', to: 'y' }
-			],
-			exposures: [],
-			outcomes: [],
-			adjusted: []
-		});
+		// Front door (reference/published-diagrams.ts) in lower case: x → m → y with x ← u → y and u unmeasured; no question in the file.
+		const frontDoor = diagramOf(renamed(FRONT_DOOR, { U: 'u', X: 'x', M: 'm', Y: 'y' }), { title: 'front door' });
+		const fd = JSON.stringify({ format: 'causeway.diagram', version: 1, ...frontDoor, exposures: [], outcomes: [] });
 		const r = await run(['plan', 'sets', 'fd.json', '--exposure', 'x', '--outcome', 'y', '--json'], { 'fd.json': fd });
 		expect(JSON.parse(r.out)).toMatchObject({ identifiable: false, sets: [], optimal: null, exposures: ['x'], outcomes: ['y'] });
 		const text = await run(['plan', 'sets', 'fd.json', '--exposure', 'x', '--outcome', 'y'], { 'fd.json': fd });

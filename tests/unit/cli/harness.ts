@@ -5,6 +5,7 @@
  */
 import { readFileSync } from 'node:fs';
 import { main } from '../../../src/cli/main';
+import { arrowPairs, M_BIAS_LOWER_CASE } from '../reference/published-diagrams';
 
 export async function runCli(args: string[], files: Record<string, string> = {}) {
 	let out = '';
@@ -37,14 +38,5 @@ export function diagramJson(arrows: [string, string][], extra: Record<string, un
 	});
 }
 
-// M-bias (Greenland, Pearl & Robins, Epidemiology 1999): E ← U1 → M ← U2 → D, E → D.
-export const MBIAS = diagramJson(
-	[
-		['u1', 'e'],
-		['u1', 'm'],
-		['u2', 'm'],
-		['u2', 'd'],
-		['e', 'd']
-	],
-	{ exposures: ['e'], outcomes: ['d'] }
-);
+// M-bias (reference/published-diagrams.ts): e ← u1 → m ← u2 → d, e → d.
+export const MBIAS = diagramJson(arrowPairs(M_BIAS_LOWER_CASE), { exposures: M_BIAS_LOWER_CASE.exposures, outcomes: M_BIAS_LOWER_CASE.outcomes });

@@ -1,16 +1,11 @@
 // Cancelling the data checks at every stage: the pipeline stops with Cancelled when asked
 // between checks (arrows, claims, estimates, confounder candidates) and inside long loops
-// (cross-products, ranks, logistic iterations), leaving the shared statistics usable; the data
-// worker's runner answers a cancel at each part and lets a newer request replace a running one;
-// the page's side sends the cancel and reports it. No wall-clock timing: the worker's clock and
-// its pauses are driven by the test.
+// (cross-products, ranks, logistic iterations), leaving the shared statistics usable. The data
+// worker's side of a cancel is tested in tests/unit/workers/data-cancel.test.ts.
 import { describe, expect, it } from 'vitest';
-import { runDataChecks, type DataCheckProgress, type DataCheckReport } from '../../../src/lib/datacheck';
+import { runDataChecks, type DataCheckProgress } from '../../../src/lib/datacheck';
 import { Cancelled, interruptWhen, TableStatistics, type Table } from '../../../src/lib/stats';
 import { Moments } from '../../../src/lib/stats/sufficient/moments';
-import { WorkerChecks } from '../../../src/lib/workers/data-checks';
-import { DataRunner } from '../../../src/lib/workers/data-client';
-import type { DataReply, DataRequest } from '../../../src/lib/workers/data-protocol';
 import { demoCsv, simulateDemo } from '../../../scripts/simulate-demo';
 import { demoDir, readDiagram, readTable, tableOf } from './helpers';
 
@@ -82,114 +77,5 @@ describe('the pipeline stops when cancelled', () => {
 		const before = fitPolls;
 		const fit = stats.logistic(plan, [0, 1, 2, 3, 4]);
 		expect(fitPolls - before).toBeGreaterThanOrEqual(fit.iterations + 1);
-	});
-});
-
-/** A worker's checks driven by hand: a clock that moves 100 ms per reading, pauses released by the test. */
-function workerChecks() {
-	const replies: DataReply[] = [];
-	const pauses: (() => void)[] = [];
-	let clock = 0;
-	const checks = new WorkerChecks(
-		(r) => replies.push(r),
-		() => new Promise<void>((resolve) => pauses.push(resolve)),
-		() => (clock += 100),
-		30
-	);
-	checks.setTable(demo);
-	/** Releases pauses until `until` holds or the run ends (no pause left). */
-	const release = async (until: () => boolean) => {
-		for (let guard = 0; guard < 10_000 && !until(); guard++) {
-			const next = pauses.shift();
-			if (!next) {
-				await new Promise((r) => setTimeout(r, 0)); // let a chain of awaits reach its next pause
-				if (pauses.length === 0) return;
-				continue;
-			}
-			next();
-			await new Promise((r) => setTimeout(r, 0));
-		}
-	};
-	return { checks, replies, release, kinds: (id: number) => replies.filter((r) => r.id === id).map((r) => r.kind) };
-}
-
-describe("the worker's checks answer a cancel", () => {
-	const request = (id: number): Extract<DataRequest, { kind: 'check' }> => ({ id, kind: 'check', diagram });
-
-	for (const [part, partials] of [
-		['arrows', 0],
-		['estimates', 1],
-		['claims', 2]
-	] as const)
-		it(`while checking the ${part}`, async () => {
-			const { checks, replies, release, kinds } = workerChecks();
-			checks.check(request(1));
-			await release(() => replies.filter((r) => r.kind === 'partial').length >= partials && replies.some((r) => r.kind === 'check-progress' && r.progress.stage === (part === 'claims' ? 'claims' : part)));
-			checks.cancel(1);
-			await release(() => replies.some((r) => r.kind === 'check-cancelled'));
-			expect(kinds(1)).toContain('check-cancelled');
-			expect(kinds(1)).not.toContain('report');
-			expect(kinds(1).filter((k) => k === 'partial').length).toBe(partials);
-		});
-
-	it('a newer request replaces the running one, which stops; the newer one reports', async () => {
-		const { checks, replies, release, kinds } = workerChecks();
-		checks.check(request(1));
-		await release(() => replies.length > 0);
-		checks.check(request(2));
-		await release(() => replies.some((r) => r.id === 2 && r.kind === 'report'));
-		expect(kinds(1)).toContain('check-cancelled');
-		expect(kinds(2).at(-1)).toBe('report');
-		const report = replies.find((r) => r.id === 2 && r.kind === 'report') as Extract<DataReply, { kind: 'report' }>;
-		expect(report.report.claims.tested).toBeGreaterThan(40);
-	});
-
-	it('uncancelled, the worker reports what runDataChecks gives', async () => {
-		const { checks, replies, release } = workerChecks();
-		checks.check(request(1));
-		await release(() => replies.some((r) => r.kind === 'report'));
-		expect(replies.filter((r) => r.kind !== 'check-progress').map((r) => r.kind)).toEqual(['partial', 'partial', 'report']);
-		const report = (replies.find((r) => r.kind === 'report') as Extract<DataReply, { kind: 'report' }>).report;
-		const direct: DataCheckReport = runDataChecks(diagram, demo, { settingProblems: 'note', pictures: true });
-		expect(report).toEqual(direct);
-	});
-});
-
-describe("the page's side sends the cancel", () => {
-	it('cancelCheck posts a cancel for the running check and reports the answer; nothing to cancel otherwise', () => {
-		const sent: DataRequest[] = [];
-		let onmessage: ((e: MessageEvent<DataReply>) => void) | null = null;
-		const worker = {
-			postMessage: (m: DataRequest) => sent.push(m),
-			terminate: () => {},
-			set onmessage(f: (e: MessageEvent<DataReply>) => void) {
-				onmessage = f;
-			},
-			onerror: null
-		};
-		const log: string[] = [];
-		const runner = new DataRunner(
-			{
-				loadProgress: () => {},
-				loaded: () => log.push('loaded'),
-				loadFailed: () => {},
-				checkProgress: () => {},
-				partial: () => {},
-				report: () => log.push('report'),
-				checkFailed: () => {},
-				checkCancelled: () => log.push('cancelled')
-			},
-			() => worker as unknown as Worker
-		);
-		const reply = (r: DataReply) => (onmessage as unknown as (e: MessageEvent<DataReply>) => void)({ data: r } as MessageEvent<DataReply>);
-		runner.load({ kind: 'url', url: '/x.csv', name: 'x.csv' });
-		reply({ id: 1, kind: 'loaded', info: { name: 'x.csv', rowCount: 1, columns: [], skipped: [], format: { delimiter: ',', decimalComma: false, header: true }, notes: [] }, ms: 1 });
-		expect(runner.cancelCheck()).toBe(false);
-		runner.check({ diagram });
-		expect(runner.cancelCheck()).toBe(true);
-		expect(sent.at(-1)).toEqual({ id: 1, kind: 'cancel' });
-		reply({ id: 1, kind: 'check-cancelled' });
-		expect(log).toEqual(['loaded', 'cancelled']);
-		expect(runner.cancelCheck()).toBe(false);
 	});
 });

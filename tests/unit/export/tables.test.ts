@@ -8,8 +8,8 @@ import Papa from 'papaparse';
 import MarkdownIt from 'markdown-it';
 import { arrowsCsv, setsCsv, setsMarkdown, variablesCsv } from '../../../src/lib/export/tables';
 import { adjustmentSets, checkAdjustment, variableRoles } from '../../../src/lib/causal/analysis';
-import { parseDiagramJson } from '../../../src/lib/graph/native-json';
 import { demo, hostileDemo } from './helpers';
+import { diagramOf, PEARL_BACK_DOOR } from '../reference/published-diagrams';
 
 const rows = (csv: string) => Papa.parse<string[]>(csv.trimEnd(), { newline: '\r\n' }).data;
 
@@ -41,21 +41,7 @@ describe('CSV tables', () => {
 
 	it('sets: every minimal set, the smallest, the optimal and the planned set with its verdict (Pearl 2009 §3.3.1 back-door example, from memory)', () => {
 		// Pearl's 8-variable back-door example: minimal sets {X1,X4}, {X2,X4}, {X3,X4}, {X4,X5}.
-		const arrows = [
-			['X1', 'X3'], ['X1', 'X4'], ['X2', 'X4'], ['X2', 'X5'], ['X3', 'X'], ['X4', 'X'], ['X4', 'Y'], ['X5', 'Y'], ['X', 'X6'], ['X6', 'Y']
-		];
-		const ids = [...new Set(arrows.flat())];
-		const d = parseDiagramJson(
-			JSON.stringify({
-				format: 'causeway.diagram',
-				version: 1,
-				variables: ids.map((id) => ({ id })),
-				arrows: arrows.map(([from, to]) => ({ from, to })),
-				exposures: ['X'],
-				outcomes: ['Y'],
-				adjusted: ['X4']
-			})
-		);
+		const d = diagramOf(PEARL_BACK_DOOR, { adjusted: ['X4'] });
 		const sets = adjustmentSets(d);
 		const check = checkAdjustment(d);
 		const table = rows(setsCsv(d, { sets, check }));

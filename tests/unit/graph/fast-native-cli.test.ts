@@ -17,6 +17,7 @@ import { FAST_READ_MIN_BYTES } from '../../../src/lib/graph/fast-native/min-byte
 import { CLI_READ_LIMITS } from '../../../src/lib/graph/size-limits';
 import { randomDiagramJson } from '../../../bench/cli-diagram';
 import { runCli } from '../cli/harness';
+import { diagramOf, M_BIAS_LOWER_CASE, withArrows } from '../reference/published-diagrams';
 
 const asVersion1 = (text: string) => text.replace('"version":2', '"version":1');
 const enc = new TextEncoder();
@@ -27,25 +28,11 @@ function takesFastPath(text: string): boolean {
 	}).ok;
 }
 
-// M-bias (Greenland, Pearl & Robins, Epidemiology 1999) with a mediator and a planned set that is not sufficient.
-const SMALL = JSON.stringify({
-	format: 'causeway.diagram',
-	version: 2,
-	title: 'M-bias and a mediator',
-	variables: ['u1', 'u2', 'e', 'm', 'k', 'd'].map((id) => ({ id, label: id.toUpperCase(), measured: !id.startsWith('u') })),
-	arrows: [
-		['u1', 'e'],
-		['u1', 'm'],
-		['u2', 'm'],
-		['u2', 'd'],
-		['e', 'k'],
-		['k', 'd'],
-		['e', 'd']
-	].map(([from, to]) => ({ from, to })),
-	exposures: ['e'],
-	outcomes: ['d'],
-	adjusted: ['m']
-});
+// M-bias (reference/published-diagrams.ts) with a mediator k and a planned set that is not sufficient.
+const SMALL = (() => {
+	const d = diagramOf(withArrows(M_BIAS_LOWER_CASE, ['e->k', 'k->d'], 'a mediator k added (ours)'), { title: 'M-bias and a mediator', unmeasured: ['u1', 'u2'], adjusted: ['m'] });
+	return JSON.stringify({ format: 'causeway.diagram', version: 2, ...d, variables: d.variables.map((v) => ({ ...v, label: v.id.toUpperCase() })) });
+})();
 const MEDIUM = randomDiagramJson(400, 7);
 
 const COMMANDS: string[][] = [

@@ -15,6 +15,7 @@ import { APP_READ_LIMITS, CLI_READ_LIMITS, type ReadLimits } from '../../../src/
 import { randomDiagramJson } from '../../../bench/cli-diagram';
 import { committedCorpus, wholeCorpus } from '../reliability/corpus';
 import { expectSameAsFullReader, fastRead, fullRead } from './fast-native-oracle';
+import { diagramOf, M_BIAS_LOWER_CASE } from '../reference/published-diagrams';
 
 const enc = new TextEncoder();
 const bytes = (text: string) => enc.encode(text);
@@ -22,15 +23,11 @@ const file = (body: Record<string, unknown>) => JSON.stringify({ format: 'causew
 
 const V = (id: string, more: Record<string, unknown> = {}) => ({ id, label: id.toUpperCase(), measured: true, ...more });
 const A = (from: string, to: string, more: Record<string, unknown> = {}) => ({ from, to, ...more });
-// M-bias (Greenland, Pearl & Robins, Epidemiology 1999): E ← U1 → M ← U2 → D, E → D.
-const MBIAS = {
-	title: 'M-bias',
-	variables: [V('u1', { measured: false }), V('u2', { measured: false }), V('e'), V('m'), V('d')],
-	arrows: [A('u1', 'e'), A('u1', 'm'), A('u2', 'm'), A('u2', 'd'), A('e', 'd')],
-	exposures: ['e'],
-	outcomes: ['d'],
-	adjusted: ['m']
-};
+// M-bias (reference/published-diagrams.ts), e ← u1 → m ← u2 → d, e → d, labels in capitals.
+const MBIAS = (() => {
+	const d = diagramOf(M_BIAS_LOWER_CASE, { title: 'M-bias', unmeasured: ['u1', 'u2'], adjusted: ['m'] });
+	return { ...d, variables: d.variables.map((v) => V(v.id, { measured: v.measured })) };
+})();
 
 function outcome<T>(run: () => T): { value: T } | { error: string } {
 	try {
@@ -202,7 +199,7 @@ describe('the diagram the fast reader returns', () => {
 		expect(Object.keys(d)).toEqual(['title', 'variables', 'arrows', 'exposures', 'outcomes', 'adjusted']);
 		expect(compileChecked(d)).toBe(read.graph);
 		expect(d.arrows.length).toBe(5);
-		expect(d.variables.map((v) => v.id)).toEqual(['u1', 'u2', 'e', 'm', 'd']);
+		expect(d.variables.map((v) => v.id)).toEqual(MBIAS.variables.map((v) => v.id)); // the file's order
 		expect(fullCalls()).toBe(0);
 		// A note on one arrow: the arrows come from the full reader, the plain variables still from the scan.
 		const noted = fastRead(bytes(file({ ...MBIAS, arrows: [A('u1', 'e', { note: 'why' }), ...MBIAS.arrows.slice(1)] })));

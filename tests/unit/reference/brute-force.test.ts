@@ -23,6 +23,7 @@ import {
 	rolesOracle
 } from './brute-force';
 import { randomDsepQuery } from './random-dag';
+import { PEARL_BACK_DOOR, variableIds } from './published-diagrams';
 
 /** Graph from "a->b" strings; `unmeasured` lists ids. Returns the graph and an id→index helper. */
 function graph(ids: string[], arrows: string[], unmeasured: string[] = []) {
@@ -133,10 +134,7 @@ describe('oracle: adjustment criterion on hand-made graphs', () => {
 	});
 	it('Pearl (2009) §3.3.1 eight-variable graph (reconstructed from memory): four minimal sets', () => {
 		// X1→X3→X, X1→X4←X2, X2→X5→Y, X4→X, X4→Y, X→X6→Y.
-		const { g, ix, sets } = graph(
-			['X1', 'X2', 'X3', 'X4', 'X5', 'X6', 'X', 'Y'],
-			['X1->X3', 'X1->X4', 'X2->X4', 'X2->X5', 'X3->X', 'X4->X', 'X4->Y', 'X5->Y', 'X->X6', 'X6->Y']
-		);
+		const { g, ix, sets } = graph(variableIds(PEARL_BACK_DOOR), [...PEARL_BACK_DOOR.arrows]);
 		const o = adjustmentOracle(g, ix('X'), ix('Y'));
 		expect(sets(o.minimalSets())).toEqual(['X1,X4', 'X2,X4', 'X3,X4', 'X4,X5']);
 		expect(o.isValid(ix('X4'))).toBe(false);

@@ -6,7 +6,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import type { AdjustmentCheck, AdjustmentReview, PathInfo } from '../../../src/lib/causal';
-import { emptyDiagram, type Diagram } from '../../../src/lib/graph/diagram';
+import type { Diagram } from '../../../src/lib/graph/diagram';
 import {
 	arrowTest,
 	claimSentence,
@@ -24,17 +24,13 @@ import {
 } from '../../../src/lib/wording';
 import { setsMarkdown } from '../../../src/lib/export/tables';
 import { braces, pathLine, problemText as cliProblemText } from '../../../src/lib/wording/command-line';
+import { diagramOf, M_BIAS, renamed, withArrows } from '../reference/published-diagrams';
 
-// M-bias with a back door: x ← c → y, x → y, x ← a → m ← b → y (Greenland 2003 for the m part).
+// M-bias (reference/published-diagrams.ts) with a back door: x ← a → m ← b → y, x → y, and x ← c → y.
 function diagram(): Diagram {
-	const d = emptyDiagram('t');
-	for (const [id, label] of [['x', 'Cycling'], ['y', 'Hypertension'], ['c', 'Age'], ['a', 'A'], ['b', 'B'], ['m', 'Panel']]) {
-		d.variables.push({ id, label, measured: true });
-	}
-	d.arrows = [['c', 'x'], ['c', 'y'], ['x', 'y'], ['a', 'x'], ['a', 'm'], ['b', 'm'], ['b', 'y']].map(([from, to]) => ({ from, to }));
-	d.exposures = ['x'];
-	d.outcomes = ['y'];
-	return d;
+	const mBias = renamed(M_BIAS, { X: 'x', Y: 'y', A: 'a', B: 'b', M: 'm' });
+	const labels = { x: 'Cycling', y: 'Hypertension', c: 'Age', a: 'A', b: 'B', m: 'Panel' };
+	return diagramOf(withArrows(mBias, ['c->x', 'c->y'], 'a measured common cause c added (ours)'), { title: 't', labels });
 }
 
 describe('one word per idea', () => {

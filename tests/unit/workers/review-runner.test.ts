@@ -10,25 +10,10 @@ import type { Diagram } from '../../../src/lib/graph/diagram';
 import { planRobustness, reviewAdjustment } from '../../../src/lib/causal';
 import { ReviewRunner } from '../../../src/lib/workers/review-client';
 import { runStress, type ReviewResult, type StressResult } from '../../../src/lib/workers/review-steps';
-import type { ReviewReply, ReviewRequest } from '../../../src/lib/workers/review-protocol';
+import { fakeWorkers } from './fake-worker';
+import type { ReviewJob } from '../../../src/lib/workers/review-steps';
 
 const demo = parseDiagramJson(readFileSync('static/demo/cycling-hypertension.causeway.json', 'utf8'));
-
-class FakeWorker {
-	posted: ReviewRequest[] = [];
-	terminated = false;
-	onmessage: ((e: MessageEvent<ReviewReply>) => void) | null = null;
-	onerror: ((e: ErrorEvent) => void) | null = null;
-	postMessage(m: ReviewRequest) {
-		this.posted.push(m);
-	}
-	terminate() {
-		this.terminated = true;
-	}
-	reply(r: ReviewReply) {
-		this.onmessage?.({ data: r } as MessageEvent<ReviewReply>);
-	}
-}
 
 describe('ReviewRunner', () => {
 	it('runs small diagrams on the main thread with the façade’s answers', () => {
@@ -49,25 +34,25 @@ describe('ReviewRunner', () => {
 	});
 
 	it('large diagrams go to the worker; progress and the latest result are relayed, stale ones dropped', () => {
-		const workers: FakeWorker[] = [];
+		const { workers, create } = fakeWorkers<ReviewJob, number, ReviewResult | StressResult>();
 		const done: StressResult[] = [];
 		const progress: number[] = [];
 		const runner = new ReviewRunner<StressResult>(
 			{ done: (r) => done.push(r), progress: (f) => progress.push(f), failed: (m) => expect.fail(m) },
-			{ mainThreadVariables: 5, createWorker: () => (workers.push(new FakeWorker()), workers.at(-1) as unknown as Worker) }
+			{ mainThreadVariables: 5, createWorker: create }
 		);
 		const d: Diagram = demo;
 		runner.run({ kind: 'stress', diagram: d, stated: d.adjusted });
 		expect(runner.busy).toBe(true);
 		const first = workers[0];
-		const firstId = first.posted[0].id;
+		const firstId = first.runs[0].id;
 		// A newer request terminates the busy worker and starts a fresh one.
 		runner.run({ kind: 'stress', diagram: d, stated: [] });
 		expect(first.terminated).toBe(true);
 		const second = workers[1];
-		const secondId = second.posted[0].id;
-		second.reply({ id: firstId, kind: 'progress', fraction: 0.9 });
-		second.reply({ id: secondId, kind: 'progress', fraction: 0.5 });
+		const secondId = second.runs[0].id;
+		second.reply({ id: firstId, kind: 'progress', progress: 0.9 });
+		second.reply({ id: secondId, kind: 'progress', progress: 0.5 });
 		const result = runStress(d, []);
 		second.reply({ id: secondId, kind: 'done', result, ms: 1 });
 		expect(progress).toEqual([0.5]);

@@ -6,7 +6,7 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { readFileSync } from 'node:fs';
-import { analyse } from '../../../src/lib/causal/analysis';
+import { analyse } from '../../../src/lib/causal';
 import { analyseSets, analyseVerdict, analyseVerdictFirst, analysisKeys, combine, DEFAULT_LIMITS, listClaims, runAnalysis, type AppAnalysis } from '../../../src/lib/workers/analysis-steps';
 import type { Diagram } from '../../../src/lib/graph/diagram';
 import { parseDiagramJson } from '../../../src/lib/graph/native-json';
