@@ -7,44 +7,45 @@
  */
 import { escapeXml as h } from './escape';
 import type { Block, ReportModel } from './report';
+import { palette } from '../palette';
 
 export const REPORT_CSP = "default-src 'none'; style-src 'unsafe-inline'; img-src data:; base-uri 'none'; form-action 'none'";
 
 const CSS = `
 :root { color-scheme: light; }
 * { box-sizing: border-box; }
-body { margin: 0; background: #f4f4f0; color: #1a1a1a; font: 15px/1.55 "Source Serif Pro", Georgia, "DejaVu Serif", serif; }
-main { max-width: 52rem; margin: 2rem auto; background: #fff; padding: 2.5rem 3rem 2rem; border: 1px solid #d6d6d0; }
-header { border-bottom: 2px solid #1a1a1a; margin-bottom: 1.5rem; padding-bottom: 0.8rem; }
+body { margin: 0; background: ${palette.page}; color: ${palette.text}; font: 15px/1.55 "Source Serif Pro", Georgia, "DejaVu Serif", serif; }
+main { max-width: 52rem; margin: 2rem auto; background: ${palette.surface}; padding: 2.5rem 3rem 2rem; border: 1px solid ${palette.ruleSoft}; }
+header { border-bottom: 2px solid ${palette.text}; margin-bottom: 1.5rem; padding-bottom: 0.8rem; }
 h1 { font: 700 1.7rem/1.25 Arial, "Liberation Sans", Helvetica, sans-serif; margin: 0 0 0.3rem; }
-.meta { font: 0.85rem Arial, "Liberation Sans", Helvetica, sans-serif; color: #4a4a4a; margin: 0; }
-h2 { font: 700 1.15rem/1.3 Arial, "Liberation Sans", Helvetica, sans-serif; margin: 2rem 0 0.6rem; padding-top: 0.4rem; border-top: 1px solid #d6d6d0; }
-h2 .num { color: #005a8c; margin-right: 0.4rem; }
+.meta { font: 0.85rem Arial, "Liberation Sans", Helvetica, sans-serif; color: ${palette.hint}; margin: 0; }
+h2 { font: 700 1.15rem/1.3 Arial, "Liberation Sans", Helvetica, sans-serif; margin: 2rem 0 0.6rem; padding-top: 0.4rem; border-top: 1px solid ${palette.ruleSoft}; }
+h2 .num { color: ${palette.accentText}; margin-right: 0.4rem; }
 h3 { font: 700 0.98rem Arial, "Liberation Sans", Helvetica, sans-serif; margin: 1.2rem 0 0.4rem; }
 p { margin: 0.5rem 0; }
 ul { margin: 0.4rem 0; padding-left: 1.3rem; }
 li { margin: 0.25rem 0; }
 table { border-collapse: collapse; width: 100%; margin: 0.6rem 0; font: 0.86rem/1.4 Arial, "Liberation Sans", Helvetica, sans-serif; }
-th, td { text-align: left; vertical-align: top; padding: 0.35rem 0.5rem; border-bottom: 1px solid #dcdcd6; }
-thead th { border-bottom: 1.5px solid #1a1a1a; font-weight: 700; }
+th, td { text-align: left; vertical-align: top; padding: 0.35rem 0.5rem; border-bottom: 1px solid ${palette.tableRule}; }
+thead th { border-bottom: 1.5px solid ${palette.text}; font-weight: 700; }
 td.num, th.num { text-align: right; font-variant-numeric: tabular-nums; white-space: nowrap; }
 table.facts th { width: 12rem; font-weight: 700; }
-caption { text-align: left; font-style: italic; color: #333; padding-bottom: 0.3rem; }
-pre.code { font: 0.78rem/1.4 "DejaVu Sans Mono", Menlo, Consolas, monospace; background: #f7f7f4; border: 1px solid #d6d6d0; padding: 0.7rem 0.9rem; overflow-x: auto; white-space: pre; }
+caption { text-align: left; font-style: italic; color: ${palette.textSoft}; padding-bottom: 0.3rem; }
+pre.code { font: 0.78rem/1.4 "DejaVu Sans Mono", Menlo, Consolas, monospace; background: ${palette.control}; border: 1px solid ${palette.ruleSoft}; padding: 0.7rem 0.9rem; overflow-x: auto; white-space: pre; }
 figure { margin: 1rem -2rem; text-align: center; break-inside: avoid; page-break-inside: avoid; }
 figcaption { margin-left: 2rem; margin-right: 2rem; }
 figure svg { max-width: 100%; height: auto; }
-figcaption { font: 0.85rem/1.45 Arial, "Liberation Sans", Helvetica, sans-serif; color: #333; text-align: left; margin-top: 0.5rem; }
+figcaption { font: 0.85rem/1.45 Arial, "Liberation Sans", Helvetica, sans-serif; color: ${palette.textSoft}; text-align: left; margin-top: 0.5rem; }
 .verdict { border-left: 5px solid; padding: 0.6rem 0.9rem; margin: 0.6rem 0; font-weight: 600; }
-.verdict.ok { border-color: #0072b2; background: #eef5fa; }
-.verdict.bad { border-color: #d55e00; background: #fdf1ea; }
+.verdict.ok { border-color: ${palette.accent}; background: ${palette.info}; }
+.verdict.bad { border-color: ${palette.warning}; background: ${palette.warningSurface}; }
 .verdict strong { display: block; font: 700 0.8rem Arial, "Liberation Sans", Helvetica, sans-serif; letter-spacing: 0.04em; text-transform: uppercase; }
-.draft { border: 1px dashed #8a8a8a; background: #fbfbf7; padding: 0.8rem 1rem; margin: 0.6rem 0; }
-.hint { font: italic 0.85rem Arial, "Liberation Sans", Helvetica, sans-serif; color: #4a4a4a; }
-footer { margin-top: 2rem; font: 0.8rem Arial, "Liberation Sans", Helvetica, sans-serif; color: #4a4a4a; }
+.draft { border: 1px dashed ${palette.border}; background: ${palette.draft}; padding: 0.8rem 1rem; margin: 0.6rem 0; }
+.hint { font: italic 0.85rem Arial, "Liberation Sans", Helvetica, sans-serif; color: ${palette.hint}; }
+footer { margin-top: 2rem; font: 0.8rem Arial, "Liberation Sans", Helvetica, sans-serif; color: ${palette.hint}; }
 @media print {
   @page { margin: 18mm 16mm; }
-  body { background: #fff; font-size: 10.5pt; }
+  body { background: ${palette.surface}; font-size: 10.5pt; }
   main { margin: 0; padding: 0; border: 0; max-width: none; }
   h2, h3 { break-after: avoid; page-break-after: avoid; }
   tr, li, .verdict { break-inside: avoid; page-break-inside: avoid; }
@@ -129,7 +130,7 @@ export function figurePageHtml(title: string, svg: string): string {
 <meta http-equiv="Content-Security-Policy" content="${REPORT_CSP}">
 <title>${h(title)}</title>
 <style>
-body { margin: 0; padding: 12mm; background: #fff; }
+body { margin: 0; padding: 12mm; background: ${palette.surface}; }
 svg { max-width: 100%; height: auto; display: block; margin: 0 auto; }
 @media print { @page { margin: 12mm; size: landscape; } body { padding: 0; } svg { max-height: 180mm; } }
 </style>

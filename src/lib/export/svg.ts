@@ -3,8 +3,8 @@
  * text as text (searchable, selectable, editable in a drawing program), a font stack with a
  * generic fallback, every label XML-escaped, role badges under the names and a legend.
  *
- * Visual language (DESIGN.md): exposure orange #E69F00 fill, outcome reddish purple #CC79A7
- * fill (Okabe & Ito 2008), unmeasured dashed outline with grey name, planned (adjusted)
+ * Visual language (DESIGN.md): exposure orange fill, outcome reddish purple fill (Okabe & Ito
+ * 2008; the values are in src/lib/palette.ts), unmeasured dashed outline with grey name, planned (adjusted)
  * variables inside a square box; roles are written as text, never shown by colour alone.
  * The black-and-white style drops the fills (exposure and outcome keep their bold names and
  * badges) for journals that print in greyscale. O(n + m).
@@ -13,6 +13,7 @@ import type { Diagram } from '../graph/diagram';
 import type { VariableRoles } from '../causal';
 import { BADGE_MEANING } from '../wording';
 import { escapeXml } from './escape';
+import { palette } from '../palette';
 import { BADGE_PX, badgeLine, figureOf, LABEL_PX, LINE_GAP, PLANNED_OFFSET, type Figure, type FigureNode, type FigureOptions } from './figure';
 import { arialWidth, FIGURE_FONT_STACK } from './text-width';
 
@@ -25,10 +26,12 @@ export interface SvgOptions extends FigureOptions {
 	description?: string;
 }
 
-const INK = '#1a1a1a';
-const GREY = '#575757';
-const ARROW = '#3b3b3b';
-const FILL = { exposure: '#E69F00', outcome: '#CC79A7' } as const;
+const INK = palette.text;
+const GREY = palette.unmeasured;
+const ARROW = palette.arrow;
+const FILL = { exposure: palette.exposure, outcome: palette.outcome } as const;
+const PAPER = palette.surface;
+const BLACK = palette.monoInk;
 const MARGIN = 16;
 const LEGEND_PX = 11;
 
@@ -43,9 +46,9 @@ interface Ink {
 }
 
 function inkFor(mono: boolean): Ink {
-	if (mono) return { fill: () => '#ffffff', label: () => '#000000', border: () => '#000000', arrow: '#000000' };
+	if (mono) return { fill: () => PAPER, label: () => BLACK, border: () => BLACK, arrow: BLACK };
 	return {
-		fill: (n) => (n.exposure ? FILL.exposure : n.outcome ? FILL.outcome : '#ffffff'),
+		fill: (n) => (n.exposure ? FILL.exposure : n.outcome ? FILL.outcome : PAPER),
 		// An unmeasured exposure or outcome keeps dark ink on its fill, for contrast.
 		label: (n) => (n.unmeasured && !n.exposure && !n.outcome ? GREY : INK),
 		border: (n) => (n.unmeasured ? GREY : INK),
@@ -66,7 +69,7 @@ function nodeSvg(n: FigureNode, ink: Ink, mono: boolean): string {
 	);
 	if (n.planned) {
 		const o = PLANNED_OFFSET;
-		parts.push(`<rect x="${n2(left - o)}" y="${n2(top - o)}" width="${n2(n.w + 2 * o)}" height="${n2(n.h + 2 * o)}" fill="none" stroke="${mono ? '#000000' : INK}" stroke-width="2"/>`);
+		parts.push(`<rect x="${n2(left - o)}" y="${n2(top - o)}" width="${n2(n.w + 2 * o)}" height="${n2(n.h + 2 * o)}" fill="none" stroke="${mono ? BLACK : INK}" stroke-width="2"/>`);
 	}
 	const blockH = n.lines.length * LABEL_PX * LINE_GAP + (n.badges.length ? BADGE_PX * LINE_GAP : 0);
 	let baseline = n.y - blockH / 2 + LABEL_PX * LINE_GAP * 0.5 + LABEL_PX * 0.35;
@@ -80,7 +83,7 @@ function nodeSvg(n: FigureNode, ink: Ink, mono: boolean): string {
 	parts.push(`<text text-anchor="middle" font-size="${LABEL_PX}" fill="${ink.label(n)}"${weight}${style}>${tspans.join('')}</text>`);
 	if (n.badges.length) {
 		const y = baseline - LABEL_PX * LINE_GAP + (LABEL_PX + BADGE_PX) * LINE_GAP * 0.5 - BADGE_PX * 0.05;
-		parts.push(`<text x="${n2(n.x)}" y="${n2(y)}" text-anchor="middle" font-size="${BADGE_PX}" font-style="italic" fill="${mono ? '#000000' : '#333333'}">${escapeXml(badgeLine(n.badges))}</text>`);
+		parts.push(`<text x="${n2(n.x)}" y="${n2(y)}" text-anchor="middle" font-size="${BADGE_PX}" font-style="italic" fill="${mono ? BLACK : palette.textSoft}">${escapeXml(badgeLine(n.badges))}</text>`);
 	}
 	return `<g class="variable" data-id="${escapeXml(n.id)}">${parts.join('')}</g>`;
 }
@@ -95,15 +98,15 @@ interface LegendPart {
 function legendSvg(fig: Figure, ink: Ink, mono: boolean, maxWidth: number): LegendPart {
 	const keys: { draw: (x: number, y: number) => string; text: string; w: number }[] = [];
 	const swatch = (fill: string, opts: { dash?: boolean; boxed?: boolean; bold?: boolean } = {}) => (x: number, y: number) => {
-		const r = `<rect x="${n2(x)}" y="${n2(y - 8)}" width="22" height="14" rx="${opts.boxed ? 0 : 3}" fill="${fill}" stroke="${opts.dash && !mono ? GREY : mono ? '#000000' : INK}" stroke-width="${opts.bold ? 2.5 : 1.5}"${opts.dash ? ' stroke-dasharray="4 3"' : ''}/>`;
-		const outer = opts.boxed ? `<rect x="${n2(x - 3)}" y="${n2(y - 11)}" width="28" height="20" fill="none" stroke="${mono ? '#000000' : INK}" stroke-width="1.5"/>` : '';
+		const r = `<rect x="${n2(x)}" y="${n2(y - 8)}" width="22" height="14" rx="${opts.boxed ? 0 : 3}" fill="${fill}" stroke="${opts.dash && !mono ? GREY : mono ? BLACK : INK}" stroke-width="${opts.bold ? 2.5 : 1.5}"${opts.dash ? ' stroke-dasharray="4 3"' : ''}/>`;
+		const outer = opts.boxed ? `<rect x="${n2(x - 3)}" y="${n2(y - 11)}" width="28" height="20" fill="none" stroke="${mono ? BLACK : INK}" stroke-width="1.5"/>` : '';
 		return r + outer;
 	};
 	const has = (p: (n: FigureNode) => boolean) => fig.nodes.some(p);
-	if (has((n) => n.exposure)) keys.push({ draw: swatch(mono ? '#ffffff' : FILL.exposure, { bold: mono }), text: mono ? 'exposure (bold name)' : 'exposure', w: 0 });
-	if (has((n) => n.outcome)) keys.push({ draw: swatch(mono ? '#ffffff' : FILL.outcome, { bold: mono }), text: mono ? 'outcome (bold name)' : 'outcome', w: 0 });
-	if (has((n) => n.unmeasured)) keys.push({ draw: swatch('#ffffff', { dash: true }), text: 'unmeasured (dashed, italic name)', w: 0 });
-	if (has((n) => n.planned)) keys.push({ draw: swatch('#ffffff', { boxed: true }), text: 'adjusted for (planned set; boxed)', w: 0 });
+	if (has((n) => n.exposure)) keys.push({ draw: swatch(mono ? PAPER : FILL.exposure, { bold: mono }), text: mono ? 'exposure (bold name)' : 'exposure', w: 0 });
+	if (has((n) => n.outcome)) keys.push({ draw: swatch(mono ? PAPER : FILL.outcome, { bold: mono }), text: mono ? 'outcome (bold name)' : 'outcome', w: 0 });
+	if (has((n) => n.unmeasured)) keys.push({ draw: swatch(PAPER, { dash: true }), text: 'unmeasured (dashed, italic name)', w: 0 });
+	if (has((n) => n.planned)) keys.push({ draw: swatch(PAPER, { boxed: true }), text: 'adjusted for (planned set; boxed)', w: 0 });
 	keys.push({ draw: (x, y) => `<line x1="${n2(x)}" y1="${n2(y - 1)}" x2="${n2(x + 20)}" y2="${n2(y - 1)}" stroke="${ink.arrow}" stroke-width="1.6" marker-end="url(#cw-arrowhead)"/>`, text: 'assumed direct effect', w: 0 });
 	for (const k of keys) k.w = 30 + arialWidth(k.text, LEGEND_PX) + 18;
 	const out: string[] = [];
@@ -114,7 +117,7 @@ function legendSvg(fig: Figure, ink: Ink, mono: boolean, maxWidth: number): Lege
 			x = 0;
 			y += 22;
 		}
-		out.push(k.draw(x + 3, y), `<text x="${n2(x + 32)}" y="${n2(y + 3)}" font-size="${LEGEND_PX}" fill="${mono ? '#000000' : INK}">${escapeXml(k.text)}</text>`);
+		out.push(k.draw(x + 3, y), `<text x="${n2(x + 32)}" y="${n2(y + 3)}" font-size="${LEGEND_PX}" fill="${mono ? BLACK : INK}">${escapeXml(k.text)}</text>`);
 		x += k.w;
 	}
 	let width = Math.max(...keys.map((k) => k.w));
@@ -123,7 +126,7 @@ function legendSvg(fig: Figure, ink: Ink, mono: boolean, maxWidth: number): Lege
 	for (const [badge, meaning] of meanings) {
 		y += 16;
 		out.push(
-			`<text x="0" y="${n2(y + 3)}" font-size="${LEGEND_PX}" fill="${mono ? '#000000' : INK}"><tspan font-style="italic">${escapeXml(badge)}</tspan>: ${escapeXml(meaning)}</text>`
+			`<text x="0" y="${n2(y + 3)}" font-size="${LEGEND_PX}" fill="${mono ? BLACK : INK}"><tspan font-style="italic">${escapeXml(badge)}</tspan>: ${escapeXml(meaning)}</text>`
 		);
 		width = Math.max(width, arialWidth(`${badge}: ${meaning}`, LEGEND_PX));
 	}
@@ -160,7 +163,7 @@ export function writeSvg(d: Diagram, roles: readonly VariableRoles[], opts: SvgO
 <title id="cw-title">${escapeXml(title)}</title>
 <desc id="cw-desc">${escapeXml(opts.description ?? defaultDescription(d))}</desc>
 <defs><marker id="cw-arrowhead" viewBox="0 0 10 8" refX="10" refY="4" markerUnits="userSpaceOnUse" markerWidth="10" markerHeight="8" orient="auto"><path d="M0,0 L10,4 L0,8 z" fill="${ink.arrow}"/></marker></defs>
-<rect width="100%" height="100%" fill="#ffffff"/>
+<rect width="100%" height="100%" fill="${PAPER}"/>
 <g transform="translate(${n2(dx)} ${n2(dy)})">
 <g class="arrows" stroke="${ink.arrow}" stroke-width="1.6" marker-end="url(#cw-arrowhead)">
 ${arrows}

@@ -5,17 +5,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { COLOURS } from '../../../src/lib/ui/canvas/style';
-
-function luminance(hex: string): number {
-	const [r, g, b] = [1, 3, 5].map((i) => parseInt(hex.slice(i, i + 2), 16) / 255);
-	const lin = (c: number) => (c <= 0.03928 ? c / 12.92 : ((c + 0.055) / 1.055) ** 2.4);
-	return 0.2126 * lin(r) + 0.7152 * lin(g) + 0.0722 * lin(b);
-}
-
-function contrast(a: string, b: string): number {
-	const [hi, lo] = [luminance(a), luminance(b)].sort((x, y) => y - x);
-	return (hi + 0.05) / (lo + 0.05);
-}
+import { contrast } from '../wcag-contrast';
 
 describe('canvas label contrast (WCAG 2.1 AA, 4.5:1)', () => {
 	it('matches the published examples of the formula', () => {

@@ -3,6 +3,7 @@
  * onto a canvas at the chosen scale (no library: the browser's own SVG renderer is the best
  * rasteriser available here, and the text is drawn with the fonts the SVG names).
  */
+import { palette } from '../../palette';
 
 /** Largest canvas side Chromium, Firefox and Safari all accept. */
 export const MAX_CANVAS_SIDE = 16_384;
@@ -31,7 +32,7 @@ export async function svgToPng(svg: string, scale: number): Promise<Blob> {
 		canvas.height = h;
 		const ctx = canvas.getContext('2d');
 		if (!ctx) throw new Error('this browser gave no canvas to draw on');
-		ctx.fillStyle = '#ffffff';
+		ctx.fillStyle = palette.surface;
 		ctx.fillRect(0, 0, w, h);
 		ctx.drawImage(img, 0, 0, w, h);
 		return await new Promise<Blob>((resolve, reject) => canvas.toBlob((b) => (b ? resolve(b) : reject(new Error('the browser could not encode the PNG'))), 'image/png'));
