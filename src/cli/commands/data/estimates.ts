@@ -5,7 +5,7 @@
  * Same pipeline as the app's data pane.
  */
 import { InputError } from '../../../lib/graph/errors';
-import { own } from '../../../lib/stats/own';
+import { own } from '../../../lib/stats';
 import { braces } from '../../../lib/datacheck';
 import { DATA_VIEW_TEXT, formatCi, formatCount, formatNumber, formatPercent } from '../../../lib/wording';
 import { QUESTION, QUESTION_HELP } from '../../command';
