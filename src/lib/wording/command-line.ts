@@ -16,10 +16,28 @@ export function pathText(nodes: readonly string[], arrows?: ArrowTest): string {
 	return arrows ? pathWords(nodes, arrows, idAsLabel) : nodes.join(' – ');
 }
 
+/**
+ * One problem of a planned set: "m is a mediator …", or "open back-door path: x ← c → y" (a
+ * back-door path when it starts with an arrow into the exposure, else a non-causal path, as
+ * the app and the other views name it).
+ */
 export function problemText(p: AdjustmentProblem, arrows: ArrowTest): string {
 	if (p.kind === 'forbidden') return `${p.variable} ${FORBIDDEN_WHY[p.why]}`;
-	return `open non-causal path: ${pathText(p.path, arrows)}`;
+	return `open ${pathKindWords({ nodes: p.path, causal: false }, arrows)}: ${pathText(p.path, arrows)}`;
 }
+
+/**
+ * `causeway review verdict` in text: "Adjusting for {a, b} is sufficient to estimate the
+ * total effect." or "… is NOT sufficient …:" followed by one "  - " line per problem. O(total
+ * path length).
+ */
+export function quickVerdictLines(check: { adjusted: readonly string[]; valid: boolean; problems: readonly AdjustmentProblem[] }, arrows: ArrowTest): string[] {
+	const head = `Adjusting for ${braces(check.adjusted)} ${check.valid ? 'is sufficient to estimate the total effect.' : 'is NOT sufficient to estimate the total effect:'}`;
+	return [head, ...check.problems.map((p) => `  - ${problemText(p, arrows)}`)];
+}
+
+/** "Note: …" under a verdict (e.g. an exposure marked unmeasured). */
+export const noteLine = (note: string): string => `Note: ${note}`;
 
 export const ROLE_TEXT = ROLE_NAME;
 

@@ -1,10 +1,9 @@
 /** `causeway plan paths`: every exposure–outcome path, causal or not, open or blocked under the planned set. */
 import { exposureOutcomePaths } from '../../../lib/causal';
-import { pathCountSentence } from '../../../lib/wording';
+import { pathCountSentence, countText } from '../../../lib/wording';
 import { arrowTest } from '../../../lib/wording/names';
 import { pathLine } from '../../../lib/wording/command-line';
 import { QUESTION, QUESTION_HELP, type Command } from '../../command';
-import { counted } from '../../words';
 
 export const paths: Command = {
 	usage: 'causeway plan paths DIAGRAM [--adjust a,b] [--max N] [--exposure …] [--outcome …] [--json]',
@@ -29,7 +28,7 @@ ${QUESTION_HELP}
 		for (const p of r.paths) ctx.print(pathLine(p, arrows));
 		if (r.paths.length === 0) ctx.print('No path joins the exposure and the outcome.');
 		else ctx.print(pathCountSentence(r.openNonCausal));
-		if (r.truncated) ctx.print(`… stopped after ${counted(r.paths.length, 'path')} (--max); more exist`);
+		if (r.truncated) ctx.print(`… stopped after ${countText(r.paths.length, 'path')} (--max); more exist`);
 		return 0;
 	}
 };

@@ -1,8 +1,7 @@
 /** `causeway review robustness`: which single change to the diagram would break the planned set. */
 import { planRobustness, setsRobustToAdditions } from '../../../lib/causal';
-import { setWords, weaknessWords } from '../../../lib/wording';
+import { setWords, weaknessWords, countText } from '../../../lib/wording';
 import { QUESTION, QUESTION_HELP, type Command } from '../../command';
-import { counted } from '../../words';
 
 const id = (x: string) => x;
 
@@ -34,13 +33,13 @@ ${QUESTION_HELP}
 			return 1;
 		}
 		const t = r.tried;
-		ctx.print(`Planned set ${setWords(r.adjusted, id)}: tried ${counted(t.additions, 'added arrow')}, ${counted(t.reversals, 'reversal')} and ${counted(t.unmeasured, 'unmeasured variable')} (${counted(t.deletions, 'deletion')} cannot break it).`);
+		ctx.print(`Planned set ${setWords(r.adjusted, id)}: tried ${countText(t.additions, 'added arrow')}, ${countText(t.reversals, 'reversal')} and ${countText(t.unmeasured, 'unmeasured variable')} (${countText(t.deletions, 'deletion')} cannot break it).`);
 		const structural = r.weaknesses.filter((w) => w.failure !== 'unmeasured').length;
-		ctx.print(structural === 0 ? 'No single added or reversed arrow breaks it.' : `${counted(structural, 'single arrow change')} would break it, most direct first:`);
+		ctx.print(structural === 0 ? 'No single added or reversed arrow breaks it.' : `${countText(structural, 'single arrow change')} would break it, most direct first:`);
 		const shown = r.weaknesses.slice(0, max ?? 25);
 		for (const w of shown) ctx.print(`  - ${weaknessWords(w, d.arrows, id)}`);
 		if (shown.length < r.weaknesses.length) ctx.print(`  … ${r.weaknesses.length - shown.length} more (--max, or --json for all)`);
-		const how = robustSets.exhaustive ? 'among all sets' : `among ${counted(robustSets.tried, 'candidate set')} (minimal, optimal, largest)`;
+		const how = robustSets.exhaustive ? 'among all sets' : `among ${countText(robustSets.tried, 'candidate set')} (minimal, optimal, largest)`;
 		if (robustSets.sets.length === 0) ctx.print(`No sufficient set survives every single added arrow (${how}).`);
 		else ctx.print(`Sufficient sets that survive every single added arrow (${how}): ${robustSets.sets.map((s) => setWords(s, id)).join(', ')}`);
 		return 0;
