@@ -12,6 +12,7 @@ import {
 	CONFOUNDER_CHECK_INTRO,
 	formatCi,
 	formatNumber as formatReadable,
+	formatP,
 	formatPercent,
 	listNames,
 	MISSING,
@@ -25,12 +26,8 @@ import type { ReportCode, ReportDataResults, ReportStandardized } from './report
 
 /** Numbers for display: the app's format (three significant digits, never e-notation). */
 export const formatNumber = (x: number | null | undefined): string => formatReadable(x);
-
-/** p-values: three decimals, below 0.001 as "< 0.001". */
-export function formatP(p: number | null | undefined): string {
-	if (p === null || p === undefined || !Number.isFinite(p)) return MISSING;
-	return p < 0.001 ? '< 0.001' : p.toFixed(3);
-}
+/** p-values as the app and the command line write them (two significant digits, "< 0.001"). */
+export { formatP };
 
 const given = (x: number | null | undefined): x is number => x !== null && x !== undefined && Number.isFinite(x);
 

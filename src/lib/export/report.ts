@@ -10,7 +10,7 @@ import type { Diagram } from '../graph/diagram';
 import { validateDiagram } from '../graph/validate';
 import { adjustmentSets, checkAdjustment, variableRoles } from '../causal';
 import type { AdjustmentCheck, AdjustmentSets, Role, VariableRoles } from '../causal';
-import { ROLE_NAME } from '../wording';
+import { MISSING, ROLE_NAME } from '../wording';
 import { BADGE_MEANING, labelLookup, listNames, optimalSetSentence, pathText, problemText, setText, unmeasuredQuestionNote, verdictSentence, type LabelOf } from '../wording';
 import { criticalAbsentArrows, withPlannedReasons, type AbsentArrowReport } from '../causal';
 import type { ReportDataResults } from './report-data';
@@ -249,7 +249,7 @@ export function buildReport(input: ReportInput): ReportModel {
 						if (d.exposures.includes(v.id)) words.push('exposure');
 						if (d.outcomes.includes(v.id)) words.push('outcome');
 					}
-					return [v.label, v.id, v.measured ? 'yes' : 'no', words.join(', ') || '–', d.adjusted.includes(v.id) ? 'yes' : 'no', v.note ?? '', ...(settings ? [settings.cell(v.id)] : [])];
+					return [v.label, v.id, v.measured ? 'yes' : 'no', words.join(', ') || MISSING, d.adjusted.includes(v.id) ? 'yes' : 'no', v.note ?? '', ...(settings ? [settings.cell(v.id)] : [])];
 				})
 			}
 		]

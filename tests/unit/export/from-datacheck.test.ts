@@ -122,7 +122,7 @@ describe('data results from the data-check pipeline', () => {
 		const md = reportMarkdown(buildReport({ diagram: d, data, date: new Date(2026, 2, 1) }));
 		expect(md).toContain('| Variable | Column | Analysed as | Reference level |');
 		expect(md).toContain('| Commutes by bicycle | cycling | binary (detected) | 0 |');
-		expect(md).toContain('| Age | age | continuous (detected) | – |');
+		expect(md).toContain('| Age | age | continuous (detected) | — |');
 		expect(data.columns).toHaveLength(12);
 	});
 
