@@ -81,6 +81,14 @@ export function groupThousands(n: number): string {
 	return (n < 0 && numeral !== '0' ? MINUS : '') + groupDigits(numeral);
 }
 
+/**
+ * A short label for a plot's axis tick: three significant digits like every estimate, never
+ * e-notation ("100,000", "0.00012"), the true minus sign. O(1).
+ */
+export function axisTickText(x: number): string {
+	return formatNumber(x, 3);
+}
+
 /** A count: "1,234". */
 export function formatCount(n: number): string {
 	return groupThousands(n);
