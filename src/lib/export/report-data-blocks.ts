@@ -10,6 +10,7 @@
 import {
 	collapsibilitySentence,
 	CONFOUNDER_CHECK_INTRO,
+	countText,
 	formatCi,
 	formatNumber as formatReadable,
 	formatP,
@@ -158,7 +159,7 @@ export function dataBlocks(data: ReportDataResults, label: LabelOf): Block[] {
 	const blocks: Block[] = [];
 	const s = data.source;
 	if (s && (s.name || s.rows !== undefined)) {
-		const parts = [s.name ? `Data: ${s.name}` : 'Data', s.rows !== undefined ? `${s.rows} rows` : '', s.columns !== undefined ? `${s.columns} columns` : ''].filter(Boolean);
+		const parts = [s.name ? `Data: ${s.name}` : 'Data', s.rows !== undefined ? countText(s.rows, 'row') : '', s.columns !== undefined ? countText(s.columns, 'column') : ''].filter(Boolean);
 		blocks.push({ kind: 'paragraph', text: `${parts.join(', ')}.` });
 	}
 	blocks.push(...reproducibilityBlocks(data, label));

@@ -4,6 +4,7 @@ import { CLI_MAX_CLAIM_PAIRS } from '../../../lib/limits';
 import type { Command } from '../../command';
 import { UsageError } from '../../io';
 import { countText, formatCount } from '../../../lib/wording';
+import { claimLine, NO_CLAIMS } from '../../../lib/wording/command-line';
 
 export const claims: Command = {
 	usage: 'causeway diagram [claims] DIAGRAM [--max N] [--json]',
@@ -30,14 +31,8 @@ ${formatCount(CLI_MAX_CLAIM_PAIRS)} pairs (about 3,160 variables); a larger diag
 			ctx.printJson({ claims: list });
 			return 0;
 		}
-		for (const c of list) {
-			ctx.print(
-				c.given === null
-					? `${c.a} and ${c.b}: not adjacent, but no set of measured variables makes them independent`
-					: `${c.a} ⟂ ${c.b}${c.given.length ? ` | ${c.given.join(', ')}` : ''}`
-			);
-		}
-		if (list.length === 0) ctx.print('The diagram implies no independence between measured variables.');
+		for (const c of list) ctx.print(claimLine(c));
+		if (list.length === 0) ctx.print(NO_CLAIMS);
 		return 0;
 	}
 };

@@ -1,8 +1,8 @@
 /** `causeway plan sets` (the plan's default view): the minimal sufficient adjustment sets. */
 import { adjustmentSets, type Effect } from '../../../lib/causal';
 import { CLI_DEFAULT_LISTED_SETS } from '../../../lib/limits';
-import { optimalSetSentence, unmeasuredQuestionNote, countText, formatCount } from '../../../lib/wording';
-import { braces } from '../../../lib/wording/command-line';
+import { formatCount, optimalSetSentence, unmeasuredQuestionNote } from '../../../lib/wording';
+import { braces, noteLine, setsHeader, stoppedLine } from '../../../lib/wording/command-line';
 import { QUESTION, QUESTION_HELP, type Command } from '../../command';
 import { UsageError } from '../../io';
 
@@ -32,18 +32,14 @@ ${QUESTION_HELP}
 			ctx.printJson({ exposures, outcomes, effect: r.effect, identifiable, sets, truncated, max, optimal, minimum });
 			return 0;
 		}
-		const what = `${r.effect} effect of ${r.exposures.join(', ')} on ${r.outcomes.join(', ')}`;
-		if (!r.identifiable) {
-			ctx.print(`The ${what} cannot be identified by adjustment: no set of measured variables is sufficient.`);
-			return 0;
-		}
-		ctx.print(`Minimal sufficient adjustment sets for the ${what} (at most ${formatCount(max)} listed; --max N to change):`);
+		ctx.print(setsHeader(r, max));
+		if (!r.identifiable) return 0;
 		for (const s of r.sets) ctx.print(`  ${braces(s)}`);
-		if (r.truncated) ctx.print(`  … stopped after ${countText(r.sets.length, 'set')} (the cap, --max ${max}); more exist`);
+		if (r.truncated) ctx.print(`  ${stoppedLine(r.sets.length, 'set', `the cap, --max ${max}`)}`);
 		if (r.minimum) ctx.print(`Smallest set: ${braces(r.minimum)}`);
 		if (r.effect === 'total') ctx.print(optimalSetSentence(r, braces).replace(/\.$/, ''));
 		const note = unmeasuredQuestionNote(d, (id) => id, r.exposures, r.outcomes);
-		if (note) ctx.print(`Note: ${note}`);
+		if (note) ctx.print(noteLine(note));
 		return 0;
 	}
 };
