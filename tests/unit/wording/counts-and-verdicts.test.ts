@@ -10,6 +10,14 @@ import type { AdjustmentReview, PlanWeakness, ReviewReason } from '../../../src/
 import {
 	axisTickText,
 	countText,
+	dataChecksDoneText,
+	dataSummaryText,
+	droppableText,
+	instrumentText,
+	nearestChangeText,
+	nearestText,
+	openedDiagramText,
+	optimalAdviceText,
 	eValueText,
 	formatCount,
 	formatNumber,
@@ -149,5 +157,37 @@ describe('the E-value sentence', () => {
 		expect(eValueText({ point: 1.8812, ciBound: 1.3411 })).toBe('E-value of the planned estimate: 1.88; for the CI limit nearer to no effect: 1.34');
 		expect(eValueText({ point: 3.9, ciBound: null })).toBe('E-value of the planned estimate: 3.9');
 		expect(eValueText({ point: 123456, ciBound: null })).not.toMatch(/e[+-]?\d/);
+	});
+});
+
+describe('the Data section and the opened-diagram message count with their nouns', () => {
+	it('"1 of 1 arrow", "0 of 3 claims", "1,000 variables"', () => {
+		expect(dataChecksDoneText(1, 1, 0, 3, true)).toBe('Data checks done: 1 of 1 arrow supported, 0 of 3 claims contradicted, estimates ready.');
+		expect(dataSummaryText(1, 1, null)).toBe('1/1 arrow supported · claims…');
+		expect(dataSummaryText(3, 12, 1)).toBe('3/12 arrows supported · 1 contradicted');
+		expect(openedDiagramText('chain.json', 1000, 999)).toBe('Opened chain.json: 1,000 variables, 999 arrows.');
+		expect(openedDiagramText('one.json', 1, 0)).toBe('Opened one.json: 1 variable, 0 arrows.');
+	});
+});
+
+describe("the reviewer's fixes, shared by causeway review and the Review section", () => {
+	it('one droppable member is not "each of"', () => {
+		expect(droppableText(['age'], idAsLabel)).toBe('age could be dropped without harm.');
+		expect(droppableText(['age', 'diet'], idAsLabel)).toBe('Each of age and diet could be dropped alone without harm.');
+		expect(droppableText([], idAsLabel)).toBe('No member can be dropped without losing sufficiency.');
+	});
+
+	it('the nearest set: what changes, and the scope of a stopped search with its noun', () => {
+		const n = { set: ['age'], add: ['age'], drop: ['bmi', 'panel'], truncated: true, scanned: 1 };
+		expect(nearestChangeText(n, idAsLabel)).toBe('add age; drop bmi and panel');
+		expect(nearestText(n, idAsLabel)).toBe('Nearest minimal sufficient set: {age} (add age; drop bmi and panel) (among the first 1 minimal set).');
+		expect(nearestChangeText({ add: [], drop: [] }, idAsLabel)).toBe('the stated set itself');
+	});
+
+	it('instruments and the efficiency-optimal set', () => {
+		expect(instrumentText({ variable: 'distance', given: [] }, idAsLabel)).toBe('distance (no conditioning needed)');
+		expect(instrumentText({ variable: 'distance', given: ['age', 'income'] }, idAsLabel)).toBe('distance, given age and income');
+		expect(optimalAdviceText(['age'], false, idAsLabel)).toBe('Efficiency-optimal set (Henckel et al. 2022): {age}.');
+		expect(optimalAdviceText([], false, idAsLabel)).toBe('Efficiency-optimal set (Henckel et al. 2022): { }.');
 	});
 });
