@@ -18,7 +18,7 @@ removed and reversed, how the minimal sufficient sets change, and whether the fi
 diagram's planned set is sufficient under each diagram (the second is asked the first's
 question).
   --json   {"renamed", "added", "removed", "arrowsAdded", "arrowsRemoved", "arrowsReversed", …,
-           "sets": {"first", "second"}, "verdicts"}`,
+           "sets": {"first", "second"}, "verdicts": {"planned", "first", "second", "notJudged"}}`,
 	options: {},
 	async run(ctx) {
 		if (ctx.positionals.length !== 2) throw new UsageError(`${ctx.name} needs two diagram files (usage: ${compare.usage})`);

@@ -14,6 +14,7 @@ import {
 	instrumentLikeAdviceText,
 	minimalSubsetText,
 	nearestText,
+	notJudgedText,
 	optimalAdviceText,
 	precisionAdviceText,
 	REVIEW_FIX_TEXT
@@ -85,6 +86,6 @@ export function compareLines(c: DiagramComparison): string[] {
 	lines.push(`Minimal sets, first: ${sets(c.sets.first)}`, `Minimal sets, second: ${sets(c.sets.second)}`);
 	const v = c.verdicts;
 	const verdict = (x: boolean | null) => (x === null ? 'not judged' : x ? 'sufficient' : 'NOT sufficient');
-	lines.push(`Planned set ${braces(v.planned)}: ${verdict(v.first)} under the first, ${verdict(v.second)} under the second${v.note ? ` (${v.note})` : ''}.`);
+	lines.push(`Planned set ${braces(v.planned)}: ${verdict(v.first)} under the first, ${verdict(v.second)} under the second${v.notJudged ? ` (${notJudgedText(v.notJudged, id)})` : ''}.`);
 	return lines;
 }

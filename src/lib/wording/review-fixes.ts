@@ -5,7 +5,7 @@
  * review's results and a label look-up; O(size of the sets named).
  */
 import type { AdjustmentReview, Instrument } from '../causal';
-import { countText, listNames, setText, type LabelOf } from './names';
+import { countText, listNames, plural, setText, type LabelOf } from './names';
 
 type Nearest = NonNullable<AdjustmentReview['nearest']>;
 
@@ -74,6 +74,15 @@ export function optimalAdviceText(optimal: readonly string[] | null, plannedIsOp
 	if (optimal === null) return 'Efficiency-optimal set: not available here (it would include an unmeasured variable).';
 	if (plannedIsOptimal) return REVIEW_FIX_TEXT.plannedIsOptimal;
 	return `Efficiency-optimal set (Henckel et al. 2022): ${setText(optimal, label)}.`;
+}
+
+/**
+ * Why the second diagram of a comparison could not judge the planned set: "exposure or outcome
+ * not in the second diagram: Age", "planned variables not in the second diagram: A and B".
+ */
+export function notJudgedText(n: { why: 'question-missing' | 'planned-missing'; ids: readonly string[] }, label: LabelOf): string {
+	const what = n.why === 'question-missing' ? 'exposure or outcome' : plural(n.ids.length, 'planned variable');
+	return `${what} not in the second diagram: ${listNames(n.ids.map(label))}`;
 }
 
 /** "Distance, given Age" or "Distance (no conditioning needed)": one instrument. */

@@ -90,7 +90,7 @@ describe('causeway compare', () => {
 			{ from: 'c', to: 'y' },
 			{ from: 's', to: 'y' }
 		]);
-		expect(j.verdicts).toEqual({ planned: ['c'], first: true, second: false, note: null });
+		expect(j.verdicts).toEqual({ planned: ['c'], first: true, second: false, notJudged: null });
 		const text = await run(['compare', 'a.json', 'b.json'], { 'a.json': a, 'b.json': b });
 		expect(text.out).toContain('Renamed: s → klass (matched by label)');
 		expect(text.out).toContain('sufficient under the first, NOT sufficient under the second');

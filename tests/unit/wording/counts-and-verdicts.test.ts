@@ -16,6 +16,7 @@ import {
 	instrumentText,
 	nearestChangeText,
 	nearestText,
+	notJudgedText,
 	openedDiagramText,
 	optimalAdviceText,
 	eValueText,
@@ -189,5 +190,13 @@ describe("the reviewer's fixes, shared by causeway review and the Review section
 		expect(instrumentText({ variable: 'distance', given: ['age', 'income'] }, idAsLabel)).toBe('distance, given age and income');
 		expect(optimalAdviceText(['age'], false, idAsLabel)).toBe('Efficiency-optimal set (Henckel et al. 2022): {age}.');
 		expect(optimalAdviceText([], false, idAsLabel)).toBe('Efficiency-optimal set (Henckel et al. 2022): { }.');
+	});
+});
+
+describe('a comparison that cannot judge the planned set says why, in the right number', () => {
+	it('one or several planned variables, or the question', () => {
+		expect(notJudgedText({ why: 'planned-missing', ids: ['bmi'] }, idAsLabel)).toBe('planned variable not in the second diagram: bmi');
+		expect(notJudgedText({ why: 'planned-missing', ids: ['bmi', 'age'] }, idAsLabel)).toBe('planned variables not in the second diagram: bmi and age');
+		expect(notJudgedText({ why: 'question-missing', ids: ['y'] }, idAsLabel)).toBe('exposure or outcome not in the second diagram: y');
 	});
 });
