@@ -60,7 +60,7 @@ ${DATA_HELP}
 		}
 		for (const s of arrows.skipped) ctx.print(`  ${s.from} → ${s.to}: not checked (${s.why})`);
 		if (arrows.checks.length + arrows.skipped.length === 0) ctx.print('  The diagram has no arrows.');
-		ctx.print(`\nClaim checks: ${claims.tested} tested, ${claims.contradicted} contradicted (Holm-adjusted p < ${formatNumber(alpha)}):`);
+		ctx.print(`\nClaim checks: ${formatCount(claims.tested)} tested, ${formatCount(claims.contradicted)} contradicted (Holm-adjusted p < ${formatNumber(alpha)}):`);
 		for (const c of claims.checks) {
 			const claim = `${c.a} ⟂ ${c.b}${c.given.length ? ` | ${c.given.join(', ')}` : ''}`;
 			if (!c.main) {
