@@ -75,6 +75,11 @@ export function plural(n: number, singular: string, many = `${singular}s`): stri
 	return n === 1 ? singular : many;
 }
 
+/** "12 paths", "50+ claims" (the listing stopped, so more exist), "1 claim": a section's summary count. */
+export function listedCountText(n: number, truncated: boolean, singular: string, many = `${singular}s`): string {
+	return `${groupThousands(n)}${truncated ? '+' : ''} ${truncated ? many : plural(n, singular, many)}`;
+}
+
 /** "1 claim", "2 claims", "1,000 variables": a count with its noun in the right number. */
 export function countText(n: number, singular: string, many = `${singular}s`): string {
 	return `${groupThousands(n)} ${plural(n, singular, many)}`;

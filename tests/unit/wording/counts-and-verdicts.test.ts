@@ -14,6 +14,7 @@ import {
 	dataSummaryText,
 	droppableText,
 	instrumentText,
+	listedCountText,
 	nearestChangeText,
 	nearestText,
 	notJudgedText,
@@ -198,5 +199,14 @@ describe('a comparison that cannot judge the planned set says why, in the right 
 		expect(notJudgedText({ why: 'planned-missing', ids: ['bmi'] }, idAsLabel)).toBe('planned variable not in the second diagram: bmi');
 		expect(notJudgedText({ why: 'planned-missing', ids: ['bmi', 'age'] }, idAsLabel)).toBe('planned variables not in the second diagram: bmi and age');
 		expect(notJudgedText({ why: 'question-missing', ids: ['y'] }, idAsLabel)).toBe('exposure or outcome not in the second diagram: y');
+	});
+});
+
+describe('section summaries', () => {
+	it('"1 claim", "12 paths", "1,000+ claims" when the listing stopped', () => {
+		expect(listedCountText(1, false, 'claim')).toBe('1 claim');
+		expect(listedCountText(12, false, 'path')).toBe('12 paths');
+		expect(listedCountText(1000, true, 'claim')).toBe('1,000+ claims');
+		expect(listedCountText(1, true, 'path')).toBe('1+ paths');
 	});
 });
