@@ -90,6 +90,7 @@ export interface DiagramComparison extends Omit<DiagramDiffStructure, 'matches'>
 		planned: string[];
 		first: boolean | null;
 		second: boolean | null;
-		note: string | null;
+		/** Why the second diagram could not judge it: ids of the question or of the planned set it lacks (wording: notJudgedText). */
+		notJudged: { why: 'question-missing' | 'planned-missing'; ids: string[] } | null;
 	};
 }

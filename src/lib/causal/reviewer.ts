@@ -197,10 +197,10 @@ export function compareDiagrams(first: Diagram, second: Diagram, opts: { maxSets
 			throw e;
 		}
 	};
-	let note: string | null = null;
+	let notJudged: DiagramComparison['verdicts']['notJudged'] = null;
 	let verdictSecond: boolean | null = null;
-	if (question.length > 0) note = `exposure or outcome not in the second diagram: ${question.join(', ')}`;
-	else if (missing.length > 0) note = `planned variable(s) not in the second diagram: ${missing.join(', ')}`;
+	if (question.length > 0) notJudged = { why: 'question-missing', ids: question };
+	else if (missing.length > 0) notJudged = { why: 'planned-missing', ids: missing };
 	else verdictSecond = judge(secondAsked, plannedIds.map((id) => toSecond.get(id)!));
 	const { matches: _matches, ...changes } = structure;
 	return {
@@ -212,6 +212,6 @@ export function compareDiagrams(first: Diagram, second: Diagram, opts: { maxSets
 			onlySecond: (setsB ?? []).filter((s) => !inA.has(key(s))),
 			common: (setsA ?? []).filter((s) => inB.has(key(s)))
 		},
-		verdicts: { planned: plannedIds, first: judge(first, plannedIds), second: verdictSecond, note }
+		verdicts: { planned: plannedIds, first: judge(first, plannedIds), second: verdictSecond, notJudged }
 	};
 }

@@ -5,9 +5,8 @@
  * A weak or absent association is reported, never hidden. Cost: one association test per
  * arrow, O(n) or O(n log n) each.
  */
-import { own } from '../stats/own';
 import type { Diagram } from '../graph/diagram';
-import { associate, completeRows, StatsError, TableStatistics, type Column, type TestResult } from '../stats';
+import { own, associate, completeRows, StatsError, TableStatistics, type Column, type TestResult } from '../stats';
 import { drain, type Steps } from './steps';
 import { pictureData } from './pictures';
 import { twoWayTable, type TwoWayTable } from './two-way';

@@ -9,11 +9,10 @@ import { mappedColumn } from './mapping';
  * would remove it without closing a cycle are suggested. Cost: one test per claim plus
  * O(m log m) for the adjustments.
  */
-import { own } from '../stats/own';
 import type { Diagram } from '../graph/diagram';
 import { findCycle } from '../graph/validate';
 import { impliedClaims } from '../causal';
-import { benjaminiHochbergAdjust, holmAdjust, NEVER, StatsError, TableStatistics, testConditionalIndependence, type Column, type Interrupt } from '../stats';
+import { own, benjaminiHochbergAdjust, holmAdjust, NEVER, StatsError, TableStatistics, testConditionalIndependence, type Column, type Interrupt } from '../stats';
 import { drain, type Steps } from './steps';
 import { DEFAULT_ALPHA } from './arrow-checks';
 import type { ClaimCheck, ClaimChecks, VariableMapping } from './types';

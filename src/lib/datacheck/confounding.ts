@@ -12,11 +12,11 @@ import { mappedColumn } from './mapping';
  * whether a variable is a confounder, only describe these associations.
  * Cost per candidate: two association tests, two regression fits, O(n) for the strata.
  */
-import { own } from '../stats/own';
 import type { Diagram } from '../graph/diagram';
 import { InputError } from '../graph/errors';
 import { variableRoles } from '../causal';
 import {
+	own,
 	associate,
 	breslowDay,
 	categoryCodeValues,

@@ -6,6 +6,8 @@
  * the Adjustment section without saying why. Pure; O(n + m) for the verdict plus the capped
  * listing of sets (van der Zander et al. 2019, via the engine's façade).
  */
+// Not the stats façade: the app loads this module up front, and the façade pulls @stdlib's
+// modules in with it (+49 KB gzip up front, measured with vite build, December 2026).
 import { own } from '../stats/own';
 import type { Diagram } from '../graph/diagram';
 import { InputError } from '../graph/errors';

@@ -9,12 +9,11 @@ import { mappedColumn } from './mapping';
  * percent (a 10 % change is a common-practice marker); the planned row gets the E-value
  * (VanderWeele & Ding, Ann Intern Med 2017). Cost: two regression fits per set shown.
  */
-import { own } from '../stats/own';
 import type { Diagram } from '../graph/diagram';
 import { InputError } from '../graph/errors';
 import { adjustmentSets, checkAdjustment, compareSets, sortIds } from '../causal';
 import type { AdjustmentSets } from '../causal';
-import { estimateExposureEffect, eValue, standardize, StatsError, TableStatistics, type Column, type ExposureEffect } from '../stats';
+import { own, estimateExposureEffect, eValue, standardize, StatsError, TableStatistics, type Column, type ExposureEffect } from '../stats';
 import { drain, type Steps } from './steps';
 import type { EstimateRole, EstimateRow, Estimates, EValueSummary, VariableMapping } from './types';
 

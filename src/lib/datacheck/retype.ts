@@ -3,8 +3,7 @@
  * read of the file): numbers ↔ levels, binary / categorical / ordinal. Each change is
  * checked and refused with a one-line message naming the column. O(rows) per column.
  */
-import { own } from '../stats/own';
-import { codedColumn, DEFAULT_LEVEL_CAP, StatsError, type Column, type ColumnKind, type Table } from '../stats';
+import { own, codedColumn, DEFAULT_LEVEL_CAP, StatsError, type Column, type ColumnKind, type Table } from '../stats';
 import type { TypeOverrides } from './types';
 
 export function retypeColumn(column: Column, kind: ColumnKind, levelCap = DEFAULT_LEVEL_CAP): Column {

@@ -10,11 +10,10 @@
  * cannot be analysed (cycle, unknown arrow ends) or a bad mapping, StatsError for a bad
  * column kind. Cost: one test per arrow and per claim, two fits per estimate row.
  */
-import { own } from '../stats/own';
 import type { Diagram } from '../graph/diagram';
 import { InputError } from '../graph/errors';
 import { validateDiagram } from '../graph/validate';
-import { categoryCodeValues, interruptWhen, NEVER, TableStatistics, type Column, type Table } from '../stats';
+import { own, categoryCodeValues, interruptWhen, NEVER, TableStatistics, type Column, type Table } from '../stats';
 import { arrowCheckSteps } from './arrow-checks';
 import { claimCheckSteps } from './claim-checks';
 import { confounderSteps } from './confounding';

@@ -11,10 +11,9 @@
  * `note` (the app: the setting is left out for this table, the report says so, and the user
  * can fix it in the Data section). O(variables + columns), plus O(rows) per changed column.
  */
-import { own } from '../stats/own';
 import type { Diagram } from '../graph/diagram';
 import { InputError } from '../graph/errors';
-import { StatsError, type Column, type ColumnKind, type Table } from '../stats';
+import { own, StatsError, type Column, type ColumnKind, type Table } from '../stats';
 import { mapVariables } from './mapping';
 import { applyLevels, retypeColumn, type LevelSettings } from './retype';
 import type { MappingOverrides, TypeOverrides, VariableMapping } from './types';

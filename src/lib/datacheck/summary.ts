@@ -14,11 +14,10 @@
  *   sd,11,10,3               optional (turns correlations into covariances)
  * A matrix with 1 on every diagonal cell is read as correlations, else as covariances.
  */
-import { own } from '../stats/own';
 import Papa from 'papaparse';
 import type { Diagram } from '../graph/diagram';
 import { adjustmentSets, checkAdjustment, impliedClaims } from '../causal';
-import { linearRegressionFromSummary, partialCorrelationFromSummary, StatsError, type SummaryStatistics } from '../stats';
+import { own, linearRegressionFromSummary, partialCorrelationFromSummary, StatsError, type SummaryStatistics } from '../stats';
 import { associationStrength, DEFAULT_ALPHA, SMALL_STRENGTH, supportOf } from './arrow-checks';
 import { claimFamily } from './claim-checks';
 import { estimateQuestion, rowLabel, setsToEstimate, type EstimatesOutcome } from './estimates';

@@ -11,6 +11,8 @@ import type { CandidateCheck, DataCheckReport, PairSummary } from '../datacheck'
 import type { Diagram } from '../graph/diagram';
 import {
 	categoryCodeNotice,
+	countText,
+	eValueText,
 	changeText,
 	chiSquareText,
 	claimSentence,
@@ -32,9 +34,9 @@ import {
 	SUPPORT_TEXT,
 	tableRiskDifferenceText,
 	testSummary,
-	twoWayCells
+	twoWayCells,
+	type LabelOf
 } from '../wording';
-import type { LabelOf } from '../wording';
 import { analysisCode, CODE_LANGUAGE_NAME, CODE_LANGUAGES, codeSpec } from './code';
 import type { ReportArrowCheck, ReportCode, ReportConfounderRow, ReportDataResults } from './report-data';
 import { SOFTWARE_NAME, SOFTWARE_VERSION } from './version';
@@ -82,7 +84,7 @@ function confounderRow(c: CandidateCheck, labelOf: LabelOf, kind: string, alpha:
 		withExposure: pairCell(c.withExposure),
 		withOutcome: pairCell(c.withOutcome),
 		change: !c.change ? '' : 'message' in c.change ? `not estimated: ${c.change.message}` : changeText(c.change),
-		stratified: s ? `${formatNumber(s.oddsRatio)} (${formatCi(s.ci)}) over ${s.by === 'fifths' ? 'fifths' : `${s.strata.length} levels`}` : c.stratified && 'message' in c.stratified ? `not possible: ${c.stratified.message}` : '',
+		stratified: s ? `${formatNumber(s.oddsRatio)} (${formatCi(s.ci)}) over ${s.by === 'fifths' ? 'fifths' : countText(s.strata.length, 'level')}` : c.stratified && 'message' in c.stratified ? `not possible: ${c.stratified.message}` : '',
 		homogeneity: s ? (h ? `X² = ${formatNumber(h.statistic)}, ${h.df} df, ${pText(h.pValue)}${effectModification(s, alpha) ? ': effect modification?' : ''}` : (s.homogeneityMessage ?? '')) : ''
 	};
 }
@@ -179,8 +181,8 @@ export function reportDataFromChecks(report: DataCheckReport, labelOf: LabelOf, 
 	const x = report.confounders;
 	const kindByColumn = new Map(report.columns.map((c) => [c.column, kindText(c)]));
 	const notes = [...report.notes, ...(report.estimatesMessage ? [report.estimatesMessage] : []), ...(est?.notes ?? [])];
-	if (est?.eValue) notes.push(`E-value of the planned estimate (VanderWeele & Ding 2017): ${est.eValue.point.toPrecision(3)}${est.eValue.ciBound !== null ? ` (confidence limit: ${est.eValue.ciBound.toPrecision(3)})` : ''}.`);
-	if (report.claims.tested > 0) notes.push(`Adjusted p is Holm's (family-wise), over the ${report.claims.tested} tested claims.`);
+	if (est?.eValue) notes.push(`${eValueText(est.eValue)} (VanderWeele & Ding 2017).`);
+	if (report.claims.tested > 0) notes.push(`Adjusted p is Holm's (family-wise), over the ${countText(report.claims.tested, 'tested claim')}.`);
 	const code = diagram ? codeFor(report, diagram, files ? files.data.replace(/^.*[/\\]/, '') : dataFileName(sourceName)) : [];
 	const columns = (report.columnsUsed ?? []).map((u) => ({ variable: u.variable, column: u.column, kind: u.kind, chosen: u.kindChosen, reference: u.reference }));
 	return {

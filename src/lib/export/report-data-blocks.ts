@@ -10,8 +10,10 @@
 import {
 	collapsibilitySentence,
 	CONFOUNDER_CHECK_INTRO,
+	countText,
 	formatCi,
 	formatNumber as formatReadable,
+	formatP,
 	formatPercent,
 	listNames,
 	MISSING,
@@ -25,12 +27,8 @@ import type { ReportCode, ReportDataResults, ReportStandardized } from './report
 
 /** Numbers for display: the app's format (three significant digits, never e-notation). */
 export const formatNumber = (x: number | null | undefined): string => formatReadable(x);
-
-/** p-values: three decimals, below 0.001 as "< 0.001". */
-export function formatP(p: number | null | undefined): string {
-	if (p === null || p === undefined || !Number.isFinite(p)) return MISSING;
-	return p < 0.001 ? '< 0.001' : p.toFixed(3);
-}
+/** p-values as the app and the command line write them (two significant digits, "< 0.001"). */
+export { formatP };
 
 const given = (x: number | null | undefined): x is number => x !== null && x !== undefined && Number.isFinite(x);
 
@@ -161,7 +159,7 @@ export function dataBlocks(data: ReportDataResults, label: LabelOf): Block[] {
 	const blocks: Block[] = [];
 	const s = data.source;
 	if (s && (s.name || s.rows !== undefined)) {
-		const parts = [s.name ? `Data: ${s.name}` : 'Data', s.rows !== undefined ? `${s.rows} rows` : '', s.columns !== undefined ? `${s.columns} columns` : ''].filter(Boolean);
+		const parts = [s.name ? `Data: ${s.name}` : 'Data', s.rows !== undefined ? countText(s.rows, 'row') : '', s.columns !== undefined ? countText(s.columns, 'column') : ''].filter(Boolean);
 		blocks.push({ kind: 'paragraph', text: `${parts.join(', ')}.` });
 	}
 	blocks.push(...reproducibilityBlocks(data, label));

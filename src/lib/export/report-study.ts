@@ -5,7 +5,7 @@
  * figure from the saved diagram file and the data file. Pure; blocks for report.ts.
  */
 import type { Diagram } from '../graph/diagram';
-import { dataSettingsText, listNames, type LabelOf } from '../wording';
+import { dataSettingsText, listNames, MISSING, type LabelOf } from '../wording';
 import type { ReportDataResults } from './report-data';
 import type { Block } from './report';
 
@@ -35,7 +35,7 @@ export function reproducibilityBlocks(data: ReportDataResults, label: LabelOf): 
 		blocks.push({
 			kind: 'table',
 			head: ['Variable', 'Column', 'Analysed as', 'Reference level'],
-			rows: data.columns.map((c) => [label(c.variable), c.column, `${c.kind} (${c.chosen ? 'chosen' : 'detected'})`, c.reference ?? '–'])
+			rows: data.columns.map((c) => [label(c.variable), c.column, `${c.kind} (${c.chosen ? 'chosen' : 'detected'})`, c.reference ?? MISSING])
 		});
 		const missing = [...new Set(data.notes?.filter((n) => n.startsWith('No column for')) ?? [])];
 		if (missing.length === 0) blocks.push({ kind: 'paragraph', text: `Every measured variable has a column (${listNames(data.columns.map((c) => label(c.variable)))}).` });

@@ -10,7 +10,7 @@ import type { Diagram } from '../graph/diagram';
 import { validateDiagram } from '../graph/validate';
 import { adjustmentSets, checkAdjustment, variableRoles } from '../causal';
 import type { AdjustmentCheck, AdjustmentSets, Role, VariableRoles } from '../causal';
-import { ROLE_NAME } from '../wording';
+import { countText, MISSING, ROLE_NAME } from '../wording';
 import { BADGE_MEANING, labelLookup, listNames, optimalSetSentence, pathText, problemText, setText, unmeasuredQuestionNote, verdictSentence, type LabelOf } from '../wording';
 import { criticalAbsentArrows, withPlannedReasons, type AbsentArrowReport } from '../causal';
 import type { ReportDataResults } from './report-data';
@@ -105,7 +105,7 @@ export function draftParagraph(d: Diagram, a: ReportAnalysis, absent: AbsentArro
 	const { sets, check } = a;
 	const out: string[] = [];
 	out.push(
-		`We will estimate the total effect of ${names(sets.exposures)} on ${names(sets.outcomes)}. Our assumptions about the causal structure are stated in a directed acyclic graph (Figure 1; ${d.variables.length} variables, ${d.arrows.length} arrows), drawn before the data were analysed.`
+		`We will estimate the total effect of ${names(sets.exposures)} on ${names(sets.outcomes)}. Our assumptions about the causal structure are stated in a directed acyclic graph (Figure 1; ${countText(d.variables.length, 'variable')}, ${countText(d.arrows.length, 'arrow')}), drawn before the data were analysed.`
 	);
 	if (!sets.identifiable) {
 		out.push('Under these assumptions no set of measured variables is sufficient to control confounding, so the effect cannot be identified by covariate adjustment; we will consider other designs or sensitivity analyses.');
@@ -229,7 +229,7 @@ export function buildReport(input: ReportInput): ReportModel {
 			{
 				kind: 'figure',
 				svg,
-				caption: `Figure 1. Assumed causal structure (directed acyclic graph): ${d.variables.length} variables, ${d.arrows.length} arrows. Each arrow is an assumed direct effect; a missing arrow assumes none. ${figureKey(d, a, input.mono ?? false)}`
+				caption: `Figure 1. Assumed causal structure (directed acyclic graph): ${countText(d.variables.length, 'variable')}, ${countText(d.arrows.length, 'arrow')}. Each arrow is an assumed direct effect; a missing arrow assumes none. ${figureKey(d, a, input.mono ?? false)}`
 			}
 		]
 	});
@@ -249,7 +249,7 @@ export function buildReport(input: ReportInput): ReportModel {
 						if (d.exposures.includes(v.id)) words.push('exposure');
 						if (d.outcomes.includes(v.id)) words.push('outcome');
 					}
-					return [v.label, v.id, v.measured ? 'yes' : 'no', words.join(', ') || '–', d.adjusted.includes(v.id) ? 'yes' : 'no', v.note ?? '', ...(settings ? [settings.cell(v.id)] : [])];
+					return [v.label, v.id, v.measured ? 'yes' : 'no', words.join(', ') || MISSING, d.adjusted.includes(v.id) ? 'yes' : 'no', v.note ?? '', ...(settings ? [settings.cell(v.id)] : [])];
 				})
 			}
 		]
@@ -273,7 +273,7 @@ export function buildReport(input: ReportInput): ReportModel {
 		} else {
 			assumptions.push({
 				kind: 'paragraph',
-				text: `Leaving an arrow out assumes that there is no direct effect. For these ${absent.items.length} pairs, that assumption carries the adjustment: adding the arrow would make the planned set or a minimal set insufficient.${absent.items.length > limit ? ` The ${limit} with the largest consequences are listed.` : ''}`
+				text: `Leaving an arrow out assumes that there is no direct effect. For ${absent.items.length === 1 ? 'this pair' : `these ${countText(absent.items.length, 'pair')}`}, that assumption carries the adjustment: adding the arrow would make the planned set or a minimal set insufficient.${absent.items.length > limit ? ` The ${limit} with the largest consequences are listed.` : ''}`
 			});
 			assumptions.push({ kind: 'list', items: absent.items.slice(0, limit).map((item) => absentSentence(item, d, a, label)) });
 		}
@@ -295,7 +295,7 @@ export function buildReport(input: ReportInput): ReportModel {
 			text: `Minimal sufficient adjustment sets for the total effect (each blocks every non-causal path and leaves out mediators and consequences of the outcome; no variable can be dropped from one):`
 		});
 		setBlocks.push({ kind: 'list', items: a.sets.sets.map((s) => setText(s, label)) });
-		if (a.sets.truncated) setBlocks.push({ kind: 'paragraph', text: `The listing stopped after ${a.sets.sets.length} sets; more exist.` });
+		if (a.sets.truncated) setBlocks.push({ kind: 'paragraph', text: `The listing stopped after ${countText(a.sets.sets.length, 'set')}; more exist.` });
 		const extra: string[] = [];
 		if (a.sets.minimum) extra.push(`Smallest set: ${setText(a.sets.minimum, label)}.`);
 		extra.push(optimalSetSentence(a.sets, (ids) => setText(ids, label), ' (Henckel, Perković & Maathuis 2022)'));

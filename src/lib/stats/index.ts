@@ -5,6 +5,7 @@
  * `{ ok: false, error }` instead.
  */
 export { StatsError } from './errors';
+export { own } from './own';
 export type { EffectSize, TestResult } from './types';
 
 // Distributions

@@ -88,6 +88,14 @@ export function riskDifferenceText(rd: { estimate: number; ci: readonly [number,
 	return `${formatNumber(rd.estimate * 100)} percentage points (95 % CI ${formatNumber(rd.ci[0] * 100)} to ${formatNumber(rd.ci[1] * 100)})`;
 }
 
+/**
+ * "E-value of the planned estimate: 1.88; for the CI limit nearer to no effect: 1.34"
+ * (VanderWeele & Ding 2017): one sentence for the app, the command line and the report.
+ */
+export function eValueText(e: { point: number; ciBound: number | null }): string {
+	return `E-value of the planned estimate: ${formatNumber(e.point)}${e.ciBound === null ? '' : `; for the CI limit nearer to no effect: ${formatNumber(e.ciBound)}`}`;
+}
+
 type Standardized = NonNullable<EstimateRow['standardized']>;
 
 /** How the standardized estimates are made, said once under them. */

@@ -1,5 +1,7 @@
 /** Words of the Data section (shared by its components and tested without a browser). */
 import type { ArrowSupport, ClaimStatus, EstimateRow } from '../datacheck';
+import { countText, plural } from './names';
+import { groupThousands } from './numbers';
 
 export const SUPPORT_TEXT: Record<ArrowSupport, string> = {
 	supported: 'supported',
@@ -36,4 +38,19 @@ export function shortRowLabels(rows: readonly EstimateRow[]): string[] {
 			})
 			.join(' · ')
 	);
+}
+
+/** The Data section's header summary: "3/12 arrows supported · 1 contradicted" ("claims…" while they run). */
+export function dataSummaryText(supported: number, arrows: number, contradicted: number | null): string {
+	return `${groupThousands(supported)}/${groupThousands(arrows)} ${plural(arrows, 'arrow')} supported · ${contradicted === null ? 'claims…' : `${groupThousands(contradicted)} contradicted`}`;
+}
+
+/** Said to screen readers when the data checks are done: "Data checks done: 1 of 1 arrow supported, 0 of 3 claims contradicted." */
+export function dataChecksDoneText(supported: number, arrows: number, contradicted: number, tested: number, estimates: boolean): string {
+	return `Data checks done: ${groupThousands(supported)} of ${countText(arrows, 'arrow')} supported, ${groupThousands(contradicted)} of ${countText(tested, 'claim')} contradicted${estimates ? ', estimates ready' : ''}.`;
+}
+
+/** "Opened study.dot: 1 variable, 0 arrows." — the message when a diagram is opened (file or share link). */
+export function openedDiagramText(source: string, variables: number, arrows: number): string {
+	return `Opened ${source}: ${countText(variables, 'variable')}, ${countText(arrows, 'arrow')}.`;
 }

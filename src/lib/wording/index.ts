@@ -11,6 +11,7 @@ export * from './paths';
 export * from './claims';
 export * from './data';
 export * from './review';
+export * from './review-fixes';
 export * from './confounding';
 export * from './measures';
 export * from './two-way';

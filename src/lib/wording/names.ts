@@ -4,6 +4,7 @@
  * each thing everywhere: the empty set is "{ }", a path "A → B ← C". Pure functions; O(length).
  */
 import type { Diagram } from '../graph/diagram';
+import { groupThousands } from './numbers';
 
 export type LabelOf = (id: string) => string;
 
@@ -65,7 +66,21 @@ export function pathWords(nodes: readonly string[], arrow: ArrowTest, labelOf: L
 	return text;
 }
 
+/**
+ * The noun in the number a count needs: "arrow" for 1, "arrows" for 0, 2 or 1.5. The one
+ * plural rule of every sentence with a count; `many` for nouns without a plain "s"
+ * ("strata"). O(1).
+ */
+export function plural(n: number, singular: string, many = `${singular}s`): string {
+	return n === 1 ? singular : many;
+}
+
+/** "12 paths", "50+ claims" (the listing stopped, so more exist), "1 claim": a section's summary count. */
+export function listedCountText(n: number, truncated: boolean, singular: string, many = `${singular}s`): string {
+	return `${groupThousands(n)}${truncated ? '+' : ''} ${truncated ? many : plural(n, singular, many)}`;
+}
+
 /** "1 claim", "2 claims", "1,000 variables": a count with its noun in the right number. */
-export function countText(n: number, singular: string, plural = `${singular}s`): string {
-	return `${n.toLocaleString('en-GB')} ${n === 1 ? singular : plural}`;
+export function countText(n: number, singular: string, many = `${singular}s`): string {
+	return `${groupThousands(n)} ${plural(n, singular, many)}`;
 }

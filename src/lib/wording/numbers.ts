@@ -2,7 +2,7 @@
  * How numbers are written for people, the same in the app, the command line and the report:
  * p-values with two significant digits (below 0.001 as "< 0.001"), estimates with three
  * significant digits, never in e-notation, with thousands separators from 1,000 and a true
- * minus sign (−), "≈ 0" below 1e-9 and "> 1,000,000,000,000" from 1e12; a missing or undefined
+ * minus sign (−) — all without toLocaleString (groupThousands) — "≈ 0" below 1e-9 and "> 1,000,000,000,000" from 1e12; a missing or undefined
  * value is an em dash (—). Data files and JSON keep
  * full precision: these formats are for reading only. O(1).
  */
@@ -43,22 +43,55 @@ export function formatNumber(x: number | null | undefined, digits = 3): string {
 	const a = Math.abs(x);
 	if (a < NEGLIGIBLE) return '≈ 0';
 	const sign = x < 0 ? MINUS : '';
-	if (a >= HUGE) return x > 0 ? `> ${HUGE.toLocaleString('en-GB')}` : `< ${MINUS}${HUGE.toLocaleString('en-GB')}`;
+	if (a >= HUGE) return x > 0 ? `> ${groupThousands(HUGE)}` : `< ${MINUS}${groupThousands(HUGE)}`;
 	const magnitude = Math.floor(Math.log10(a));
 	if (magnitude >= digits - 1) {
 		// Whole number: round to the significant digits, then group the thousands.
 		const unit = 10 ** (magnitude - digits + 1);
-		return sign + (Math.round(a / unit) * unit).toLocaleString('en-GB', { maximumFractionDigits: 0 });
+		return sign + groupThousands(Math.round(a / unit) * unit);
 	}
 	const decimals = Math.min(digits - 1 - magnitude, 20);
 	// toFixed never uses e-notation below 1e21; trailing zeros go ("1.50" → "1.5").
 	const text = a.toFixed(decimals).replace(/\.?0+$/, '');
-	return sign + (Number(text) >= 1000 ? Number(text).toLocaleString('en-GB') : text);
+	return sign + groupDigits(text);
+}
+
+/**
+ * The digits of a non-negative decimal numeral ("1234567.5") with the thousands of its whole
+ * part grouped by commas ("1,234,567.5"). Written by hand rather than with toLocaleString:
+ * the first toLocaleString call starts ICU, about a tenth of a second of the command's
+ * start-up (node --cpu-prof; src/lib/limits.ts) and a cost on the page's first analysis
+ * too. O(digits).
+ */
+function groupDigits(numeral: string): string {
+	const point = numeral.indexOf('.');
+	const whole = point < 0 ? numeral : numeral.slice(0, point);
+	return whole.replace(/\B(?=(\d{3})+$)/g, ',') + (point < 0 ? '' : numeral.slice(point));
+}
+
+/**
+ * A whole number or a count with its thousands grouped, "1,234,567", and a true minus sign;
+ * never e-notation (beyond 2^53 the digits come from BigInt, which String() would write as
+ * "1e+21"). Fractions keep up to three decimals, as counts never need more. O(digits).
+ */
+export function groupThousands(n: number): string {
+	if (!Number.isFinite(n)) return MISSING;
+	const a = Math.abs(n);
+	const numeral = Number.isInteger(a) ? (a < Number.MAX_SAFE_INTEGER ? String(a) : BigInt(a).toString()) : a.toFixed(3).replace(/\.?0+$/, '');
+	return (n < 0 && numeral !== '0' ? MINUS : '') + groupDigits(numeral);
+}
+
+/**
+ * A short label for a plot's axis tick: three significant digits like every estimate, never
+ * e-notation ("100,000", "0.00012"), the true minus sign. O(1).
+ */
+export function axisTickText(x: number): string {
+	return formatNumber(x, 3);
 }
 
 /** A count: "1,234". */
 export function formatCount(n: number): string {
-	return Number.isFinite(n) ? n.toLocaleString('en-GB') : MISSING;
+	return groupThousands(n);
 }
 
 export function formatCi(ci: readonly [number, number]): string {

@@ -6,6 +6,7 @@
  */
 import type { PathCount, PathInfo, PathNodeReason } from '../causal';
 import type { Diagram } from '../graph/diagram';
+import { groupThousands } from './numbers';
 import { arrowSet, arrowTest, countText, listNames, pathWords, type ArrowTest, type LabelOf } from './names';
 
 /** "A → B ← C": the path with each arrow's real direction. */
@@ -71,7 +72,7 @@ export function pathCountText(c: PathCount, what = 'open non-causal path'): stri
 
 /** The number alone: "50", "more than 10,000", "at least 40". */
 export function countBoundText(c: PathCount): string {
-	const n = c.count.toLocaleString('en-GB');
+	const n = groupThousands(c.count);
 	return c.bound === 'more-than' ? `more than ${n}` : c.bound === 'at-least' ? `at least ${n}` : n;
 }
 

@@ -4,7 +4,7 @@
  */
 import type { AdjustmentReview, AssumptionChange, PlanWeakness, ReviewReason } from '../causal';
 import { capitalise, FORBIDDEN_WHY } from './adjustment';
-import { adjustingFor, arrowTest, listNames, pathWords, setText, type ArrowTest, type LabelOf } from './names';
+import { adjustingFor, arrowTest, countText, listNames, pathWords, setText, type ArrowTest, type LabelOf } from './names';
 
 export type Label = LabelOf;
 
@@ -26,12 +26,19 @@ export function reviewVerdict(r: AdjustmentReview, label: Label): string {
 	if (r.valid) return `${subject} is sufficient to estimate ${effect}, if the diagram is right.`;
 	const kinds = new Set(r.reasons.map((x) => x.kind));
 	const what: string[] = [];
-	if (kinds.has('open-path')) what.push('leaves a non-causal path open');
+	const open = r.reasons.filter((x) => x.kind === 'open-path').length;
+	if (open > 0) what.push(`leaves ${openPathsWords(open, r.openPathsTruncated)} open`);
 	if (kinds.has('overadjustment')) what.push('adjusts away part of the effect (overadjustment)');
 	if (kinds.has('collider-bias')) what.push('opens a path by adjusting a collider (collider bias)');
 	if (kinds.has('descendant-of-outcome')) what.push('adjusts a consequence of the outcome');
 	if (kinds.has('unmeasured') || kinds.has('exposure-or-outcome')) what.push('names a variable that cannot be adjusted');
 	return `${subject} is not sufficient to estimate ${effect}: it ${listWords(what)}.`;
+}
+
+/** "a non-causal path", "3 non-causal paths", "at least 50 non-causal paths" (the listing stopped). */
+function openPathsWords(listed: number, truncated: boolean): string {
+	if (listed === 1 && !truncated) return 'a non-causal path';
+	return `${truncated ? 'at least ' : ''}${countText(listed, 'non-causal path')}`;
 }
 
 export function reasonWords(x: ReviewReason, arrow: ArrowTest, label: Label): string {
@@ -76,7 +83,7 @@ export function weaknessParts(w: PlanWeakness, arrows: readonly { from: string; 
 		const otherwise = w.fallback === undefined ? '' : w.fallback === null ? 'without it no set of measured variables is sufficient' : `without it, ${setWords(w.fallback, label)} would do`;
 		return { assumes, otherwise };
 	}
-	if (!w.witness) return { assumes, otherwise: `a non-causal path of ${w.length} arrows would open` };
+	if (!w.witness) return { assumes, otherwise: `a non-causal path of ${countText(w.length, 'arrow')} would open` };
 	const path = pathWords(w.witness, arrowTestAfter(arrows, w.change), label);
 	if (w.failure === 'forbidden') return { assumes, otherwise: `${label(w.witness[w.witness.length - 1])} would lie on or below a causal path (${path})` };
 	return { assumes, otherwise: `${path} would be open` };

@@ -246,7 +246,7 @@ describe('Comparing the authors’ diagram with a reviewer’s', () => {
 		expect(c.arrowsAdded).toEqual([{ from: 'ses', to: 'cancer' }]);
 		expect(c.arrowsOfAdded).toEqual([{ from: 'gene', to: 'cancer' }]);
 		expect(c.arrowsRemoved).toEqual([]);
-		expect(c.verdicts).toEqual({ planned: ['age'], first: true, second: false, note: null });
+		expect(c.verdicts).toEqual({ planned: ['age'], first: true, second: false, notJudged: null });
 		expect(c.sets.first).toEqual([['age']]);
 		expect(c.sets.second).toEqual([['age', 'ses']]);
 		expect(c.sets.onlyFirst).toEqual([['age']]);

@@ -33,7 +33,7 @@ describe('causeway review', () => {
 		const r = await run(['review', DEMO, '--adjust', 'age,diet,income']);
 		expect(r.code).toBe(0);
 		expect(r.out).toContain('Adjusting for age, diet and income is sufficient to estimate the total effect of cycling on hypertension');
-		expect(r.out).toContain('Precision: adding family_history');
+		expect(r.out).toContain('Precision variable: adding family_history');
 		expect(r.out).toContain('Efficiency-optimal set (Henckel et al. 2022): {age, diet, family_history, income}.');
 	});
 
@@ -42,7 +42,7 @@ describe('causeway review', () => {
 		expect(r.code).toBe(1);
 		expect(r.out).toContain('Overadjustment: bmi is a mediator');
 		expect(r.out).toContain('antihypertensive is caused by the outcome');
-		expect(r.out).toContain('Nearest minimal sufficient set: {age, diet, income} (drop antihypertensive, bmi).');
+		expect(r.out).toContain('Nearest minimal sufficient set: {age, diet, income} (drop antihypertensive and bmi).');
 	});
 
 	it('an unknown variable: exit 2, one line naming it', async () => {
@@ -90,7 +90,7 @@ describe('causeway compare', () => {
 			{ from: 'c', to: 'y' },
 			{ from: 's', to: 'y' }
 		]);
-		expect(j.verdicts).toEqual({ planned: ['c'], first: true, second: false, note: null });
+		expect(j.verdicts).toEqual({ planned: ['c'], first: true, second: false, notJudged: null });
 		const text = await run(['compare', 'a.json', 'b.json'], { 'a.json': a, 'b.json': b });
 		expect(text.out).toContain('Renamed: s → klass (matched by label)');
 		expect(text.out).toContain('sufficient under the first, NOT sufficient under the second');

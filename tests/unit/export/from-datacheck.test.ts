@@ -47,7 +47,8 @@ describe('data results from the data-check pipeline', () => {
 	it('shows them in the report', () => {
 		const md = reportMarkdown(buildReport({ diagram: d, data, date: new Date(2026, 2, 1) }));
 		expect(md).toContain('## 8. Data checks and estimates');
-		expect(md).toContain(`Data: cycling-hypertension.csv, ${checks.rowCount} rows.`);
+		expect(checks.rowCount).toBe(5000);
+		expect(md).toContain('Data: cycling-hypertension.csv, 5,000 rows.');
 		expect(md).toContain('E-value of the planned estimate');
 	});
 
@@ -122,7 +123,7 @@ describe('data results from the data-check pipeline', () => {
 		const md = reportMarkdown(buildReport({ diagram: d, data, date: new Date(2026, 2, 1) }));
 		expect(md).toContain('| Variable | Column | Analysed as | Reference level |');
 		expect(md).toContain('| Commutes by bicycle | cycling | binary (detected) | 0 |');
-		expect(md).toContain('| Age | age | continuous (detected) | – |');
+		expect(md).toContain('| Age | age | continuous (detected) | — |');
 		expect(data.columns).toHaveLength(12);
 	});
 

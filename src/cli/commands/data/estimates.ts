@@ -5,9 +5,9 @@
  * Same pipeline as the app's data pane.
  */
 import { InputError } from '../../../lib/graph/errors';
-import { own } from '../../../lib/stats/own';
-import { braces } from '../../../lib/datacheck';
-import { DATA_VIEW_TEXT, formatCi, formatCount, formatNumber, formatPercent } from '../../../lib/wording';
+import { own } from '../../../lib/stats';
+import { braces } from '../../../lib/wording/command-line';
+import { DATA_VIEW_TEXT, eValueText, formatCi, formatCount, formatNumber, formatPercent } from '../../../lib/wording';
 import { QUESTION, QUESTION_HELP } from '../../command';
 import { printConfounderCheck, printStandardized } from './confounder-print';
 import { COMMON_DATA_PRINT, kindOf, type Command } from './print';
@@ -71,10 +71,7 @@ ${QUESTION_HELP}
 		const exposureColumn = report.columns.find((c) => c.variable === e.exposure);
 		const levels = exposureColumn && exposureColumn.levels.length === 2 ? { exposed: exposureColumn.levels[1], unexposed: exposureColumn.levels[0] } : { exposed: '1', unexposed: '0' };
 		printStandardized(ctx, e, levels);
-		if (e.eValue)
-			ctx.print(
-				`E-value of the planned estimate: ${formatNumber(e.eValue.point)}${e.eValue.ciBound === null ? '' : ` (for the CI limit nearer the null: ${formatNumber(e.eValue.ciBound)})`} — ${e.eValue.notes.join(' ')}`
-			);
+		if (e.eValue) ctx.print(`${eValueText(e.eValue)}${e.eValue.notes.length ? ` — ${e.eValue.notes.join(' ')}` : ''}`);
 		for (const n of e.notes) ctx.print(`Note: ${n}`);
 		for (const w of e.warnings) ctx.print(`Warning: ${w}`);
 		if (e.rows.some((r) => r.changeMarked)) ctx.print('* A 10 % change from crude is a common-practice marker, not a test of confounding: the diagram decides what to adjust for.');

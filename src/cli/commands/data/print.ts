@@ -1,9 +1,7 @@
 /** Text output shared by `causeway data tests` and `causeway data estimates`: header, notices, tables. */
 import type { DataCheckReport, TwoWayTable } from '../../../lib/datacheck';
-import { categoryCodeNotice, chiSquareText, kindText, levelOddsRatioCells, tableRiskDifferenceText, twoWayCells } from '../../../lib/wording';
+import { categoryCodeNotice, chiSquareText, kindText, levelOddsRatioCells, tableRiskDifferenceText, twoWayCells, countText, formatCount } from '../../../lib/wording';
 import type { Context } from '../../command';
-import { describeCount } from '../../../lib/limits';
-import { counted } from '../../words';
 export type { Command } from '../../command';
 
 /** Columns padded to their widest cell; `right` columns aligned right (numbers). O(cells). */
@@ -39,7 +37,7 @@ export const COMMON_DATA_PRINT = {
 		const mapped = Object.keys(report.mapping.columns).length;
 		const measured = mapped + report.mapping.unmapped.length;
 		const have = measured === 1 ? 'measured variable has' : 'measured variables have';
-		ctx.print(`Data: ${dataName}, ${counted(report.rowCount, 'row')}; ${describeCount(mapped)} of ${describeCount(measured)} ${have} a column.`);
+		ctx.print(`Data: ${dataName}, ${countText(report.rowCount, 'row')}; ${formatCount(mapped)} of ${formatCount(measured)} ${have} a column.`);
 		for (const n of report.notes) ctx.print(`  ${n}`);
 		for (const a of report.mapping.ambiguous) ctx.print(`  "${a.variableId}" matches several columns (${a.columns.join(', ')}); choose one with --map.`);
 		for (const c of report.categoryCodes) ctx.print(`  Notice: ${categoryCodeNotice(c.column, c.values, 'cli')}`);

@@ -5,10 +5,9 @@
  * pipeline as the app's data pane.
  */
 import { COMMON_DATA_PRINT, kindOf, twoWayLines, type Command } from './print';
-import { formatCount, formatNumber, formatP, pText, resultText, smallSizeRule, testSummary } from '../../../lib/wording';
+import { formatCount, formatNumber, formatP, pText, resultText, smallSizeRule, testSummary, countText } from '../../../lib/wording';
 import { CAUTION, DATA_HELP, DATA_OPTIONS, reportJson, runOnData } from './input';
 import { UsageError } from '../../io';
-import { counted } from '../../words';
 
 const USAGE = 'causeway data [tests] DIAGRAM DATA.csv [--map var=column,…] [--type column=kind,…] [--alpha 0.05] [--max N] [--summary] [--json]';
 
@@ -61,7 +60,7 @@ ${DATA_HELP}
 		}
 		for (const s of arrows.skipped) ctx.print(`  ${s.from} → ${s.to}: not checked (${s.why})`);
 		if (arrows.checks.length + arrows.skipped.length === 0) ctx.print('  The diagram has no arrows.');
-		ctx.print(`\nClaim checks: ${claims.tested} tested, ${claims.contradicted} contradicted (Holm-adjusted p < ${formatNumber(alpha)}):`);
+		ctx.print(`\nClaim checks: ${formatCount(claims.tested)} tested, ${formatCount(claims.contradicted)} contradicted (Holm-adjusted p < ${formatNumber(alpha)}):`);
 		for (const c of claims.checks) {
 			const claim = `${c.a} ⟂ ${c.b}${c.given.length ? ` | ${c.given.join(', ')}` : ''}`;
 			if (!c.main) {
@@ -73,7 +72,7 @@ ${DATA_HELP}
 			const suggestion = c.suggestedArrows.length ? `; missing arrow? ${c.suggestedArrows.map((a) => `${a.from} → ${a.to}`).join(' or ')}` : '';
 			ctx.print(`  ${tag.padEnd(12)}  ${claim}: ${effect}${pText(c.p)}, Holm ${formatP(c.pHolm)}, BH ${formatP(c.pBH)}, n = ${formatCount(c.main.n)}${suggestion}`);
 		}
-		if (claims.truncated) ctx.print(`  … stopped after ${counted(claims.checks.length, 'claim')} (--max)`);
+		if (claims.truncated) ctx.print(`  … stopped after ${countText(claims.checks.length, 'claim')} (--max)`);
 		for (const p of claims.noTestableClaim) ctx.print(`  ${p.a} and ${p.b}: not adjacent, but no set of variables with data makes them independent (nothing to test)`);
 		ctx.print(`\n${CAUTION}`);
 		return 0;

@@ -1,9 +1,10 @@
 /** `causeway diagram [claims]` (the diagram job's default view): the independencies the diagram implies. */
 import { impliedClaims } from '../../../lib/causal';
-import { CLI_MAX_CLAIM_PAIRS, describeCount } from '../../../lib/limits';
+import { CLI_MAX_CLAIM_PAIRS } from '../../../lib/limits';
 import type { Command } from '../../command';
 import { UsageError } from '../../io';
-import { counted } from '../../words';
+import { countText, formatCount } from '../../../lib/wording';
+import { claimLine, NO_CLAIMS } from '../../../lib/wording/command-line';
 
 export const claims: Command = {
 	usage: 'causeway diagram [claims] DIAGRAM [--max N] [--json]',
@@ -11,7 +12,7 @@ export const claims: Command = {
 measured variables given which the diagram says they are independent (d-separated), or says
 that no measured set makes them independent. These are the diagram's testable claims
 ("causeway data tests" holds them to data). Without --max every pair is listed, up to
-${describeCount(CLI_MAX_CLAIM_PAIRS)} pairs (about 3,160 variables); a larger diagram needs --max.
+${formatCount(CLI_MAX_CLAIM_PAIRS)} pairs (about 3,160 variables); a larger diagram needs --max.
   --max N   list at most N claims
   --json    {"claims": [{"a", "b", "given"}]} ("given": null when no measured set separates them)`,
 	options: { max: { type: 'string' } },
@@ -22,7 +23,7 @@ ${describeCount(CLI_MAX_CLAIM_PAIRS)} pairs (about 3,160 variables); a larger di
 		const pairs = (n * (n - 1)) / 2;
 		if (max === undefined && pairs > CLI_MAX_CLAIM_PAIRS) {
 			throw new UsageError(
-				`${ctx.name} looks at every pair of variables: this diagram has ${counted(n, 'variable')}, so ${counted(pairs, 'pair')}, more than the ${describeCount(CLI_MAX_CLAIM_PAIRS)} the command goes through in full (its limit); give --max N to list the first N claims`
+				`${ctx.name} looks at every pair of variables: this diagram has ${countText(n, 'variable')}, so ${countText(pairs, 'pair')}, more than the ${formatCount(CLI_MAX_CLAIM_PAIRS)} the command goes through in full (its limit); give --max N to list the first N claims`
 			);
 		}
 		const list = impliedClaims(d, { max });
@@ -30,14 +31,8 @@ ${describeCount(CLI_MAX_CLAIM_PAIRS)} pairs (about 3,160 variables); a larger di
 			ctx.printJson({ claims: list });
 			return 0;
 		}
-		for (const c of list) {
-			ctx.print(
-				c.given === null
-					? `${c.a} and ${c.b}: not adjacent, but no set of measured variables makes them independent`
-					: `${c.a} ⟂ ${c.b}${c.given.length ? ` | ${c.given.join(', ')}` : ''}`
-			);
-		}
-		if (list.length === 0) ctx.print('The diagram implies no independence between measured variables.');
+		for (const c of list) ctx.print(claimLine(c));
+		if (list.length === 0) ctx.print(NO_CLAIMS);
 		return 0;
 	}
 };

@@ -1,7 +1,7 @@
 /** `causeway diagram separation`: are two sets d-separated given a third, with an open path when not. */
 import { dSeparation } from '../../../lib/causal';
 import { arrowTest } from '../../../lib/wording/names';
-import { braces, pathText } from '../../../lib/wording/command-line';
+import { separationLine } from '../../../lib/wording/command-line';
 import type { Command } from '../../command';
 import { UsageError } from '../../io';
 
@@ -26,9 +26,7 @@ export const separation: Command = {
 			ctx.printJson({ separated: r.separated, path: r.path });
 			return 0;
 		}
-		const condition = given.length ? braces(given) : 'nothing';
-		if (r.separated) ctx.print(`${braces(from)} and ${braces(to)} are d-separated given ${condition}.`);
-		else ctx.print(`${braces(from)} and ${braces(to)} are d-connected given ${condition}; open path: ${pathText(r.path ?? [], arrowTest(d.arrows))}`);
+		ctx.print(separationLine(from, to, given, r.separated ? null : (r.path ?? []), arrowTest(d.arrows)));
 		return 0;
 	}
 };

@@ -1,5 +1,6 @@
 /** `causeway plan instruments`: conditional instruments for the exposure, with their conditioning sets. */
 import { conditionalInstruments } from '../../../lib/causal';
+import { idAsLabel, instrumentText, REVIEW_FIX_TEXT } from '../../../lib/wording';
 import { QUESTION, QUESTION_HELP, type Command } from '../../command';
 
 export const instruments: Command = {
@@ -19,8 +20,8 @@ ${QUESTION_HELP}
 			ctx.printJson({ instruments: list });
 			return 0;
 		}
-		if (list.length === 0) ctx.print('No measured variable is an instrument for this question under the diagram.');
-		for (const i of list) ctx.print(i.given.length === 0 ? `${i.variable} (no conditioning needed)` : `${i.variable} given ${i.given.join(', ')}`);
+		if (list.length === 0) ctx.print(REVIEW_FIX_TEXT.noInstrument);
+		for (const i of list) ctx.print(instrumentText(i, idAsLabel));
 		return 0;
 	}
 };

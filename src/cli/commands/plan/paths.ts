@@ -2,9 +2,8 @@
 import { exposureOutcomePaths } from '../../../lib/causal';
 import { pathCountSentence } from '../../../lib/wording';
 import { arrowTest } from '../../../lib/wording/names';
-import { pathLine } from '../../../lib/wording/command-line';
+import { NO_PATH, pathLine, stoppedLine } from '../../../lib/wording/command-line';
 import { QUESTION, QUESTION_HELP, type Command } from '../../command';
-import { counted } from '../../words';
 
 export const paths: Command = {
 	usage: 'causeway plan paths DIAGRAM [--adjust a,b] [--max N] [--exposure …] [--outcome …] [--json]',
@@ -27,9 +26,9 @@ ${QUESTION_HELP}
 		}
 		const arrows = arrowTest(d.arrows);
 		for (const p of r.paths) ctx.print(pathLine(p, arrows));
-		if (r.paths.length === 0) ctx.print('No path joins the exposure and the outcome.');
+		if (r.paths.length === 0) ctx.print(NO_PATH);
 		else ctx.print(pathCountSentence(r.openNonCausal));
-		if (r.truncated) ctx.print(`… stopped after ${counted(r.paths.length, 'path')} (--max); more exist`);
+		if (r.truncated) ctx.print(stoppedLine(r.paths.length, 'path', '--max'));
 		return 0;
 	}
 };

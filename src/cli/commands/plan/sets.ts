@@ -1,11 +1,10 @@
 /** `causeway plan sets` (the plan's default view): the minimal sufficient adjustment sets. */
 import { adjustmentSets, type Effect } from '../../../lib/causal';
-import { CLI_DEFAULT_LISTED_SETS, describeCount } from '../../../lib/limits';
-import { optimalSetSentence, unmeasuredQuestionNote } from '../../../lib/wording';
-import { braces } from '../../../lib/wording/command-line';
+import { CLI_DEFAULT_LISTED_SETS } from '../../../lib/limits';
+import { formatCount, optimalSetSentence, unmeasuredQuestionNote } from '../../../lib/wording';
+import { braces, noteLine, setsHeader, stoppedLine } from '../../../lib/wording/command-line';
 import { QUESTION, QUESTION_HELP, type Command } from '../../command';
 import { UsageError } from '../../io';
-import { counted } from '../../words';
 
 export const sets: Command = {
 	usage: 'causeway plan [sets] DIAGRAM [--effect total|direct] [--max N] [--exposure …] [--outcome …] [--json]',
@@ -16,7 +15,7 @@ Also prints a minimum-size set and the efficiency-optimal set O (Henckel, Perkov
 Maathuis 2022) when it is made of measured variables. --effect direct lists the sets for the
 direct effect by Pearl's single-door criterion (one exposure, one outcome).
   --effect total|direct   which effect (default total)
-  --max N                 list at most N sets (default ${describeCount(CLI_DEFAULT_LISTED_SETS)}; the output states
+  --max N                 list at most N sets (default ${formatCount(CLI_DEFAULT_LISTED_SETS)}; the output states
                           the cap and says when more sets exist)
 ${QUESTION_HELP}
   --json                  {"exposures", "outcomes", "effect", "identifiable", "sets", "truncated",
@@ -33,18 +32,14 @@ ${QUESTION_HELP}
 			ctx.printJson({ exposures, outcomes, effect: r.effect, identifiable, sets, truncated, max, optimal, minimum });
 			return 0;
 		}
-		const what = `${r.effect} effect of ${r.exposures.join(', ')} on ${r.outcomes.join(', ')}`;
-		if (!r.identifiable) {
-			ctx.print(`The ${what} cannot be identified by adjustment: no set of measured variables is sufficient.`);
-			return 0;
-		}
-		ctx.print(`Minimal sufficient adjustment sets for the ${what} (at most ${describeCount(max)} listed; --max N to change):`);
+		ctx.print(setsHeader(r, max));
+		if (!r.identifiable) return 0;
 		for (const s of r.sets) ctx.print(`  ${braces(s)}`);
-		if (r.truncated) ctx.print(`  … stopped after ${counted(r.sets.length, 'set')} (the cap, --max ${max}); more exist`);
+		if (r.truncated) ctx.print(`  ${stoppedLine(r.sets.length, 'set', `the cap, --max ${max}`)}`);
 		if (r.minimum) ctx.print(`Smallest set: ${braces(r.minimum)}`);
 		if (r.effect === 'total') ctx.print(optimalSetSentence(r, braces).replace(/\.$/, ''));
 		const note = unmeasuredQuestionNote(d, (id) => id, r.exposures, r.outcomes);
-		if (note) ctx.print(`Note: ${note}`);
+		if (note) ctx.print(noteLine(note));
 		return 0;
 	}
 };

@@ -3,7 +3,8 @@
  * adjustment set, with every reason and the fixes.
  */
 import { efficiencyAdvice, reviewAdjustment } from '../../../lib/causal';
-import { arrowTest, reasonWords, reviewVerdict, setWords, unmeasuredQuestionNote } from '../../../lib/wording';
+import { arrowTest, unmeasuredQuestionNote } from '../../../lib/wording';
+import { adviceLines } from '../../../lib/wording/command-line-review';
 import { QUESTION, QUESTION_HELP, type Command } from '../../command';
 
 const id = (x: string) => x;
@@ -33,34 +34,7 @@ ${QUESTION_HELP}
 			ctx.printJson({ ...r, efficiency: { add: efficiency.add, drop: efficiency.drop, optimal: efficiency.optimal, plannedIsOptimal: efficiency.plannedIsOptimal } });
 			return r.valid ? 0 : 1;
 		}
-		const arrows = arrowTest(d.arrows);
-		ctx.print(reviewVerdict(r, id));
-		for (const reason of r.reasons) ctx.print(`  - ${reasonWords(reason, arrows, id)}`);
-		if (r.openPathsTruncated) ctx.print('  - … more open paths exist than are listed');
-		const note = unmeasuredQuestionNote(d, id, r.exposures, r.outcomes);
-		if (note) ctx.print(`Note: ${note}`);
-		if (r.valid) {
-			if (r.droppable.length > 0) ctx.print(`Could be dropped one at a time without harm: ${r.droppable.join(', ')}.`);
-			if (r.minimalSubset && r.minimalSubset.length < r.adjusted.length) ctx.print(`A minimal sufficient set inside it: ${setWords(r.minimalSubset, id)}.`);
-		} else if (r.extension) {
-			ctx.print(`Smallest addition that makes it sufficient: ${setWords(r.extension, id)}.`);
-		} else if (r.extensionBlockedBy.length > 0) {
-			ctx.print(`No addition can make it sufficient while it contains ${r.extensionBlockedBy.join(', ')}.`);
-		} else {
-			ctx.print('No addition of measured variables makes it sufficient.');
-		}
-		if (r.nearest) {
-			const n = r.nearest;
-			const change = [n.add.length ? `add ${n.add.join(', ')}` : '', n.drop.length ? `drop ${n.drop.join(', ')}` : ''].filter(Boolean).join('; ');
-			ctx.print(`Nearest minimal sufficient set: ${setWords(n.set, id)}${change ? ` (${change})` : ' (the stated set itself)'}${n.truncated ? ` — among the first ${n.scanned} minimal sets` : ''}.`);
-		} else {
-			ctx.print('No set of measured variables is sufficient under this diagram.');
-		}
-		if (efficiency.applicable) {
-			for (const a of efficiency.add) if (a.helps) ctx.print(`Precision: adding ${a.variable} keeps the set sufficient and should narrow the confidence interval.`);
-			for (const x of efficiency.drop) if (x.helps) ctx.print(`Instrument-like: ${x.variable} only explains the exposure given the rest; dropping it should narrow the interval (and adjusting for it can amplify residual confounding bias).`);
-			if (efficiency.optimal) ctx.print(efficiency.plannedIsOptimal ? 'This is the efficiency-optimal set (Henckel et al. 2022).' : `Efficiency-optimal set (Henckel et al. 2022): ${setWords(efficiency.optimal, id)}.`);
-		}
+		for (const line of adviceLines(r, efficiency, arrowTest(d.arrows), unmeasuredQuestionNote(d, id, r.exposures, r.outcomes))) ctx.print(line);
 		return r.valid ? 0 : 1;
 	}
 };

@@ -1,10 +1,7 @@
 /** `causeway review robustness`: which single change to the diagram would break the planned set. */
 import { planRobustness, setsRobustToAdditions } from '../../../lib/causal';
-import { setWords, weaknessWords } from '../../../lib/wording';
+import { notSufficientToBeginWith, robustnessLines } from '../../../lib/wording/command-line-review';
 import { QUESTION, QUESTION_HELP, type Command } from '../../command';
-import { counted } from '../../words';
-
-const id = (x: string) => x;
 
 export const robustness: Command = {
 	usage: 'causeway review robustness DIAGRAM [--adjust a,b] [--max N] [--exposure …] [--outcome …] [--json]',
@@ -30,19 +27,10 @@ ${QUESTION_HELP}
 			return r.applicable ? 0 : 1;
 		}
 		if (!r.applicable) {
-			ctx.print(`Adjusting for ${setWords(r.adjusted, id)} is not sufficient to begin with; run "causeway review" first.`);
+			ctx.print(notSufficientToBeginWith(r.adjusted));
 			return 1;
 		}
-		const t = r.tried;
-		ctx.print(`Planned set ${setWords(r.adjusted, id)}: tried ${counted(t.additions, 'added arrow')}, ${counted(t.reversals, 'reversal')} and ${counted(t.unmeasured, 'unmeasured variable')} (${counted(t.deletions, 'deletion')} cannot break it).`);
-		const structural = r.weaknesses.filter((w) => w.failure !== 'unmeasured').length;
-		ctx.print(structural === 0 ? 'No single added or reversed arrow breaks it.' : `${counted(structural, 'single arrow change')} would break it, most direct first:`);
-		const shown = r.weaknesses.slice(0, max ?? 25);
-		for (const w of shown) ctx.print(`  - ${weaknessWords(w, d.arrows, id)}`);
-		if (shown.length < r.weaknesses.length) ctx.print(`  … ${r.weaknesses.length - shown.length} more (--max, or --json for all)`);
-		const how = robustSets.exhaustive ? 'among all sets' : `among ${counted(robustSets.tried, 'candidate set')} (minimal, optimal, largest)`;
-		if (robustSets.sets.length === 0) ctx.print(`No sufficient set survives every single added arrow (${how}).`);
-		else ctx.print(`Sufficient sets that survive every single added arrow (${how}): ${robustSets.sets.map((s) => setWords(s, id)).join(', ')}`);
+		for (const line of robustnessLines(r, robustSets, d.arrows, max ?? 25)) ctx.print(line);
 		return 0;
 	}
 };

@@ -1,9 +1,8 @@
 /** `causeway review verdict`: is the planned set sufficient, and every reason when it is not (exit 1). */
 import { checkFirst } from '../../../lib/causal';
-import { FORBIDDEN_WHY, unmeasuredQuestionNote } from '../../../lib/wording/adjustment';
+import { unmeasuredQuestionNote } from '../../../lib/wording/adjustment';
 import { arrowTest } from '../../../lib/wording/names';
-import { pathKindWords } from '../../../lib/wording/paths';
-import { braces, pathText } from '../../../lib/wording/command-line';
+import { noteLine, quickVerdictLines } from '../../../lib/wording/command-line';
 import { QUESTION, QUESTION_HELP, type Command } from '../../command';
 
 export const verdict: Command = {
@@ -28,17 +27,10 @@ ${QUESTION_HELP}
 		if (ctx.json) {
 			ctx.printJson({ adjusted: r.adjusted, valid: r.valid, problems: r.problems });
 		} else {
-			const sufficient = r.valid ? 'is sufficient to estimate the total effect.' : 'is NOT sufficient to estimate the total effect:';
-			ctx.print(`Adjusting for ${braces(r.adjusted)} ${sufficient}`);
-			const arrows = arrowTest(d.arrows);
-			// Named as the other views and the app name them: "back-door path" when it starts with
-			// an arrow into the exposure, else "non-causal path".
-			for (const p of r.problems) {
-				ctx.print(`  - ${p.kind === 'forbidden' ? `${p.variable} ${FORBIDDEN_WHY[p.why]}` : `open ${pathKindWords({ nodes: p.path, causal: false }, arrows)}: ${pathText(p.path, arrows)}`}`);
-			}
+			for (const line of quickVerdictLines(r, arrowTest(d.arrows))) ctx.print(line);
 			const q = ctx.question();
 			const note = unmeasuredQuestionNote(d, (id) => id, q.exposures ?? d.exposures, q.outcomes ?? d.outcomes);
-			if (note) ctx.print(`Note: ${note}`);
+			if (note) ctx.print(noteLine(note));
 		}
 		return r.valid ? 0 : 1;
 	}
