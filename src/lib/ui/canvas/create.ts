@@ -19,6 +19,23 @@ export interface CanvasParts {
 	destroy(): void;
 }
 
+/** The read-only geometry view's methods (tests/e2e/helpers.ts declares their types). */
+const GEOMETRY_METHODS = ['nodeBox', 'arrowMidpoint', 'nodeClasses', 'arrowClasses', 'counts', 'zoom'] as const;
+type GeometryView = Record<(typeof GEOMETRY_METHODS)[number], (...args: string[]) => unknown>;
+type GeometryHost = { __causewayCanvas: GeometryView };
+
+/**
+ * The geometry view while the canvas shows its first view: each method asks for Cytoscape
+ * (`whenReady`) and answers with a promise of what the real view (set by createCanvas) says.
+ */
+export function deferGeometryView(whenReady: (run: () => void) => void): void {
+	const host = window as unknown as GeometryHost;
+	const deferred = Object.fromEntries(
+		GEOMETRY_METHODS.map((name) => [name, (...args: string[]) => new Promise((resolve) => whenReady(() => resolve(host.__causewayCanvas[name](...args))))])
+	) as GeometryView;
+	host.__causewayCanvas = deferred;
+}
+
 export function createCanvas(cytoscape: typeof cytoscapeType, container: HTMLElement, overlayCanvas: HTMLCanvasElement, onResize: () => void): CanvasParts {
 	const cy = cytoscape({
 		container,
@@ -48,7 +65,7 @@ export function createCanvas(cytoscape: typeof cytoscapeType, container: HTMLEle
 		onResize();
 	});
 	observer.observe(container);
-	(window as unknown as { __causewayCanvas: object }).__causewayCanvas = {
+	(window as unknown as GeometryHost).__causewayCanvas = {
 		nodeBox: (id: string) => view.clientBox(id),
 		arrowMidpoint: (from: string, to: string) => view.arrowMidpoint(from, to),
 		nodeClasses: (id: string) => [...cy.getElementById(nodeKey(id)).classes(), ...overlay.marksOf(id)],
