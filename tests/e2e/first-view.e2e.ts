@@ -61,7 +61,7 @@ test('keys act on the diagram before the canvas has loaded; its view follows', a
 	expect(held.asked()).toBe(true);
 	await expect(firstView(page)).toBeVisible();
 	held.release();
-	const id = await page.evaluate((l) => [...document.querySelectorAll('.static-view g[data-vid]')].find((g) => g.textContent?.startsWith(l))?.getAttribute('data-vid') ?? null, label);
+	const id = await page.evaluate((l) => Array.from(document.querySelectorAll('.static-view g[data-vid]')).find((g) => g.textContent?.startsWith(l))?.getAttribute('data-vid') ?? null, label);
 	expect(id).not.toBeNull();
 	await expect.poll(() => marks(page, id!)).toContain('selected');
 });
