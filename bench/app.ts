@@ -37,8 +37,8 @@ export interface Server {
 	stop(): void;
 }
 
-/** `vite preview` of the built app on a free-ish port; resolves once it answers. */
-export async function serveApp(app: BuiltApp, port = 4319): Promise<Server> {
+/** `vite preview` of the built app on a free-ish port (BENCH_PORT overrides it); resolves once it answers. */
+export async function serveApp(app: BuiltApp, port = Number(process.env.BENCH_PORT ?? 4319)): Promise<Server> {
 	const child: ChildProcess = spawn(
 		process.execPath,
 		[join(app.dir, 'node_modules/vite/bin/vite.js'), 'preview', '--host', '127.0.0.1', '--port', String(port), '--strictPort'],
