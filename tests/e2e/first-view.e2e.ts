@@ -29,7 +29,7 @@ const firstView = (page: Page) => page.getByTestId('static-view');
 test('a click on a variable of the first view selects it once the canvas has loaded', async ({ page }) => {
 	const held = await holdCytoscape(page);
 	await page.goto('/');
-	await expect(verdict(page)).toBeVisible();
+	await expect(verdict(page)).toBeVisible({ timeout: 20_000 });
 	const age = firstView(page).locator('g[data-vid="age"]');
 	await expect(age).toBeVisible();
 	const box = (await age.boundingBox())!;
@@ -47,7 +47,7 @@ test('a click on a variable of the first view selects it once the canvas has loa
 test('keys act on the diagram before the canvas has loaded; its view follows', async ({ page }) => {
 	const held = await holdCytoscape(page);
 	await page.goto('/');
-	await expect(verdict(page)).toBeVisible();
+	await expect(verdict(page)).toBeVisible({ timeout: 20_000 });
 	await canvas(page).focus();
 	await page.keyboard.press('ArrowRight');
 	await expect(announcer(page)).not.toHaveText('');
@@ -75,7 +75,7 @@ test('a double-click on the empty first view starts a new variable once the canv
 	});
 	const held = await holdCytoscape(page);
 	await page.goto('/');
-	await expect(page.getByText('An empty diagram.')).toBeVisible();
+	await expect(page.getByText('An empty diagram.')).toBeVisible({ timeout: 20_000 });
 	const c = (await canvas(page).boundingBox())!;
 	await page.mouse.dblclick(c.x + 300, c.y + 200);
 	await expect.poll(held.asked).toBe(true);

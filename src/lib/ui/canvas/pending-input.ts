@@ -88,27 +88,3 @@ export class PendingPointer {
 		this.#kept = [];
 	}
 }
-
-/**
- * Runs `run` once the page has had nothing else to do for `quietMs` (idle callbacks following
- * each other without a gap, so no task ran between them), or after `latestMs` at the latest.
- * Returns a cancel function.
- */
-export function whenQuiet(run: () => void, quietMs: number, latestMs: number): () => void {
-	const start = performance.now();
-	let since = start;
-	let last = start;
-	let handle = 0;
-	const idle: (cb: () => void) => number = typeof requestIdleCallback === 'function' ? (cb) => requestIdleCallback(cb, { timeout: 200 }) : (cb) => window.setTimeout(cb, 50);
-	const cancelIdle: (h: number) => void = typeof cancelIdleCallback === 'function' ? cancelIdleCallback : clearTimeout;
-	const step = () => {
-		const now = performance.now();
-		// Idle periods are at most 50 ms long: a longer gap means a task ran in between.
-		if (now - last > 100) since = now;
-		last = now;
-		if (now - since >= quietMs || now - start >= latestMs) run();
-		else handle = idle(step);
-	};
-	handle = idle(step);
-	return () => cancelIdle(handle);
-}
