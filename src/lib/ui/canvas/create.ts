@@ -9,7 +9,7 @@ import { canvasStyle } from './style';
 import { arrowKey, nodeKey } from './elements';
 import { attachEdgeHandles, type EdgeHandles } from './edgehandles';
 import { CanvasOverlay } from './overlay';
-import { Viewport } from './viewport';
+import { MAX_ZOOM, MIN_ZOOM, Viewport } from './viewport';
 
 export interface CanvasParts {
 	cy: Core;
@@ -40,8 +40,8 @@ export function createCanvas(cytoscape: typeof cytoscapeType, container: HTMLEle
 	const cy = cytoscape({
 		container,
 		style: canvasStyle,
-		minZoom: 0.15,
-		maxZoom: 3,
+		minZoom: MIN_ZOOM,
+		maxZoom: MAX_ZOOM,
 		boxSelectionEnabled: true,
 		// Selection lives in the editor and is drawn by the overlay (overlay.ts):
 		// Cytoscape's own selection would restyle elements and redraw the whole scene.

@@ -13,14 +13,12 @@ import type { Diagram } from '../../graph/diagram';
 import type { Role } from '../../causal';
 import { nodeLook, questionOf, type Measure } from './elements';
 import { LABEL_FONT_PX, LINE_HEIGHT } from './style';
+import { FIT_PADDING, MAX_FIT_ZOOM, MIN_ZOOM } from './viewport';
 
 /** Above this many variables the canvas loads Cytoscape at once: a large SVG costs as much to lay out and paint. */
 export const STATIC_VIEW_MAX_VARIABLES = 300;
 
-/** Cytoscape's options in create.ts and the viewport's fit (viewport.ts), repeated for the first view. */
-const FIT_PADDING = 48;
-const MIN_ZOOM = 0.15;
-const MAX_FIT_ZOOM = 1.25;
+/** Node borders of style.ts. */
 const BORDER = 1.5;
 const UNMEASURED_BORDER = 2;
 /** The note mark's distance from the arrow's start (`source-text-offset` in style.ts). */
