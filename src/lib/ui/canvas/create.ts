@@ -25,13 +25,21 @@ type GeometryView = Record<(typeof GEOMETRY_METHODS)[number], (...args: string[]
 type GeometryHost = { __causewayCanvas: GeometryView };
 
 /**
- * The geometry view while the canvas shows its first view: each method asks for Cytoscape
- * (`whenReady`) and answers with a promise of what the real view (set by createCanvas) says.
+ * The geometry view while the canvas shows its first view: the geometry from the picture
+ * (`firstView`, static-scene.ts) while it is drawn, else — and for the classes, which the
+ * overlay knows — a promise of the real view's answer, asking for Cytoscape (`whenReady`).
  */
-export function deferGeometryView(whenReady: (run: () => void) => void): void {
+export function deferGeometryView(whenReady: (run: () => void) => void, firstView: () => Partial<GeometryView> | null): void {
 	const host = window as unknown as GeometryHost;
+	const later = (name: (typeof GEOMETRY_METHODS)[number], args: string[]) => new Promise((resolve) => whenReady(() => resolve(host.__causewayCanvas[name](...args))));
 	const deferred = Object.fromEntries(
-		GEOMETRY_METHODS.map((name) => [name, (...args: string[]) => new Promise((resolve) => whenReady(() => resolve(host.__causewayCanvas[name](...args))))])
+		GEOMETRY_METHODS.map((name) => [
+			name,
+			(...args: string[]) => {
+				const now = firstView()?.[name];
+				return now ? now(...args) : later(name, args);
+			}
+		])
 	) as GeometryView;
 	host.__causewayCanvas = deferred;
 }

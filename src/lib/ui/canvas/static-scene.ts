@@ -49,6 +49,8 @@ export interface StaticArrow {
 	y2: number;
 	/** The arrowhead's three corners, "x,y x,y x,y". */
 	head: string;
+	/** The middle of the drawn arrow, from border to tip (Cytoscape's midpoint of a straight edge). */
+	mid: { x: number; y: number };
 	/** Where the note mark (NOTE_MARK) goes, for an arrow with a note. */
 	note: { x: number; y: number } | null;
 }
@@ -93,6 +95,40 @@ function fitOf(nodes: readonly StaticNode[], width: number, height: number): { z
 	return { zoom, pan: centred };
 }
 
+const arrowSceneKey = (from: string, to: string) => `${from}\u0000${to}`;
+
+export interface Box {
+	x: number;
+	y: number;
+	width: number;
+	height: number;
+}
+
+/**
+ * What the first view shows, in page pixels, for the read-only geometry view that browser tests
+ * read (create.ts): the same answers as Cytoscape's for the same diagram and view size.
+ */
+export function sceneGeometry(scene: StaticScene, container: HTMLElement) {
+	const page = (x: number, y: number) => {
+		const r = container.getBoundingClientRect();
+		return { x: r.left + x * scene.zoom + scene.pan.x, y: r.top + y * scene.zoom + scene.pan.y };
+	};
+	return {
+		nodeBox(id: string): Box | null {
+			const n = scene.nodes.find((m) => m.id === id);
+			if (!n) return null;
+			const b = (n.unmeasured ? UNMEASURED_BORDER : BORDER) / 2;
+			return { ...page(n.x - n.w / 2 - b, n.y - n.h / 2 - b), width: (n.w + 2 * b) * scene.zoom, height: (n.h + 2 * b) * scene.zoom };
+		},
+		arrowMidpoint(from: string, to: string): { x: number; y: number } | null {
+			const a = scene.arrows.find((m) => m.key === arrowSceneKey(from, to));
+			return a ? page(a.mid.x, a.mid.y) : null;
+		},
+		counts: () => ({ variables: scene.nodes.length, arrows: scene.arrows.length }),
+		zoom: () => scene.zoom
+	};
+}
+
 export function staticScene(d: Diagram, roles: ReadonlyMap<string, readonly Role[]>, measure: Measure, width: number, height: number): StaticScene {
 	const q = questionOf(d);
 	const byId = new Map<string, StaticNode>();
@@ -127,7 +163,8 @@ export function staticScene(d: Diagram, roles: ReadonlyMap<string, readonly Role
 		const half = ARROW_SIZE / 2;
 		const head = [tip, { x: base.x - uy * half, y: base.y + ux * half }, { x: base.x + uy * half, y: base.y - ux * half }].map((p) => `${p.x},${p.y}`).join(' ');
 		const note = a.note?.trim() ? { x: from.x + ux * NOTE_OFFSET, y: from.y + uy * NOTE_OFFSET } : null;
-		arrows.push({ key: `${a.from}\u0000${a.to}`, x1: from.x, y1: from.y, x2: base.x, y2: base.y, head, note });
+		const mid = { x: (from.x + tip.x) / 2, y: (from.y + tip.y) / 2 };
+		arrows.push({ key: arrowSceneKey(a.from, a.to), x1: from.x, y1: from.y, x2: base.x, y2: base.y, head, mid, note });
 	}
 	return { nodes, arrows, ...fitOf(nodes, width, height), lineStep: LABEL_FONT_PX * LINE_HEIGHT };
 }
