@@ -1,5 +1,6 @@
 /**
- * The built app for sections 5 and 6: the committed tree (git archive HEAD) is built with
+ * The built app for sections 5 and 6: the committed tree (git archive HEAD, or the commit named
+ * by BENCH_APP_REV, to measure an earlier version on the same machine load) is built with
  * `vite build` in a temporary directory — so the benchmark measures what is committed and
  * never touches build/ while other work serves it — then served by `vite preview`, and driven
  * by Debian's Chromium through Playwright.
@@ -19,7 +20,8 @@ export interface BuiltApp {
 export function buildApp(): BuiltApp {
 	const root = resolve('.');
 	const dir = mkdtempSync(join(tmpdir(), 'causeway-bench-app-'));
-	execFileSync('bash', ['-c', `git -C "${root}" archive HEAD | tar -x -C "${dir}"`]);
+	const rev = process.env.BENCH_APP_REV ?? 'HEAD';
+	execFileSync('bash', ['-c', `git -C "${root}" archive "$1" | tar -x -C "${dir}"`, 'archive', rev]);
 	symlinkSync(join(root, 'node_modules'), join(dir, 'node_modules'));
 	const t0 = performance.now();
 	execFileSync(process.execPath, [join(root, 'node_modules/vite/bin/vite.js'), 'build', '--logLevel', 'error'], { cwd: dir, stdio: ['ignore', 'ignore', 'pipe'] });
@@ -35,8 +37,8 @@ export interface Server {
 	stop(): void;
 }
 
-/** `vite preview` of the built app on a free-ish port; resolves once it answers. */
-export async function serveApp(app: BuiltApp, port = 4319): Promise<Server> {
+/** `vite preview` of the built app on a free-ish port (BENCH_PORT overrides it); resolves once it answers. */
+export async function serveApp(app: BuiltApp, port = Number(process.env.BENCH_PORT ?? 4319)): Promise<Server> {
 	const child: ChildProcess = spawn(
 		process.execPath,
 		[join(app.dir, 'node_modules/vite/bin/vite.js'), 'preview', '--host', '127.0.0.1', '--port', String(port), '--strictPort'],

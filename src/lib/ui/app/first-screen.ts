@@ -1,13 +1,13 @@
 /**
- * What the first screen needs, requested while the app's code starts rather than after it has
- * mounted (bench section 6: both requests used to start about 0.7 s into a cold load): the
- * canvas's drawing code, and on a first visit the demo study.
+ * On a first visit the demo study is requested while the app's code starts, not after it has
+ * mounted (bench section 6: the request used to start about 0.7 s into a cold load). The
+ * canvas's drawing code is not: the canvas shows a first view without it and loads it on demand
+ * (Canvas.svelte, canvas/on-demand.ts).
  */
 import { base as appBase } from '$app/paths';
 import type { Diagram } from '../../graph/diagram';
 import { parseDiagramJson } from '../../graph/native-json';
 import { VISITED_KEY } from '../../editor/autosave';
-import { loadCytoscape } from '../canvas/load-cytoscape';
 
 const DEMO_URL = `${appBase}/demo/cycling-hypertension.causeway.json`;
 
@@ -17,7 +17,6 @@ const demoResponse = () => (demoRequest ??= fetch(DEMO_URL));
 /** Called once, when App.svelte's module is evaluated in the browser. */
 export function requestFirstScreen(): void {
 	if (typeof window === 'undefined') return;
-	void loadCytoscape();
 	try {
 		if (localStorage.getItem(VISITED_KEY) === null) void demoResponse().catch(() => undefined);
 	} catch {

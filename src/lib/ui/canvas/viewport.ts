@@ -5,6 +5,12 @@
 import type { Core, EdgeSingular } from 'cytoscape';
 import { arrowKey, nodeKey } from './elements';
 
+/** The zoom range of the canvas (create.ts), and the fit's margin and largest zoom (also the first view's, static-scene.ts). */
+export const MIN_ZOOM = 0.15;
+export const MAX_ZOOM = 3;
+export const FIT_PADDING = 48;
+export const MAX_FIT_ZOOM = 1.25;
+
 export interface Point {
 	x: number;
 	y: number;
@@ -24,16 +30,16 @@ export class Viewport {
 			cy.pan({ x: container.clientWidth / 2, y: container.clientHeight / 2 });
 			return;
 		}
-		cy.fit(undefined, 48);
-		if (cy.zoom() > 1.25) {
-			cy.zoom(1.25);
+		cy.fit(undefined, FIT_PADDING);
+		if (cy.zoom() > MAX_FIT_ZOOM) {
+			cy.zoom(MAX_FIT_ZOOM);
 			cy.center();
 			return;
 		}
 		// Too large to fit even at the smallest zoom (a 1,000-variable diagram): the clamped fit
 		// left the drawing off-centre with its top-left corner mid-screen; show that corner.
 		const bb = cy.elements().renderedBoundingBox({});
-		if (bb.w > container.clientWidth || bb.h > container.clientHeight) cy.panBy({ x: 48 - bb.x1, y: 48 - bb.y1 });
+		if (bb.w > container.clientWidth || bb.h > container.clientHeight) cy.panBy({ x: FIT_PADDING - bb.x1, y: FIT_PADDING - bb.y1 });
 	}
 
 	/** Zooms about the middle of the canvas. */
