@@ -9,7 +9,7 @@
  * was 8 % of `causeway test` on 10⁶ rows, profiled with node --cpu-prof).
  */
 import { sortedOrder, type Ranking, type SortScratch } from '../association/ranks';
-import { POLL_MASK, type Interrupt } from './interrupt';
+import type { Interrupt } from './interrupt';
 
 export class ColumnOrder {
 	/** Row indices in ascending order of value (missing values last or first; never read). */
@@ -41,39 +41,38 @@ export class ColumnOrder {
 		return this.ranksOver(rows, interrupt);
 	}
 
+	/**
+	 * Mid-ranks from the dense ids of the distinct values: the rows of each id counted, each
+	 * id's mid-rank from the counts before it, then one gather per row. Reason: walking the
+	 * order read the values and wrote the ranks at random rows (a cache miss each at 10⁶ rows;
+	 * ranksOver was 9 % of `causeway test`, node --cpu-prof); here the rows are read in their
+	 * own order and only the small per-id tables are read at random. Same numbers and sums, in
+	 * the same order as walking the runs of equal values. O(n + distinct values).
+	 */
 	private ranksOver(rows: Int32Array, interrupt?: Interrupt): Ranking {
-		const { order, values } = this;
-		const pos = this.positions(rows);
-		const ranks = new Float64Array(rows.length);
+		interrupt?.poll();
+		const { ids, count } = this.distinctIds();
+		const counts = new Float64Array(count);
+		for (let k = 0; k < rows.length; k++) {
+			const id = ids[rows[k]];
+			if (id >= 0) counts[id]++;
+		}
+		interrupt?.poll();
+		const mid = new Float64Array(count);
 		let tieSum = 0;
 		let rank = 0; // ranks given so far
-		let runStart = -1; // index in `order` where the current run of equal values starts
-		let runCount = 0;
-		const close = (end: number) => {
-			if (runCount === 0) return;
-			const mid = (2 * rank + runCount + 1) / 2;
-			for (let i = runStart; i < end; i++) {
-				const r = order[i];
-				const k = pos === null ? r : pos[r];
-				if (k >= 0) ranks[k] = mid;
-			}
-			if (runCount > 1) tieSum += runCount * runCount * runCount - runCount;
-			rank += runCount;
-			runCount = 0;
-		};
-		let last = NaN;
-		for (let i = 0; i < order.length; i++) {
-			if ((i & POLL_MASK) === 0) interrupt?.poll();
-			const r = order[i];
-			if (pos !== null && pos[r] < 0) continue;
-			if (pos === null && values[r] !== values[r]) continue; // missing (never in a complete-case set)
-			const v = values[r];
-			if (runCount > 0 && v !== last) close(i);
-			if (runCount === 0) runStart = i;
-			runCount++;
-			last = v;
+		for (let id = 0; id < count; id++) {
+			const t = counts[id];
+			if (t === 0) continue;
+			mid[id] = (2 * rank + t + 1) / 2;
+			if (t > 1) tieSum += t * t * t - t;
+			rank += t;
 		}
-		close(order.length);
+		const ranks = new Float64Array(rows.length);
+		for (let k = 0; k < rows.length; k++) {
+			const id = ids[rows[k]];
+			if (id >= 0) ranks[k] = mid[id];
+		}
 		return { ranks, tieSum };
 	}
 
