@@ -64,7 +64,7 @@ function watch(page: Page, rowsText: string): Promise<Timeline> {
 						const tick = () => {
 							const now = performance.now() - t0;
 							const reading = section.querySelector('[data-testid="data-progress"]');
-							const checking = [...section.querySelectorAll('.progress')].find((p) => p !== reading);
+							const checking = Array.from(section.querySelectorAll('.progress')).find((p) => p !== reading);
 							for (const p of [reading, checking]) {
 								const text = p?.textContent?.trim();
 								if (!text || seen.has(text)) continue;
@@ -103,7 +103,7 @@ async function cancelWhile(page: Page, csv: string, which: 'reading' | 'checking
 		const find = () =>
 			which === 'reading'
 				? s.querySelector('[data-testid="data-progress"]')
-				: [...s.querySelectorAll('.progress')].find((p) => p.textContent?.includes('Checking')) ?? null;
+				: Array.from(s.querySelectorAll('.progress')).find((p) => p.textContent?.includes('Checking')) ?? null;
 		const button = find()?.querySelector('button') as HTMLButtonElement;
 		const t0 = performance.now();
 		button.click();

@@ -18,6 +18,7 @@ export class ColumnOrder {
 	/** The ranks over every row, kept: most checks use complete columns. */
 	private allRanks: Ranking | null = null;
 	private count: number | null = null;
+	private first: Int32Array | null = null;
 
 	constructor(
 		readonly values: Float64Array,
@@ -76,8 +77,79 @@ export class ColumnOrder {
 		return { ranks, tieSum };
 	}
 
-	/** `rows` in ascending order of value. O(n). */
+	/**
+	 * `rows` in ascending order of value, ties in row order. When `rows` ascend and have no
+	 * missing value (every complete-case set): a counting sort on the distinct-value ids, which
+	 * reads the rows in their own order (walking the sort order read at random rows: sortedRows
+	 * and sortedValues were 17 % of `causeway estimate`, node --cpu-prof). Else the walk. O(n).
+	 */
 	sortedRows(rows: Int32Array): Int32Array {
+		const starts = this.idStarts(rows);
+		if (starts === null) return this.walkSorted(rows);
+		const ids = (this.ids as { ids: Int32Array }).ids;
+		const out = new Int32Array(rows.length);
+		for (let k = 0; k < rows.length; k++) out[starts[ids[rows[k]]]++] = rows[k];
+		return out;
+	}
+
+	/** The values at `rows`, ascending. O(n). */
+	sortedValues(rows: Int32Array): Float64Array {
+		const counts = this.idCounts(rows);
+		if (counts === null) {
+			const sorted = this.walkSorted(rows);
+			const out = new Float64Array(sorted.length);
+			for (let k = 0; k < sorted.length; k++) out[k] = this.values[sorted[k]];
+			return out;
+		}
+		const first = this.firstRows();
+		const out = new Float64Array(rows.length);
+		let k = 0;
+		for (let id = 0; id < counts.length; id++) {
+			const v = this.values[first[id]];
+			for (let c = counts[id]; c > 0; c--) out[k++] = v;
+		}
+		return out;
+	}
+
+	/** Rows per distinct-value id over `rows`; null when `rows` do not ascend or hold a missing value. */
+	private idCounts(rows: Int32Array): Int32Array | null {
+		const { ids, count } = this.distinctIds();
+		const counts = new Int32Array(count);
+		let last = -1;
+		for (let k = 0; k < rows.length; k++) {
+			const r = rows[k];
+			const id = ids[r];
+			if (id < 0 || r <= last) return null;
+			counts[id]++;
+			last = r;
+		}
+		return counts;
+	}
+
+	/** Where each id's rows start in the sorted output (prefix sums of idCounts), or null. */
+	private idStarts(rows: Int32Array): Int32Array | null {
+		const counts = this.idCounts(rows);
+		if (counts === null) return null;
+		let at = 0;
+		for (let id = 0; id < counts.length; id++) {
+			const c = counts[id];
+			counts[id] = at;
+			at += c;
+		}
+		return counts;
+	}
+
+	/** A row holding each distinct value (the first in the sort order). */
+	private firstRows(): Int32Array {
+		if (this.first) return this.first;
+		const { ids, count } = this.distinctIds();
+		const first = new Int32Array(count).fill(-1);
+		for (let r = ids.length - 1; r >= 0; r--) if (ids[r] >= 0) first[ids[r]] = r;
+		return (this.first = first);
+	}
+
+	/** The sort order walked, keeping `rows`. O(n). */
+	private walkSorted(rows: Int32Array): Int32Array {
 		const { order, values } = this;
 		const pos = this.positions(rows);
 		const out = new Int32Array(rows.length);
@@ -86,14 +158,6 @@ export class ColumnOrder {
 			const r = order[i];
 			if (pos === null ? values[r] === values[r] : pos[r] >= 0) out[k++] = r;
 		}
-		return out;
-	}
-
-	/** The values at `rows`, ascending. O(n). */
-	sortedValues(rows: Int32Array): Float64Array {
-		const sorted = this.sortedRows(rows);
-		const out = new Float64Array(sorted.length);
-		for (let k = 0; k < sorted.length; k++) out[k] = this.values[sorted[k]];
 		return out;
 	}
 
