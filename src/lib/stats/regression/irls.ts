@@ -18,7 +18,7 @@
 import { StatsError } from '../errors';
 import type { Interrupt } from '../sufficient/interrupt';
 import { cholesky, choleskySolve } from './linalg';
-import { rowPass, rowPassScratch, type RowPassScratch } from './irls-row-pass';
+import { rowPass, rowPassScratch, type DesignSource, type RowPassScratch } from './irls-row-pass';
 
 export { ylogy } from './irls-row-pass';
 
@@ -32,6 +32,8 @@ export interface IrlsData {
 	/** Outcome per row in [0, 1] (trials null), or events per pattern. */
 	y: Float64Array;
 	trials: Float64Array | null;
+	/** Per-row form only: read the design columns from these vectors instead of `x` (`cols` index them). */
+	source?: DesignSource;
 }
 
 export interface IrlsOptions {

@@ -17,7 +17,6 @@ export class ColumnOrder {
 	private ids: { ids: Int32Array; count: number } | null = null;
 	/** The ranks over every row, kept: most checks use complete columns. */
 	private allRanks: Ranking | null = null;
-	private count: number | null = null;
 	private first: Int32Array | null = null;
 
 	constructor(
@@ -161,21 +160,9 @@ export class ColumnOrder {
 		return out;
 	}
 
-	/** Number of distinct values (missing not counted). O(n) once. */
+	/** Number of distinct values (missing not counted): from distinctIds, which the ranks and patterns use too. O(n) once. */
 	distinctCount(): number {
-		if (this.count === null) {
-			const { order, values } = this;
-			let count = 0;
-			let last = NaN;
-			for (let i = 0; i < order.length; i++) {
-				const v = values[order[i]];
-				if (v !== v) continue;
-				if (count === 0 || v !== last) count++;
-				last = v;
-			}
-			this.count = count;
-		}
-		return this.count;
+		return this.distinctIds().count;
 	}
 
 	/** Dense ids 0…count−1 of the distinct values, per row (−1 for missing). O(n). */
