@@ -6,7 +6,7 @@
  *   npm run bench                 full run (about 10–15 minutes on a 2-core machine)
  *   npm run bench -- --quick      smaller sizes of every section (about 2–3 minutes); not written
  *   npm run bench -- --only=1,3   some sections only (1 d-sep, 2 listing, 3 claims, 4 data (4c: only the
- *                                 million-row reading, commands and R),
+ *                                 million-row reading, commands and R; 4d: the Data section at 10⁶ rows in Chromium),
  *                                 5 editor, 6 bundle, 7 reviewer tools, 8 paths, cli command line); not written
  *   npm run bench -- --only=layout   layout and SVG export of large diagrams (bench/layout.ts)
  *   --no-write / --write          override whether bench/RESULTS.md is written
@@ -20,6 +20,7 @@ import { benchClaims } from './claims';
 import { benchData } from './data';
 import { benchLogistic } from './logistic';
 import { benchDataScale } from './data-scale';
+import { benchDataBrowser } from './data-browser';
 import { benchEditor } from './editor';
 import { benchBundle } from './bundle';
 import { benchPaths } from './paths';
@@ -66,7 +67,7 @@ async function main(): Promise<void> {
 	await section('4', () => benchLogistic(quick ? 100_000 : 1_000_000, quick ? 1 : 3));
 	await section(only?.has('4c') ? '4c' : '4', () => benchDataScale(quick ? 100_000 : 1_000_000, quick ? 1 : 3));
 
-	if (wanted('5') || wanted('6')) {
+	if (wanted('5') || wanted('6') || wanted('4d')) {
 		let app: BuiltApp | null = null;
 		try {
 			app = buildApp();
@@ -88,6 +89,7 @@ async function main(): Promise<void> {
 						: { title: '5. The editor', rows: [], skipped: noBrowser }
 				);
 				await section('6', () => benchBundle(built, browser, server?.url ?? null, quick ? 1 : 3, noBrowser));
+				await section('4d', () => benchDataBrowser(browser, server?.url ?? null, quick ? 100_000 : 1_000_000));
 			} finally {
 				await browser?.close();
 				server?.stop();

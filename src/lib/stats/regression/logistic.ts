@@ -27,6 +27,7 @@ import type { Interrupt } from '../sufficient/interrupt';
 import { checkCollinearity, type CollinearityCheck, type DroppedColumn } from './collinearity';
 import { buildDesign, type Design } from './design';
 import { irls, ylogy, type IrlsResult } from './irls';
+import type { DesignSource } from './irls-row-pass';
 import type { Coefficient } from './linear';
 import { cholesky, choleskyInverse } from './linalg';
 
@@ -63,6 +64,8 @@ export interface LogisticOptions {
 	/** The collinearity check of the design, when already known (sufficient statistics). */
 	collinearity?: CollinearityCheck;
 	interrupt?: Interrupt;
+	/** Read the design's columns from these vectors and rows (design.x unused; irls-row-pass.ts). */
+	source?: DesignSource;
 }
 
 /** Fit on a prepared design; y may be 0/1 or fractions in [0, 1]. */
@@ -78,7 +81,7 @@ export function fitLogistic(design: Design, options: LogisticOptions = {}): Logi
 	const { n } = design;
 	const p = check.keep.length;
 	if (n <= p) throw new StatsError(`Too few complete cases (${n}) for ${p} coefficients.`);
-	const result = irls({ x: design.x, stride: design.p, cols: Int32Array.from(check.keep), units: n, y, trials: null }, options);
+	const result = irls({ x: design.x, stride: design.p, cols: Int32Array.from(check.keep), units: n, y, trials: null, source: options.source }, options);
 	let events = 0;
 	for (let k = 0; k < n; k++) events += y[k];
 	const ybar = events / n;

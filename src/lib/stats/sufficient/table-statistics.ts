@@ -288,8 +288,9 @@ export class TableStatistics {
 			if (n <= names.length) throw new StatsError(`Too few complete cases (${n}) for ${names.length} coefficients.`);
 			fit = logisticFit(result, { names, n, events, nullDeviance: binaryNullDeviance(events, n), dropped: check.dropped, notes: plan.notes, maxIterations: 25 });
 		} else {
-			const design = this.design(plan);
-			fit = fitLogistic(design, { collinearity: check, start: start ?? subsampleStart(design, check.keep, this.interrupt), interrupt: this.interrupt });
+			// No n × p matrix: the fit reads the plan's vectors a block at a time (irls-row-pass.ts).
+			const design: Design = { ...plan, x: new Float64Array(0), y: responseNumbers(plan, response) };
+			fit = fitLogistic(design, { collinearity: check, start: start ?? subsampleStart(plan, design.y as Float64Array, check.keep, this.interrupt), interrupt: this.interrupt, source: plan });
 		}
 		this.fits.set(key, fit);
 		this.fitKeys.set(fit, key);
@@ -349,23 +350,32 @@ const STRIDE = 16;
  * study at 10⁶ rows, four models); the result is the same maximum (irls.ts polishes warm
  * fits). Null below SUBSAMPLE_FROM rows, where the cold fit is kept as it was.
  */
-function subsampleStart(design: Design, keep: readonly number[], interrupt: Interrupt): Float64Array | null {
-	const { n, p, x, y } = design;
-	if (n < SUBSAMPLE_FROM || !y) return null;
+function subsampleStart(plan: DesignPlan, y: Float64Array, keep: readonly number[], interrupt: Interrupt): Float64Array | null {
+	const { n, rows } = plan;
+	if (n < SUBSAMPLE_FROM) return null;
 	const m = Math.floor(n / STRIDE);
-	const xs = new Float64Array(m * p);
+	const sub = new Int32Array(m);
 	const ys = new Float64Array(m);
 	for (let i = 0; i < m; i++) {
-		const k = i * STRIDE;
-		xs.set(x.subarray(k * p, (k + 1) * p), i * p);
-		ys[i] = y[k];
+		sub[i] = rows[i * STRIDE];
+		ys[i] = y[i * STRIDE];
 	}
 	try {
-		return irls({ x: xs, stride: p, cols: Int32Array.from(keep), units: m, y: ys, trials: null }, { interrupt }).beta;
+		const source = { vectors: plan.vectors, rows: sub };
+		return irls({ x: new Float64Array(0), stride: plan.p, cols: Int32Array.from(keep), units: m, y: ys, trials: null, source }, { interrupt }).beta;
 	} catch (e) {
 		if (e instanceof StatsError) return null; // e.g. singular on the subsample: start as R does
 		throw e;
 	}
+}
+
+/** The plan's outcome over its rows, as numbers. O(n). */
+function responseNumbers(plan: DesignPlan, response: TableVector): Float64Array {
+	const { rows, n } = plan;
+	const y = new Float64Array(n);
+	if (response.kind === 'values') for (let k = 0; k < n; k++) y[k] = response.values[rows[k]];
+	else if (response.kind === 'codes') for (let k = 0; k < n; k++) y[k] = response.codes[rows[k]];
+	return y;
 }
 
 function responseVector(plan: DesignPlan): TableVector {
