@@ -9,7 +9,8 @@ import { createReadStream } from 'node:fs';
 import { readFile, stat } from 'node:fs/promises';
 import type { Diagram } from '../../../lib/graph/diagram';
 import { InputError } from '../../../lib/graph/errors';
-import { parseTable, parseTableStream, StatsError, type ColumnKind, type Table, type TableSource } from '../../../lib/stats';
+import { expandGroupedTable, parseTable, parseTableStream, StatsError, suggestCountColumn, type ColumnKind, type Table, type TableSource } from '../../../lib/stats';
+import { countColumnHint } from '../../../lib/wording/warehouse';
 import { parseSummaryMatrix, runDataChecks, runSummaryChecks, SETTINGS_WHERE, type DataCheckOptions, type DataCheckReport } from '../../../lib/datacheck';
 import { UsageError } from '../../io';
 import { describeFsError, readDiagramInput } from '../../read-input';
@@ -18,7 +19,9 @@ import type { Context, Options } from '../../command';
 export const DATA_OPTIONS: Options = {
 	map: { type: 'string', multiple: true },
 	type: { type: 'string', multiple: true },
-	summary: { type: 'boolean' }
+	summary: { type: 'boolean' },
+	count: { type: 'string' },
+	sql: { type: 'string' }
 };
 
 export const DATA_HELP = `DATA is a CSV or TSV file with a header row (delimiter, decimal comma and missing values
@@ -29,7 +32,12 @@ Other variables are matched to columns by id or label, ignoring case and punctua
 variables without a column are treated as unmeasured for the checks.
   --map var=column,…      link variables to columns, over the file (var= leaves it without data)
   --type column=kind,…    column kind, over the file: binary, categorical, ordinal or continuous
-  --summary               DATA is a summary matrix (see docs/data.md)`;
+  --summary               DATA is a summary matrix (see docs/data.md)
+  --count COLUMN          DATA is a grouped table: each line stands for COLUMN rows (whole
+                          numbers ≥ 0, at most 10,000,000 rows in all), e.g. GROUP BY … COUNT(*)
+  --sql DIALECT[:TABLE]   print the SQL that makes the summary these checks need, for duckdb,
+                          postgres or spark (DATA optional; run it where the rows are, then
+                          read its result with --count n, or with --summary for moments)`;
 
 const KINDS = new Set<ColumnKind>(['binary', 'categorical', 'ordinal', 'continuous']);
 
@@ -71,10 +79,30 @@ async function streamFile(path: string): Promise<{ source: TableSource; size: nu
  * `estimate` and `export --data` accept and refuse the same files with the same words.
  */
 export async function readDataTable(ctx: Context, path: string): Promise<Table> {
+	return (await readDataWithNote(ctx, path)).table;
+}
+
+/**
+ * The table, with --count the grouped table's rows (stats/table/grouped.ts); the note says
+ * how many lines stood for how many rows, or, without --count, that a column named n, count
+ * or freq holding only whole numbers ≥ 1 may be counts of rows (a hint, never applied).
+ */
+async function readDataWithNote(ctx: Context, path: string): Promise<{ table: Table; note: string | null }> {
 	const file = ctx.io.readFile ? null : await streamFile(path);
 	const parsed = file ? await parseTableStream(file.source, { totalBytes: file.size }) : parseTable(await readText(ctx, path));
 	if (!parsed.ok) throw new InputError(`${path}: ${parsed.error.message}`);
-	return parsed.table;
+	const count = ctx.values.count;
+	if (typeof count !== 'string') {
+		const hint = suggestCountColumn(parsed.table);
+		return { table: parsed.table, note: hint === null ? null : countColumnHint(hint, 'cli') };
+	}
+	try {
+		const table = expandGroupedTable(parsed.table, count);
+		return { table, note: table.notes[table.notes.length - 1] };
+	} catch (e) {
+		if (e instanceof StatsError) throw new InputError(`${path}: ${e.message}`);
+		throw e;
+	}
 }
 
 export interface DataInput {
@@ -108,8 +136,9 @@ export async function runOnData(ctx: Context, usage: string, extra: Partial<Data
 			const summary = parseSummaryMatrix(await readText(ctx, dataPath));
 			return { diagram, dataName: dataPath, report: runSummaryChecks(diagram, summary, { mapping, ...extra }) };
 		}
-		const table = await readDataTable(ctx, dataPath);
-		return { diagram, dataName: dataPath, report: runDataChecks(diagram, table, { mapping, types, ...extra }) };
+		const { table, note } = await readDataWithNote(ctx, dataPath);
+		const report = runDataChecks(diagram, table, { mapping, types, ...extra });
+		return { diagram, dataName: dataPath, report: note === null ? report : { ...report, notes: [note, ...report.notes] } };
 	} catch (e) {
 		if (e instanceof StatsError) throw new InputError(where(e));
 		if (e instanceof InputError && e.where === SETTINGS_WHERE) throw new InputError(`${where(e)} (--map overrides the diagram's link)`);
