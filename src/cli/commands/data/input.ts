@@ -11,6 +11,7 @@ import type { Diagram } from '../../../lib/graph/diagram';
 import { InputError } from '../../../lib/graph/errors';
 import { expandGroupedTable, parseTable, parseTableStream, StatsError, suggestCountColumn, type ColumnKind, type Table, type TableSource } from '../../../lib/stats';
 import { countColumnHint } from '../../../lib/wording/warehouse';
+import { groupedCountsSql, isMomentsText, momentsSql, parseSqlTarget, readMoments, summaryPlan } from '../../../lib/datacheck/warehouse';
 import { parseSummaryMatrix, runDataChecks, runSummaryChecks, SETTINGS_WHERE, type DataCheckOptions, type DataCheckReport } from '../../../lib/datacheck';
 import { UsageError } from '../../io';
 import { describeFsError, readDiagramInput } from '../../read-input';
@@ -20,9 +21,11 @@ export const DATA_OPTIONS: Options = {
 	map: { type: 'string', multiple: true },
 	type: { type: 'string', multiple: true },
 	summary: { type: 'boolean' },
-	count: { type: 'string' },
-	sql: { type: 'string' }
+	count: { type: 'string' }
 };
+
+/** `--sql DIALECT[:TABLE]`, on the views whose checks a summary can carry (tests, estimates). */
+export const SQL_OPTION: Options = { sql: { type: 'string' } };
 
 export const DATA_HELP = `DATA is a CSV or TSV file with a header row (delimiter, decimal comma and missing values
 "", NA, ".", NaN are detected), or with --summary a correlation or covariance matrix with n.
@@ -34,10 +37,13 @@ variables without a column are treated as unmeasured for the checks.
   --type column=kind,…    column kind, over the file: binary, categorical, ordinal or continuous
   --summary               DATA is a summary matrix (see docs/data.md)
   --count COLUMN          DATA is a grouped table: each line stands for COLUMN rows (whole
-                          numbers ≥ 0, at most 10,000,000 rows in all), e.g. GROUP BY … COUNT(*)
-  --sql DIALECT[:TABLE]   print the SQL that makes the summary these checks need, for duckdb,
-                          postgres or spark (DATA optional; run it where the rows are, then
-                          read its result with --count n, or with --summary for moments)`;
+                          numbers ≥ 0, at most 10,000,000 rows in all), e.g. GROUP BY … COUNT(*)`;
+
+export const SQL_HELP = `  --sql DIALECT[:TABLE]   print the SQL that summarizes TABLE (default "data") where it lives for
+                          these checks — grouped counts, and sums and cross-products when every
+                          linked column is continuous — for duckdb, postgres or spark; DATA is
+                          then optional (a sample gives the kinds). Read the result back with
+                          --count n, or the moments with --summary`;
 
 const KINDS = new Set<ColumnKind>(['binary', 'categorical', 'ordinal', 'continuous']);
 
@@ -105,6 +111,46 @@ async function readDataWithNote(ctx: Context, path: string): Promise<{ table: Ta
 	}
 }
 
+/** --map and --type as the pipeline's overrides. */
+function overrides(ctx: Context): { mapping: Record<string, string | null>; types: Record<string, ColumnKind> } {
+	const mapping: Record<string, string | null> = {};
+	for (const [v, c] of pairs(ctx, 'map')) mapping[v] = c === '' ? null : c;
+	const types: Record<string, ColumnKind> = {};
+	for (const [c, k] of pairs(ctx, 'type')) {
+		if (!KINDS.has(k as ColumnKind)) throw new UsageError(`--type ${c}=${k}: the kind must be binary, categorical, ordinal or continuous`);
+		types[c] = k as ColumnKind;
+	}
+	return { mapping, types };
+}
+
+/**
+ * With --sql: prints the summary SQL for the diagram and its column mapping
+ * (src/lib/datacheck/warehouse) and returns true; DATA, when given, gives the column names
+ * and kinds (a sample or an empty file with the header is enough). False without --sql.
+ */
+export async function printSummarySql(ctx: Context, usage: string): Promise<boolean> {
+	const target = ctx.values.sql;
+	if (typeof target !== 'string') return false;
+	if (ctx.positionals.length < 1 || ctx.positionals.length > 2) throw new UsageError(`expected a diagram file, and optionally a data file (usage: ${usage} --sql DIALECT[:TABLE])`);
+	const { dialect, table } = parseSqlTarget(target);
+	let diagram = await readDiagramInput(ctx.io, ctx.positionals[0]);
+	const q = ctx.question();
+	diagram = { ...diagram, exposures: q.exposures ?? diagram.exposures, outcomes: q.outcomes ?? diagram.outcomes };
+	const { mapping, types } = overrides(ctx);
+	const dataPath = ctx.positionals[1];
+	const columns = dataPath === undefined ? undefined : (await readDataTable(ctx, dataPath)).columns.map((c) => ({ name: c.name, kind: c.kind }));
+	const plan = summaryPlan(diagram, { table: columns, mapping, types });
+	const moments = momentsSql(plan, dialect, table);
+	if (ctx.json) {
+		ctx.printJson({ dialect, table, columns: plan.columns, countColumn: plan.countName, groupedCounts: groupedCountsSql(plan, dialect, table), moments });
+		return true;
+	}
+	ctx.print(groupedCountsSql(plan, dialect, table));
+	if (moments) ctx.print(`-- Or, every linked column being continuous, one line of moments:
+${moments}`);
+	return true;
+}
+
 export interface DataInput {
 	diagram: Diagram;
 	dataName: string;
@@ -123,17 +169,12 @@ export async function runOnData(ctx: Context, usage: string, extra: Partial<Data
 	const known = new Set(diagram.variables.map((v) => v.id));
 	const unknown = (extra.planned ?? []).find((id) => !known.has(id));
 	if (unknown !== undefined) throw new InputError(`The adjusted variable "${unknown}" is not a variable of the diagram`);
-	const mapping: Record<string, string | null> = {};
-	for (const [v, c] of pairs(ctx, 'map')) mapping[v] = c === '' ? null : c;
-	const types: Record<string, ColumnKind> = {};
-	for (const [c, k] of pairs(ctx, 'type')) {
-		if (!KINDS.has(k as ColumnKind)) throw new UsageError(`--type ${c}=${k}: the kind must be binary, categorical, ordinal or continuous`);
-		types[c] = k as ColumnKind;
-	}
+	const { mapping, types } = overrides(ctx);
 	const where = (e: StatsError | { message: string }) => `${dataPath}: ${e.message}`;
 	try {
 		if (ctx.values.summary === true) {
-			const summary = parseSummaryMatrix(await readText(ctx, dataPath));
+			const text = await readText(ctx, dataPath);
+			const summary = isMomentsText(text) ? readMoments(text) : parseSummaryMatrix(text);
 			return { diagram, dataName: dataPath, report: runSummaryChecks(diagram, summary, { mapping, ...extra }) };
 		}
 		const { table, note } = await readDataWithNote(ctx, dataPath);
