@@ -6,7 +6,9 @@
  * loads each new file in a fresh worker and keeps the old one until the new file is read,
  * so a bad file or a cancel leaves the earlier data and results in place.
  */
-import { parseTableStream, type TableSource } from '../stats';
+import { expandGroupedTable, parseTableStream, StatsError, suggestCountColumn, type ParseResult, type TableSource } from '../stats';
+import { blobBytes, isParquetMagic, parseParquet } from '../stats/table/read-parquet';
+import { countColumnHint } from '../wording/warehouse';
 import { describeTable } from '../datacheck';
 import type { DataReply, DataRequest } from './data-protocol';
 import { WorkerChecks } from './data-checks';
@@ -33,7 +35,8 @@ async function load(id: number, request: Extract<DataRequest, { kind: 'load' }>)
 		source = response.body;
 	}
 	let lastPost = 0;
-	const result = await parseTableStream(source, {
+	const parquet = request.source.kind === 'file' && (await isParquetFile(request.source.file));
+	const result: ParseResult = parquet ? await parseParquet(blobBytes(source as File)) : await parseTableStream(source, {
 		totalBytes,
 		onProgress: (progress) => {
 			const now = performance.now();
@@ -47,8 +50,27 @@ async function load(id: number, request: Extract<DataRequest, { kind: 'load' }>)
 		post({ id, kind: 'load-failed', error: result.error });
 		return;
 	}
-	checks.setTable(result.table);
-	post({ id, kind: 'loaded', info: describeTable(result.table, name), ms: performance.now() - started });
+	const count = request.source.kind === 'file' ? request.source.count : undefined;
+	let table = result.table;
+	if (count !== undefined) {
+		try {
+			table = expandGroupedTable(table, count);
+		} catch (e) {
+			if (!(e instanceof StatsError)) throw e;
+			post({ id, kind: 'load-failed', error: { message: e.message, row: e.row, column: e.column } });
+			return;
+		}
+	} else {
+		const hint = suggestCountColumn(table);
+		if (hint !== null) table = { ...table, notes: [...table.notes, countColumnHint(hint, 'app')] };
+	}
+	checks.setTable(table);
+	post({ id, kind: 'loaded', info: describeTable(table, name), ms: performance.now() - started });
+}
+
+/** Parquet by its magic number ("PAR1"), whatever the file is called. */
+async function isParquetFile(file: File): Promise<boolean> {
+	return file.size >= 12 && isParquetMagic(new Uint8Array(await file.slice(0, 4).arrayBuffer()));
 }
 
 /**

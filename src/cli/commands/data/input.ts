@@ -6,11 +6,12 @@
  * override them. Every bad input becomes one UsageError/InputError line.
  */
 import { createReadStream } from 'node:fs';
-import { readFile, stat } from 'node:fs/promises';
+import { open, readFile, stat } from 'node:fs/promises';
 import type { Diagram } from '../../../lib/graph/diagram';
 import { InputError } from '../../../lib/graph/errors';
 import { expandGroupedTable, parseTable, parseTableStream, StatsError, suggestCountColumn, type ColumnKind, type Table, type TableSource } from '../../../lib/stats';
 import { countColumnHint } from '../../../lib/wording/warehouse';
+import { isParquetMagic, parseParquet, type ParquetBytes } from '../../../lib/stats/table/read-parquet';
 import { groupedCountsSql, isMomentsText, momentsSql, parseSqlTarget, readMoments, summaryPlan } from '../../../lib/datacheck/warehouse';
 import { parseSummaryMatrix, runDataChecks, runSummaryChecks, SETTINGS_WHERE, type DataCheckOptions, type DataCheckReport } from '../../../lib/datacheck';
 import { UsageError } from '../../io';
@@ -94,8 +95,9 @@ export async function readDataTable(ctx: Context, path: string): Promise<Table> 
  * or freq holding only whole numbers ≥ 1 may be counts of rows (a hint, never applied).
  */
 async function readDataWithNote(ctx: Context, path: string): Promise<{ table: Table; note: string | null }> {
-	const file = ctx.io.readFile ? null : await streamFile(path);
-	const parsed = file ? await parseTableStream(file.source, { totalBytes: file.size }) : parseTable(await readText(ctx, path));
+	const parquet = await parquetFile(path);
+	const file = parquet || ctx.io.readFile ? null : await streamFile(path);
+	const parsed = parquet ? await parseParquet(parquet) : file ? await parseTableStream(file.source, { totalBytes: file.size }) : parseTable(await readText(ctx, path));
 	if (!parsed.ok) throw new InputError(`${path}: ${parsed.error.message}`);
 	const count = ctx.values.count;
 	if (typeof count !== 'string') {
@@ -149,6 +151,39 @@ export async function printSummarySql(ctx: Context, usage: string): Promise<bool
 	if (moments) ctx.print(`-- Or, every linked column being continuous, one line of moments:
 ${moments}`);
 	return true;
+}
+
+/**
+ * The file as hyparquet's byte source when it is Parquet (its first bytes are "PAR1"), read by
+ * range from disk (always from disk: Parquet is binary, never text); null otherwise. A file
+ * that cannot be opened is left to the text reader, which names the problem.
+ */
+async function parquetFile(path: string): Promise<ParquetBytes | null> {
+	let handle;
+	try {
+		handle = await open(path, 'r');
+	} catch {
+		return null;
+	}
+	const head = new Uint8Array(4);
+	const { size } = await handle.stat();
+	await handle.read(head, 0, 4, 0);
+	await handle.close();
+	if (size < 12 || !isParquetMagic(head)) return null;
+	return {
+		byteLength: size,
+		slice: async (start: number, end?: number) => {
+			const h = await open(path, 'r');
+			try {
+				const length = (end ?? size) - start;
+				const buffer = new Uint8Array(length);
+				await h.read(buffer, 0, length, start);
+				return buffer.buffer;
+			} finally {
+				await h.close();
+			}
+		}
+	};
 }
 
 export interface DataInput {
