@@ -14,11 +14,11 @@ export function countColumnHint(column: string, surface: 'cli' | 'app'): string 
 export const SUMMARY_NOT_ROWS =
 	'A summary holds counts per combination of values (or sums and cross-products), never one row per person: the rows stay in the database.';
 
-/** The data source as the report names it. */
-export function dataSourceText(kind: 'rows' | 'grouped' | 'moments', name: string): string {
-	if (kind === 'grouped') return `${name}: grouped counts from a database (one line per combination of values, with its number of rows); no row-level data were read.`;
-	if (kind === 'moments') return `${name}: sums and cross-products from a database; no row-level data were read.`;
-	return `${name}: row-level data.`;
+/** What the report says the data were, when they were not rows: grouped counts, or a summary. */
+export function dataSourceText(source: { grouped: { lines: number; countColumn: string } } | 'summary'): string {
+	if (source === 'summary') return 'Source: a summary (a correlation or covariance matrix, or sums and cross-products); no row-level data were read.';
+	const { lines, countColumn } = source.grouped;
+	return `Source: grouped counts, ${lines.toLocaleString('en')} lines each read as as many rows as its count (column '${countColumn}'); no row-level data were read.`;
 }
 
 export const DIALECT_NAMES = { duckdb: 'DuckDB', postgres: 'PostgreSQL', spark: 'Spark SQL' } as const;

@@ -8,6 +8,8 @@ import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { runDataChecks } from '../../../src/lib/datacheck';
+import { reportDataFromChecks } from '../../../src/lib/export/from-datacheck';
+import { labelLookup } from '../../../src/lib/wording';
 import { expandGroupedTable, MAX_GROUPED_ROWS, parseTable, StatsError, suggestCountColumn, type Table } from '../../../src/lib/stats';
 import { demoDir, readDiagram, tableOf } from '../datacheck/helpers';
 import { expectSameNumbers } from './report-compare';
@@ -52,8 +54,9 @@ describe('a grouped table is read as its rows', () => {
 	it('gives every arrow check, claim check, estimate and confounder check of the rows, to 1e-9', () => {
 		// Age (whole years) and distance enter the logistic fits as continuous covariates.
 		const options = { pictures: false, settingProblems: 'note' as const };
-		const a = runDataChecks(demoDiagram, grouped, options);
+		const { grouped: source, ...a } = runDataChecks(demoDiagram, grouped, options);
 		const b = runDataChecks(demoDiagram, rows, options);
+		expect(source).toEqual({ lines: grouped.grouped!.lines, countColumn: 'n' });
 		expect(a.arrows.checks.length).toBeGreaterThan(3);
 		expect(a.estimates?.rows.length).toBeGreaterThan(0);
 		expectSameNumbers(a, b);
@@ -139,5 +142,21 @@ describe('count column hint', () => {
 		expect(hint('x,n\na,2.5\nb,1\n')).toBeNull(); // a measurement
 		expect(hint('x,total\na,3\nb,1\n')).toBeNull(); // not one of the names
 		expect(hint('n,count\n3,3\n1,1\n')).toBeNull(); // two candidates: no guess
+	});
+});
+
+describe('the report names the data source', () => {
+	it('grouped counts: lines, count column, no row-level data; rows: nothing added', () => {
+		const table = expandGroupedTable(tableOf(readFileSync(`${groupedDir}ucb-grouped.csv`, 'utf8')), 'n');
+		const diagram = readDiagram(`${groupedDir}ucb.causeway.json`);
+		const label = labelLookup(diagram);
+		const grouped = reportDataFromChecks(runDataChecks(diagram, table, { pictures: false }), label, 'ucb-grouped.csv');
+		expect(grouped.source).toEqual({
+			name: 'ucb-grouped.csv',
+			rows: 4526,
+			kind: "Source: grouped counts, 24 lines each read as as many rows as its count (column 'n'); no row-level data were read."
+		});
+		const rows = reportDataFromChecks(runDataChecks(diagram, tableOf('Admit,Gender,Dept\nAdmitted,Male,A\nRejected,Female,B\nAdmitted,Female,A\nRejected,Male,B\n'), { pictures: false }), label, 'rows.csv');
+		expect(rows.source).toEqual({ name: 'rows.csv', rows: 4 });
 	});
 });

@@ -117,13 +117,14 @@ function expandColumn(column: Column, counts: Float64Array, total: number): Colu
  * The rows a grouped table stands for: each line repeated `countColumn` times (lines with
  * count 0 dropped, with any level only they had), the count column removed. Column kinds
  * are those read from the grouped lines, which have the same distinct values as the rows
- * unless a value occurs only on lines with count 0. O(represented rows × columns).
+ * unless a value occurs only on lines with count 0. The last note says how many lines stood
+ * for how many rows. O(represented rows × columns).
  */
 export function expandGroupedTable(table: Table, countColumn: string): Table {
 	const { counts, total } = readCounts(table, countColumn);
 	const columns = table.columns.filter((c) => c.name !== countColumn).map((c) => expandColumn(c, counts, total));
 	const note = `Grouped table: ${table.rowCount.toLocaleString('en')} lines stand for ${total.toLocaleString('en')} rows (counts in column '${countColumn}').`;
-	return { ...table, columns, rowCount: total, notes: [...table.notes.filter((n) => !n.startsWith(`'${countColumn}':`)), note] };
+	return { ...table, columns, rowCount: total, notes: [...table.notes.filter((n) => !n.startsWith(`'${countColumn}':`)), note], grouped: { lines: table.rowCount, countColumn } };
 }
 
 /**
