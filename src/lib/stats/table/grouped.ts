@@ -81,36 +81,34 @@ function dropEmptyLevels(column: CodedColumn, used: Uint8Array): CodedColumn {
 	return { ...column, codes, levels };
 }
 
-/** One column repeated line by line as the counts say. O(total). */
-function expandColumn(column: Column, counts: Float64Array, total: number): Column {
-	if (column.kind === 'continuous') {
-		const values = new Float64Array(total);
-		let at = 0;
-		let missing = 0;
-		for (let i = 0; i < counts.length; i++) {
-			const v = column.values[i];
-			const c = counts[i];
-			if (c === 0) continue;
-			values.fill(v, at, at + c);
-			at += c;
-			if (v !== v) missing += c;
-		}
-		return { ...column, values, missing };
-	}
-	const codes = new Int32Array(total);
-	const used = new Uint8Array(column.levels.length);
+/** Each line's value written `counts[line]` times into `out`, in line order. O(total). */
+function repeatLines<T extends Float64Array | Int32Array>(values: T, counts: Float64Array, out: T): T {
 	let at = 0;
-	let missing = 0;
 	for (let i = 0; i < counts.length; i++) {
-		const code = column.codes[i];
 		const c = counts[i];
 		if (c === 0) continue;
-		codes.fill(code, at, at + c);
+		out.fill(values[i], at, at + c);
 		at += c;
-		if (code < 0) missing += c;
-		else used[code] = 1;
 	}
-	return dropEmptyLevels({ ...column, codes, missing }, used);
+	return out;
+}
+
+/** One column repeated line by line as the counts say; missing values counted per line. O(total). */
+function expandColumn(column: Column, counts: Float64Array, total: number): Column {
+	let missing = 0;
+	if (column.kind === 'continuous') {
+		column.values.forEach((v, i) => {
+			if (v !== v) missing += counts[i];
+		});
+		return { ...column, values: repeatLines(column.values, counts, new Float64Array(total)), missing };
+	}
+	const used = new Uint8Array(column.levels.length);
+	column.codes.forEach((code, i) => {
+		if (counts[i] === 0) return;
+		if (code < 0) missing += counts[i];
+		else used[code] = 1;
+	});
+	return dropEmptyLevels({ ...column, codes: repeatLines(column.codes, counts, new Int32Array(total)), missing }, used);
 }
 
 /**
