@@ -35,6 +35,17 @@ test('SQL for the current diagram, dialects, copy; grouped counts and Parquet lo
 	await expect(section.getByTestId('data-source')).toContainText('5,000 rows, 12 columns', { timeout: 30_000 });
 	await expect(section.getByTestId('estimates-table')).toBeVisible({ timeout: 30_000 });
 	const fromGroups = await section.getByTestId('estimates-table').innerText();
+	await expect(section).toContainText(/46 tested/, { timeout: 30_000 });
+	await expect(section.getByTestId('warehouse-grouped')).toContainText(/Grouped table: [\d,]+ lines stand for 5,000 rows \(counts in column 'n'\)\. A summary holds counts/);
+	await section.getByTestId('data-source').scrollIntoViewIfNeeded();
+	await page.screenshot({ path: 'test-results/warehouse-grouped.png' });
+	// The report names the source: grouped counts, no row-level data.
+	await page.getByRole('button', { name: /^▸?\s*Report/ }).click();
+	const reportSection = page.locator('[data-section="report"]');
+	await expect(reportSection.getByText('The report includes the data checks and estimates.')).toBeVisible();
+	const [file] = await Promise.all([page.waitForEvent('download'), reportSection.getByRole('button', { name: 'HTML', exact: true }).click()]);
+	const html = readFileSync((await file.path())!, 'utf8');
+	expect(html).toMatch(/Source: grouped counts, [\d,]+ lines each read as as many rows as its count \(column &#39;n&#39;\); no row-level data were read\./);
 
 	// A bad count: one message with the row and column; the earlier data stay.
 	await panel.getByTestId('warehouse-file').setInputFiles({ name: 'bad.csv', mimeType: 'text/csv', buffer: Buffer.from('age,n\n40,3\n41,-1\n') });
