@@ -9,6 +9,7 @@
  *                                 million-row reading, commands and R; 4d: the Data section at 10⁶ rows in Chromium),
  *                                 5 editor, 6 bundle, 7 reviewer tools, 8 paths, cli command line); not written
  *   npm run bench -- --only=layout   layout and SVG export of large diagrams (bench/layout.ts)
+ *   npm run bench -- --only=warehouse   grouped counts from DuckDB vs the rows (bench/warehouse.ts)
  *   --no-write / --write          override whether bench/RESULTS.md is written
  *
  * A section whose tool is missing (networkx, R, Chromium) prints why and what it skipped.
@@ -26,6 +27,7 @@ import { benchBundle } from './bundle';
 import { benchPaths } from './paths';
 import { benchLayout } from './layout';
 import { benchCli } from './cli';
+import { benchWarehouse } from './warehouse';
 import { buildApp, launchChromium, removeApp, serveApp, type BuiltApp } from './app';
 import { describeMachine } from './machine';
 import { chromium } from './tools';
@@ -114,6 +116,7 @@ async function main(): Promise<void> {
 	await section('8', () => benchPaths(quick ? [300] : [300, 1_000], 3));
 	await section('layout', () => benchLayout(quick));
 	await section('cli', () => benchCli(quick));
+	await section('warehouse', () => benchWarehouse(quick ? 100_000 : 1_000_000));
 
 	emit(`_Whole run: ${fmtMs(performance.now() - started)}._`);
 	if (write) writeFileSync(new URL('./RESULTS.md', import.meta.url), output.join('\n') + '\n');

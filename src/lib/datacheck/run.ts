@@ -143,6 +143,7 @@ export function* dataCheckSteps(diagram: Diagram, table: Table, options: DataChe
 		format: { ...t.format },
 		rowCount: t.rowCount,
 		columnsUsed: used,
-		notes: [...mapping.notes, ...skippedColumns]
+		notes: [...mapping.notes, ...skippedColumns],
+		...(t.grouped ? { grouped: { ...t.grouped } } : {})
 	};
 }

@@ -228,6 +228,8 @@ export interface DataCheckReport {
 	/** Each variable with data as the checks used it: column, kind (chosen or detected), reference level. */
 	columnsUsed?: ColumnUse[];
 	notes: string[];
+	/** Set when the rows were read from grouped counts (e.g. a database's GROUP BY): the lines and the count column. */
+	grouped?: { lines: number; countColumn: string };
 }
 
 /** One association of the confounder check (candidate × exposure, or × outcome). */

@@ -7,6 +7,7 @@
  * notices and — given the diagram — the analysis code of the planned set. Only copies and
  * words (src/lib/wording); computes nothing. O(size of the result).
  */
+import { dataSourceText } from '../wording/warehouse';
 import type { CandidateCheck, DataCheckReport, PairSummary } from '../datacheck';
 import type { Diagram } from '../graph/diagram';
 import {
@@ -44,6 +45,13 @@ import { SOFTWARE_NAME, SOFTWARE_VERSION } from './version';
 const ROLE_WORD: Record<string, string> = { crude: 'crude', minimal: 'minimal set', optimal: 'optimal set', planned: 'planned set' };
 
 const capitalise = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
+
+/** What the data were, for the report: grouped counts, a summary of moments or correlations, or rows. */
+function dataSourceKind(report: DataCheckReport): string | undefined {
+	if (report.grouped) return dataSourceText({ grouped: report.grouped });
+	if (report.format === null) return dataSourceText('summary');
+	return undefined;
+}
 
 /** A data source's file name as the analysis code reads it ("x.csv (demo)" → "x.csv"). */
 export const dataFileName = (name: string | undefined) => (name ?? 'data.csv').replace(/^(.*\.\w+) \(.*\)$/, '$1');
@@ -186,7 +194,7 @@ export function reportDataFromChecks(report: DataCheckReport, labelOf: LabelOf, 
 	const code = diagram ? codeFor(report, diagram, files ? files.data.replace(/^.*[/\\]/, '') : dataFileName(sourceName)) : [];
 	const columns = (report.columnsUsed ?? []).map((u) => ({ variable: u.variable, column: u.column, kind: u.kind, chosen: u.kindChosen, reference: u.reference }));
 	return {
-		source: { name: sourceName, rows: report.rowCount },
+		source: { name: sourceName, rows: report.rowCount, ...(dataSourceKind(report) ? { kind: dataSourceKind(report) } : {}) },
 		...(report.categoryCodes.length ? { notices: report.categoryCodes.map((c) => categoryCodeNotice(c.column, c.values, 'report')) } : {}),
 		...(report.arrows.checks.length && question.size ? { arrowChecks: arrowChecks(report, labelOf, question) } : {}),
 		checks,

@@ -161,6 +161,7 @@ export function dataBlocks(data: ReportDataResults, label: LabelOf): Block[] {
 	if (s && (s.name || s.rows !== undefined)) {
 		const parts = [s.name ? `Data: ${s.name}` : 'Data', s.rows !== undefined ? countText(s.rows, 'row') : '', s.columns !== undefined ? countText(s.columns, 'column') : ''].filter(Boolean);
 		blocks.push({ kind: 'paragraph', text: `${parts.join(', ')}.` });
+		if (s.kind) blocks.push({ kind: 'paragraph', text: s.kind });
 	}
 	blocks.push(...reproducibilityBlocks(data, label));
 	for (const n of data.notices ?? []) blocks.push({ kind: 'paragraph', text: `Notice: ${n}` });

@@ -6,7 +6,7 @@
 
 export interface ReportDataResults {
 	/** Where the data came from; nothing else about the data is written into the report. */
-	source?: { name?: string; rows?: number; columns?: number };
+	source?: { name?: string; rows?: number; columns?: number; /** What the data were: rows, grouped counts, sums and cross-products. */ kind?: string };
 	/** Checks of the diagram's implied independencies (claims) against the data. */
 	checks?: ReportDataCheck[];
 	/** Crude and adjusted effect estimates. */
@@ -168,6 +168,7 @@ export function checkReportData(value: Json): ReportDataResults {
 		needString(value.source, 'name', 'source', true);
 		optNumber(value.source, 'rows', 'source');
 		optNumber(value.source, 'columns', 'source');
+		needString(value.source, 'kind', 'source', true);
 	}
 	if (value.checks !== undefined) {
 		if (!Array.isArray(value.checks)) fail('checks', 'a list', value.checks);

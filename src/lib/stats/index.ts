@@ -37,6 +37,7 @@ export { DEFAULT_MISSING_TOKENS } from './table/cells';
 export { matchColumns, normalizeName } from './table/match-columns';
 export type { ColumnMatching } from './table/match-columns';
 export { codedColumn, continuousColumn, completeRows, numericValues } from './table/columns';
+export { expandGroupedTable, readCounts, suggestCountColumn, COUNT_COLUMN_NAMES, MAX_GROUPED_ROWS } from './table/grouped';
 
 // Association (arrow checks)
 export { associate } from './association/associate';

@@ -8,7 +8,8 @@ export type { ColumnInfo, TableInfo } from '../datacheck';
 /** The parts of a report, in the order the worker computes them (quick ones first). */
 export type DataPart = 'arrows' | 'estimates' | 'claims';
 
-export type DataSource = { kind: 'file'; file: File } | { kind: 'url'; url: string; name: string };
+/** `count`: the file is a grouped table whose lines stand for that column's number of rows (stats/table/grouped.ts). */
+export type DataSource = { kind: 'file'; file: File; count?: string } | { kind: 'url'; url: string; name: string };
 
 export type DataJob = { kind: 'load'; source: DataSource } | { kind: 'check'; diagram: Diagram; planned?: string[] };
 

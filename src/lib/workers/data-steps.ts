@@ -1,6 +1,7 @@
 /**
  * The data worker's steps (job-runner.ts): `load` reads a CSV/TSV file as a stream
- * (src/lib/stats/table) with progress and keeps the parsed table (typed arrays; never sent back
+ * (src/lib/stats/table) with progress, or a Parquet file whole (stats/table/read-parquet.ts),
+ * expands a grouped table by its count column when asked (stats/table/grouped.ts), and keeps the parsed table (typed arrays; never sent back
  * to the page) and its shared statistics; `check` runs the data checks (src/lib/datacheck) on it
  * part by part — arrows, then estimates, then claims (the slowest) — sending the report so far
  * after each part. The checks give way to the event loop between checks (runDataChecksAsync), so
@@ -10,7 +11,9 @@
  *
  * One session per worker (data.worker.ts); without a Worker the page runs a session itself.
  */
-import { parseTableStream, TableStatistics, type Table, type TableSource } from '../stats';
+import { expandGroupedTable, parseTableStream, StatsError, suggestCountColumn, TableStatistics, type ParseResult, type Table, type TableSource } from '../stats';
+import { blobBytes, isParquetMagic, parseParquet } from '../stats/table/read-parquet';
+import { countColumnHint } from '../wording/warehouse';
 import { describeTable, runDataChecksAsync, type DataCheckReport } from '../datacheck';
 import type { JobContext, JobSteps } from './job-protocol';
 import type { DataJob, DataPart, DataProgress, DataResult } from './data-protocol';
@@ -78,14 +81,30 @@ export class DataSession {
 			totalBytes = Number(response.headers.get('content-length')) || undefined;
 			source = response.body;
 		}
-		const result = await parseTableStream(source, {
-			totalBytes,
-			// The last report (the whole file read) always arrives.
-			onProgress: (progress) => (progress.fraction === 1 ? context.partial : context.progress)({ kind: 'load-progress', progress })
-		});
+		const parquet = job.source.kind === 'file' && (await isParquetFile(job.source.file));
+		const result: ParseResult = parquet
+			? await parseParquet(blobBytes(source as File))
+			: await parseTableStream(source, {
+					totalBytes,
+					// The last report (the whole file read) always arrives.
+					onProgress: (progress) => (progress.fraction === 1 ? context.partial : context.progress)({ kind: 'load-progress', progress })
+				});
 		if (!result.ok) return { kind: 'load-failed', error: result.error };
-		this.setTable(result.table);
-		return { kind: 'loaded', info: describeTable(result.table, name) };
+		const count = job.source.kind === 'file' ? job.source.count : undefined;
+		let table = result.table;
+		if (count !== undefined) {
+			try {
+				table = expandGroupedTable(table, count);
+			} catch (e) {
+				if (!(e instanceof StatsError)) throw e;
+				return { kind: 'load-failed', error: { message: e.message, row: e.row, column: e.column } };
+			}
+		} else {
+			const hint = suggestCountColumn(table);
+			if (hint !== null) table = { ...table, notes: [...table.notes, countColumnHint(hint, 'app')] };
+		}
+		this.setTable(table);
+		return { kind: 'loaded', info: describeTable(table, name) };
 	}
 
 	async #check(job: CheckJob, context: JobContext<DataProgress>): Promise<DataResult> {
@@ -115,4 +134,9 @@ export class DataSession {
 		}
 		return { kind: 'report', report: report as DataCheckReport };
 	}
+}
+
+/** Parquet by its magic number ("PAR1"), whatever the file is called. */
+async function isParquetFile(file: File): Promise<boolean> {
+	return file.size >= 12 && isParquetMagic(new Uint8Array(await file.slice(0, 4).arrayBuffer()));
 }

@@ -13,7 +13,7 @@ import { QUESTION, QUESTION_HELP, type Command } from '../../command';
 import { UsageError } from '../../io';
 import { DATA_HELP, DATA_OPTIONS, runOnData } from './input';
 
-const USAGE = `causeway data code DIAGRAM DATA.csv --language ${CODE_LANGUAGES.join('|')} [--set planned|optimal|minimal[:N]|crude] [--adjust a,b] [-o FILE] [--json]`;
+const USAGE = `causeway data code DIAGRAM DATA.csv --language ${CODE_LANGUAGES.join('|')} [--set planned|optimal|minimal[:N]|crude] [--adjust a,b] [--count COLUMN] [-o FILE] [--json]`;
 
 /** The language from --language, or from the output file's extension. */
 function languageOf(named: unknown, out: string, name: string): CodeLanguage {

@@ -11,9 +11,9 @@ import { DATA_VIEW_TEXT, eValueText, formatCi, formatCount, formatNumber, format
 import { QUESTION, QUESTION_HELP } from '../../command';
 import { printConfounderCheck, printStandardized } from './confounder-print';
 import { COMMON_DATA_PRINT, kindOf, type Command } from './print';
-import { CAUTION, DATA_HELP, DATA_OPTIONS, reportJson, runOnData } from './input';
+import { CAUTION, DATA_HELP, DATA_OPTIONS, printSummarySql, reportJson, runOnData, SQL_HELP, SQL_OPTION } from './input';
 
-const USAGE = 'causeway data estimates DIAGRAM DATA.csv [--adjust a,b] [--exposure x] [--outcome y] [--map …] [--type …] [--max N] [--summary] [--json]';
+const USAGE = 'causeway data estimates DIAGRAM DATA.csv [--adjust a,b] [--exposure x] [--outcome y] [--map …] [--type …] [--max N] [--summary] [--count COLUMN] [--sql DIALECT[:TABLE]] [--json]';
 
 export const estimates: Command = {
 	usage: USAGE,
@@ -34,12 +34,14 @@ with the outcome in the measure read (two-way tables for discrete pairs), the es
 and adjusted for it alone on the same rows, and the Mantel–Haenszel odds ratio over its
 levels (fifths of a numeric one) with the Breslow–Day test, Tarone's correction.
 ${DATA_HELP}
+${SQL_HELP}
   --adjust a,b    the planned set, replacing the file's (use --adjust "" for none)
   --max N         show at most N minimal sets (default 20)
 ${QUESTION_HELP}
   --json          {"mapping", "estimates", "estimatesMessage", "confounders", "columns", …}`,
-	options: { ...DATA_OPTIONS, ...QUESTION, adjust: { type: 'string', multiple: true }, max: { type: 'string' } },
+	options: { ...DATA_OPTIONS, ...SQL_OPTION, ...QUESTION, adjust: { type: 'string', multiple: true }, max: { type: 'string' } },
 	async run(ctx) {
+		if (await printSummarySql(ctx, USAGE)) return 0;
 		const { report, dataName } = await runOnData(ctx, USAGE, { planned: ctx.list('adjust'), maxSets: ctx.count('max'), parts: { arrows: false, claims: false } });
 		// Nothing could be estimated (the data lack the exposure or the outcome): bad input, exit 2
 		// as for every other input the command cannot answer, not "done".

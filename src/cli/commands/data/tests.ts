@@ -6,10 +6,10 @@
  */
 import { COMMON_DATA_PRINT, kindOf, twoWayLines, type Command } from './print';
 import { formatCount, formatNumber, formatP, pText, resultText, smallSizeRule, testSummary, countText } from '../../../lib/wording';
-import { CAUTION, DATA_HELP, DATA_OPTIONS, reportJson, runOnData } from './input';
+import { CAUTION, DATA_HELP, DATA_OPTIONS, printSummarySql, reportJson, runOnData, SQL_HELP, SQL_OPTION } from './input';
 import { UsageError } from '../../io';
 
-const USAGE = 'causeway data [tests] DIAGRAM DATA.csv [--map var=column,…] [--type column=kind,…] [--alpha 0.05] [--max N] [--summary] [--json]';
+const USAGE = 'causeway data [tests] DIAGRAM DATA.csv [--map var=column,…] [--type column=kind,…] [--alpha 0.05] [--max N] [--summary] [--count COLUMN] [--sql DIALECT[:TABLE]] [--json]';
 
 const SUPPORT_WORD = { supported: 'supported', weak: 'weak', absent: 'not found', untested: 'not tested' } as const;
 
@@ -28,11 +28,13 @@ variables with data ("causeway diagram claims"): a conditional-independence test
 and Benjamini–Hochberg adjusted p-values; a claim is contradicted when its Holm-adjusted
 p-value is below alpha, and the arrow that would remove it is suggested.
 ${DATA_HELP}
+${SQL_HELP}
   --alpha A     significance level (default 0.05)
   --max N       test at most N claims
   --json        {"mapping", "columns", "arrows", "claims", "categoryCodes", "rowCount", …}`,
-	options: { ...DATA_OPTIONS, alpha: { type: 'string' }, max: { type: 'string' } },
+	options: { ...DATA_OPTIONS, ...SQL_OPTION, alpha: { type: 'string' }, max: { type: 'string' } },
 	async run(ctx) {
+		if (await printSummarySql(ctx, USAGE)) return 0;
 		const alphaText = ctx.values.alpha;
 		const alpha = typeof alphaText === 'string' ? Number(alphaText) : 0.05;
 		if (!(alpha > 0 && alpha < 1)) throw new UsageError(`--alpha must be a number between 0 and 1, not "${String(alphaText)}"`);

@@ -55,6 +55,8 @@ export interface Table {
 	readonly format: TableFormat;
 	/** Plain-language notes on what was detected or assumed (delimiter, header, typing). */
 	readonly notes: readonly string[];
+	/** Set when the table was read from a grouped one (stats/table/grouped.ts): its lines and count column. */
+	readonly grouped?: { readonly lines: number; readonly countColumn: string };
 }
 
 /** One-line description of a bad input, with where it is. */
