@@ -11,7 +11,8 @@ const config = {
 			mode: 'hash',
 			directives: {
 				'default-src': ['self'],
-				'script-src': ['self'],
+				// WebAssembly only (the Parquet reader's decompressors); never eval of scripts.
+				'script-src': ['self', 'wasm-unsafe-eval'],
 				'style-src': ['self', 'unsafe-inline'],
 				'img-src': ['self', 'data:', 'blob:'],
 				'worker-src': ['self', 'blob:'],

@@ -12,7 +12,7 @@
  * One session per worker (data.worker.ts); without a Worker the page runs a session itself.
  */
 import { expandGroupedTable, parseTableStream, StatsError, suggestCountColumn, TableStatistics, type ParseResult, type Table, type TableSource } from '../stats';
-import { blobBytes, isParquetMagic, parseParquet } from '../stats/table/read-parquet';
+import { blobBytes, isParquetMagic } from '../stats/table/parquet-bytes';
 import { countColumnHint } from '../wording/warehouse';
 import { describeTable, runDataChecksAsync, type DataCheckReport } from '../datacheck';
 import type { JobContext, JobSteps } from './job-protocol';
@@ -83,7 +83,7 @@ export class DataSession {
 		}
 		const parquet = job.source.kind === 'file' && (await isParquetFile(job.source.file));
 		const result: ParseResult = parquet
-			? await parseParquet(blobBytes(source as File))
+			? await (await import('../stats/table/read-parquet')).parseParquet(blobBytes(source as File))
 			: await parseTableStream(source, {
 					totalBytes,
 					// The last report (the whole file read) always arrives.

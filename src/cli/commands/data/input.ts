@@ -11,7 +11,7 @@ import type { Diagram } from '../../../lib/graph/diagram';
 import { InputError } from '../../../lib/graph/errors';
 import { expandGroupedTable, parseTable, parseTableStream, StatsError, suggestCountColumn, type ColumnKind, type Table, type TableSource } from '../../../lib/stats';
 import { countColumnHint } from '../../../lib/wording/warehouse';
-import { isParquetMagic, parseParquet, type ParquetBytes } from '../../../lib/stats/table/read-parquet';
+import { isParquetMagic, type ParquetBytes } from '../../../lib/stats/table/parquet-bytes';
 import { groupedCountsSql, isMomentsText, momentsSql, parseSqlTarget, readMoments, summaryPlan } from '../../../lib/datacheck/warehouse';
 import { parseSummaryMatrix, runDataChecks, runSummaryChecks, SETTINGS_WHERE, type DataCheckOptions, type DataCheckReport } from '../../../lib/datacheck';
 import { UsageError } from '../../io';
@@ -97,7 +97,7 @@ export async function readDataTable(ctx: Context, path: string): Promise<Table> 
 async function readDataWithNote(ctx: Context, path: string): Promise<{ table: Table; note: string | null }> {
 	const parquet = await parquetFile(path);
 	const file = parquet || ctx.io.readFile ? null : await streamFile(path);
-	const parsed = parquet ? await parseParquet(parquet) : file ? await parseTableStream(file.source, { totalBytes: file.size }) : parseTable(await readText(ctx, path));
+	const parsed = parquet ? await (await import('../../../lib/stats/table/read-parquet')).parseParquet(parquet) : file ? await parseTableStream(file.source, { totalBytes: file.size }) : parseTable(await readText(ctx, path));
 	if (!parsed.ok) throw new InputError(`${path}: ${parsed.error.message}`);
 	const count = ctx.values.count;
 	if (typeof count !== 'string') {

@@ -18,22 +18,12 @@ import { ColumnBuilder } from './column-builder';
 import { DEFAULT_LEVEL_CAP } from './read-table';
 import type { Column, ParseResult, SkippedColumn, Table } from './types';
 import { describeCount, MAX_TABLE_COLUMNS } from '../../limits';
+import type { ParquetBytes } from './parquet-bytes';
+
+export { blobBytes, isParquetMagic, type ParquetBytes } from './parquet-bytes';
 
 /** Most rows read from a Parquet file: as many as a grouped table may stand for (grouped.ts). */
 export const MAX_PARQUET_ROWS = 10_000_000;
-
-/** A Parquet file's bytes, read by range: a File/Blob, or a file on disk (the CLI). */
-export type ParquetBytes = AsyncBuffer;
-
-/** Whether bytes start with Parquet's magic number "PAR1". */
-export function isParquetMagic(head: Uint8Array): boolean {
-	return head.length >= 4 && head[0] === 0x50 && head[1] === 0x41 && head[2] === 0x52 && head[3] === 0x31;
-}
-
-/** A Blob (a File in the browser) as hyparquet's byte source. */
-export function blobBytes(blob: Blob): ParquetBytes {
-	return { byteLength: blob.size, slice: (start, end) => blob.slice(start, end).arrayBuffer() };
-}
 
 /** A value as the CSV cell that would hold it (hyparquet has already applied the logical types). */
 function cellText(value: unknown): string | null {
