@@ -37,6 +37,8 @@ export const palette = {
 	selection: skyBlue,
 	/** Border and name of an unmeasured variable. */
 	unmeasured: '#575757',
+	/** Name of an unmeasured exposure or outcome on its fill: darker, to keep 4.5:1 there. */
+	unmeasuredOnFill: '#262626',
 	/** An unmeasured variable's name in the small review sketches. */
 	sketchUnmeasured: '#5a5a5a',
 	/** Arrows of the diagram. */
@@ -109,6 +111,10 @@ export const palette = {
 
 	// ——— Surfaces ———
 	surface: '#ffffff',
+	/** The canvas behind the diagram (and, translucent, the veil over what is not lit). */
+	canvas: '#fbfbf8',
+	/** A note's tooltip on the canvas. */
+	noteSurface: '#fffdf4',
 	/** The report's page behind its sheet. */
 	page: '#f4f4f0',
 	/** Buttons and code blocks. */

@@ -15,13 +15,13 @@ describe('canvas label contrast (WCAG 2.1 AA, 4.5:1)', () => {
 	});
 
 	it.each([
-		['name on a plain variable', COLOURS.ink, COLOURS.paper],
-		['name on the exposure fill', COLOURS.ink, COLOURS.exposure],
-		['name on the outcome fill', COLOURS.ink, COLOURS.outcome],
-		['grey name of an unmeasured variable', COLOURS.unmeasuredInk, COLOURS.paper],
+		['name on a plain variable', COLOURS.text, COLOURS.surface],
+		['name on the exposure fill', COLOURS.text, COLOURS.exposure],
+		['name on the outcome fill', COLOURS.text, COLOURS.outcome],
+		['grey name of an unmeasured variable', COLOURS.unmeasured, COLOURS.surface],
 		['unmeasured exposure', COLOURS.unmeasuredOnFill, COLOURS.exposure],
 		['unmeasured outcome', COLOURS.unmeasuredOnFill, COLOURS.outcome],
-		['the canvas background behind an unmeasured name', COLOURS.unmeasuredInk, '#fbfbf8']
+		['the canvas background behind an unmeasured name', COLOURS.unmeasured, '#fbfbf8']
 	])('%s', (_what, fg, bg) => {
 		expect(contrast(fg, bg)).toBeGreaterThanOrEqual(4.5);
 	});

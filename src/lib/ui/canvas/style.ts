@@ -4,19 +4,24 @@
  * (dashed outline, square box, line style, text badge) so colour is never the only signal.
  */
 import type { StylesheetJson } from 'cytoscape';
+import { palette } from '../../palette';
 
+/**
+ * The canvas's colours, from the one palette (src/lib/palette.ts): Cytoscape's style and the
+ * overlay's 2D context take literal values, not the page's CSS custom properties.
+ */
 export const COLOURS = {
-	exposure: '#E69F00',
-	outcome: '#CC79A7',
-	causal: '#0072B2',
-	biasing: '#D55E00',
-	blocked: '#767676',
-	ink: '#1a1a1a',
-	unmeasuredInk: '#575757',
-	/** Name of an unmeasured exposure or outcome: darker, to keep 4.5:1 on the fills. */
-	unmeasuredOnFill: '#262626',
-	selection: '#56B4E9',
-	paper: '#ffffff'
+	exposure: palette.exposure,
+	outcome: palette.outcome,
+	causalPath: palette.causalPath,
+	openPath: palette.openPath,
+	blockedPath: palette.blockedPath,
+	text: palette.text,
+	unmeasured: palette.unmeasured,
+	unmeasuredOnFill: palette.unmeasuredOnFill,
+	selection: palette.selection,
+	arrow: palette.arrow,
+	surface: palette.surface
 } as const;
 
 /**
@@ -37,9 +42,9 @@ export const canvasStyle: StylesheetJson = [
 			shape: 'round-rectangle',
 			width: 'data(w)',
 			height: 'data(h)',
-			'background-color': COLOURS.paper,
+			'background-color': COLOURS.surface,
 			'border-width': 1.5,
-			'border-color': COLOURS.ink,
+			'border-color': COLOURS.text,
 			label: 'data(text)',
 			'text-wrap': 'wrap',
 			'text-valign': 'center',
@@ -47,7 +52,7 @@ export const canvasStyle: StylesheetJson = [
 			'font-family': FONT_FAMILY,
 			'font-size': LABEL_FONT_PX,
 			'line-height': LINE_HEIGHT,
-			color: COLOURS.ink,
+			color: COLOURS.text,
 			'text-events': 'no'
 		}
 	},
@@ -55,7 +60,7 @@ export const canvasStyle: StylesheetJson = [
 	{ selector: 'node.outcome', style: { 'background-color': COLOURS.outcome } },
 	{
 		selector: 'node.unmeasured',
-		style: { 'border-style': 'dashed', 'border-width': 2, 'border-color': COLOURS.unmeasuredInk, color: COLOURS.unmeasuredInk }
+		style: { 'border-style': 'dashed', 'border-width': 2, 'border-color': COLOURS.unmeasured, color: COLOURS.unmeasured }
 	},
 	{ selector: 'node.unmeasured.exposure, node.unmeasured.outcome', style: { color: COLOURS.unmeasuredOnFill } },
 	{
@@ -63,8 +68,8 @@ export const canvasStyle: StylesheetJson = [
 		style: {
 			width: 2,
 			'curve-style': 'straight', // a DAG has no opposite or parallel arrows, so no curves are needed (and straight lines draw faster)
-			'line-color': '#3b3b3b',
-			'target-arrow-color': '#3b3b3b',
+			'line-color': COLOURS.arrow,
+			'target-arrow-color': COLOURS.arrow,
 			'target-arrow-shape': 'triangle',
 			'arrow-scale': 1.3
 		}
@@ -77,16 +82,16 @@ export const canvasStyle: StylesheetJson = [
 			label: 'data(dataTag)',
 			'font-family': FONT_FAMILY,
 			'font-size': 11,
-			color: COLOURS.ink,
-			'text-background-color': COLOURS.paper,
+			color: COLOURS.text,
+			'text-background-color': COLOURS.surface,
 			'text-background-opacity': 0.9,
 			'text-background-padding': '2px',
 			'text-events': 'no'
 		}
 	},
-	{ selector: 'edge.data-supported', style: { color: '#005a8c' } },
-	{ selector: 'edge.data-absent', style: { 'line-style': 'dashed', 'line-dash-pattern': [5, 4], color: '#8a3a00' } },
-	{ selector: 'edge.data-untested', style: { color: COLOURS.unmeasuredInk } },
+	{ selector: 'edge.data-supported', style: { color: palette.accentText } },
+	{ selector: 'edge.data-absent', style: { 'line-style': 'dashed', 'line-dash-pattern': [5, 4], color: palette.againstText } },
+	{ selector: 'edge.data-untested', style: { color: COLOURS.unmeasured } },
 	{
 		// An arrow with a note: a pencil near its start (NOTE_MARK).
 		selector: 'edge.has-note',
@@ -95,8 +100,8 @@ export const canvasStyle: StylesheetJson = [
 			'source-text-offset': 22,
 			'font-family': FONT_FAMILY,
 			'font-size': 13,
-			color: COLOURS.ink,
-			'text-background-color': COLOURS.paper,
+			color: COLOURS.text,
+			'text-background-color': COLOURS.surface,
 			'text-background-opacity': 0.9,
 			'text-background-padding': '1px',
 			'text-events': 'no'
@@ -105,8 +110,8 @@ export const canvasStyle: StylesheetJson = [
 	// Selection, highlights, a refused cycle and the keyboard's arrow target are not styles:
 	// canvas/overlay.ts draws them over the scene, so changing them never restyles elements.
 	// Edge-drawing gesture (cytoscape-edgehandles classes).
-	{ selector: '.eh-ghost-edge, edge.eh-preview', style: { 'line-color': COLOURS.causal, 'target-arrow-color': COLOURS.causal, width: 3, 'line-style': 'dashed' } },
-	{ selector: 'edge.eh-preview.refused', style: { 'line-color': COLOURS.biasing, 'target-arrow-color': COLOURS.biasing, 'target-arrow-shape': 'tee' } },
-	{ selector: 'node.eh-target', style: { 'underlay-color': COLOURS.causal, 'underlay-opacity': 0.35, 'underlay-padding': 10 } },
+	{ selector: '.eh-ghost-edge, edge.eh-preview', style: { 'line-color': COLOURS.causalPath, 'target-arrow-color': COLOURS.causalPath, width: 3, 'line-style': 'dashed' } },
+	{ selector: 'edge.eh-preview.refused', style: { 'line-color': COLOURS.openPath, 'target-arrow-color': COLOURS.openPath, 'target-arrow-shape': 'tee' } },
+	{ selector: 'node.eh-target', style: { 'underlay-color': COLOURS.causalPath, 'underlay-opacity': 0.35, 'underlay-padding': 10 } },
 	{ selector: '.eh-ghost-edge.eh-preview-active', style: { opacity: 0 } }
 ];
