@@ -12,6 +12,7 @@ import type { Diagram } from '../graph/diagram';
 import type { VariableRoles } from '../causal';
 import { BADGE_MEANING } from '../wording';
 import { escapeLatex } from './escape';
+import { palette } from '../palette';
 import { badgeLine, figureOf, type FigureOptions } from './figure';
 import { SOFTWARE_NAME, SOFTWARE_VERSION } from './version';
 
@@ -28,6 +29,12 @@ const PT_PER_PX = 0.75;
 const num = (v: number) => String(Math.round(v * PT_PER_PX * 100) / 100);
 
 /** The tikzpicture environment, preceded by comments naming the packages it needs. */
+/** A palette colour as xcolor's `{rgb,255:red,R;green,G;blue,B}` (TikZ reads no hex). */
+function tikzRgb(hex: string): string {
+	const [r, g, b] = [1, 3, 5].map((i) => parseInt(hex.slice(i, i + 2), 16));
+	return `{rgb,255:red,${r};green,${g};blue,${b}}`;
+}
+
 export function writeTikz(d: Diagram, roles: readonly VariableRoles[], opts: TikzOptions = {}): string {
 	const mono = opts.mono ?? false;
 	const fig = figureOf(d, roles, opts);
@@ -38,8 +45,8 @@ export function writeTikz(d: Diagram, roles: readonly VariableRoles[], opts: Tik
 		'% To fit the text width: \\resizebox{\\linewidth}{!}{...} around the picture (package graphicx).',
 		'\\begin{tikzpicture}[x=1pt, y=-1pt, >={Stealth[length=7pt, width=5pt]},',
 		'  cwvar/.style={draw=black!90, rounded corners=3pt, line width=0.8pt, inner xsep=6pt, inner ysep=4pt, align=center, font=\\normalsize},',
-		'  cwexposure/.style={' + (mono ? 'line width=1.6pt, font=\\normalsize\\bfseries' : 'fill={rgb,255:red,230;green,159;blue,0}, font=\\normalsize\\bfseries') + '},',
-		'  cwoutcome/.style={' + (mono ? 'line width=1.6pt, font=\\normalsize\\bfseries' : 'fill={rgb,255:red,204;green,121;blue,167}, font=\\normalsize\\bfseries') + '},',
+		'  cwexposure/.style={' + (mono ? 'line width=1.6pt, font=\\normalsize\\bfseries' : 'fill=' + tikzRgb(palette.exposure) + ', font=\\normalsize\\bfseries') + '},',
+		'  cwoutcome/.style={' + (mono ? 'line width=1.6pt, font=\\normalsize\\bfseries' : 'fill=' + tikzRgb(palette.outcome) + ', font=\\normalsize\\bfseries') + '},',
 		'  cwunmeasured/.style={dashed, draw=black!' + (mono ? '90' : '65') + ', font=\\normalsize\\itshape},',
 		'  cwadjusted/.style={rectangle, rounded corners=0pt, double=white, double distance=2pt, line width=0.9pt},',
 		'  cwbadge/.style={font=\\footnotesize\\itshape}]'
