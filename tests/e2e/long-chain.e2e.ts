@@ -25,7 +25,7 @@ test('a 1,000-variable chain without positions is laid out and drawn, and Tidy l
 	page.on('pageerror', (e) => errors.push(e.message));
 	await openEmpty(page);
 	await page.locator('header.toolbar input[type=file]').setInputFiles({ name: 'chain.json', mimeType: 'application/json', buffer: Buffer.from(JSON.stringify(chain)) });
-	await expect(message(page)).toContainText('1000 variables, 999 arrows', { timeout: 90_000 });
+	await expect(message(page)).toContainText('1,000 variables, 999 arrows', { timeout: 90_000 });
 	await expect.poll(() => counts(page), { timeout: 90_000 }).toEqual({ variables: N, arrows: N - 1 });
 	// Laid out along the arrows: the chain runs down the page.
 	const [first, middle, last] = [await nodeCentre(page, 'v0'), await nodeCentre(page, 'v500'), await nodeCentre(page, `v${N - 1}`)];

@@ -15,6 +15,7 @@ import { adjustmentSets, checkAdjustment, compareSets, sortIds } from '../causal
 import type { AdjustmentSets } from '../causal';
 import { own, estimateExposureEffect, eValue, standardize, StatsError, TableStatistics, type Column, type ExposureEffect } from '../stats';
 import { drain, type Steps } from './steps';
+import { formatNumber } from '../wording/numbers';
 import type { EstimateRole, EstimateRow, Estimates, EValueSummary, VariableMapping } from './types';
 
 export interface EstimateOptions {
@@ -64,7 +65,7 @@ function eValueOfDifference(effect: ExposureEffect, outcome: Column, used: reado
 		point: e.point,
 		ciBound: e.ciBound,
 		notes: [
-			`Difference standardized by the outcome's SD (${sd.toPrecision(3)}) and converted to a risk ratio by RR ≈ exp(0.91·d) (VanderWeele & Ding 2017); approximate.`
+			`Difference standardized by the outcome's SD (${formatNumber(sd)}) and converted to a risk ratio by RR ≈ exp(0.91·d) (VanderWeele & Ding 2017); approximate.`
 		]
 	};
 }

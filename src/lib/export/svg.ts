@@ -11,7 +11,7 @@
  */
 import type { Diagram } from '../graph/diagram';
 import type { VariableRoles } from '../causal';
-import { BADGE_MEANING } from '../wording';
+import { BADGE_MEANING, countText } from '../wording';
 import { escapeXml } from './escape';
 import { palette } from '../palette';
 import { BADGE_PX, badgeLine, figureOf, LABEL_PX, LINE_GAP, PLANNED_OFFSET, type Figure, type FigureNode, type FigureOptions } from './figure';
@@ -136,7 +136,7 @@ function legendSvg(fig: Figure, ink: Ink, mono: boolean, maxWidth: number): Lege
 function defaultDescription(d: Diagram): string {
 	const label = new Map(d.variables.map((v) => [v.id, v.label]));
 	const names = (ids: string[]) => ids.map((id) => label.get(id) ?? id).join(', ') || 'none chosen';
-	return `Causal diagram with ${d.variables.length} variables and ${d.arrows.length} arrows. Exposure: ${names(d.exposures)}. Outcome: ${names(d.outcomes)}. Adjusted for: ${names(d.adjusted) === 'none chosen' ? 'nothing' : names(d.adjusted)}.`;
+	return `Causal diagram with ${countText(d.variables.length, 'variable')} and ${countText(d.arrows.length, 'arrow')}. Exposure: ${names(d.exposures)}. Outcome: ${names(d.outcomes)}. Adjusted for: ${names(d.adjusted) === 'none chosen' ? 'nothing' : names(d.adjusted)}.`;
 }
 
 /** The figure as an SVG document (UTF-8, with XML declaration). */

@@ -44,12 +44,7 @@ function svelteText(text: string): string {
  * Where e-notation formatting is still called outside the wording layer, in files this work
  * could not change (owned by others at the time), with what should replace it.
  */
-const E_NOTATION_LEFT: Record<string, number> = {
-	// Axis ticks: tickLabel should return axisTickText(x) from wording/numbers.ts.
-	'src/lib/ui/data/scales.ts': 2,
-	// The E-value note's outcome SD: should be formatNumber(sd).
-	'src/lib/datacheck/estimates.ts': 1
-};
+const E_NOTATION_LEFT: Record<string, number> = {};
 
 const files = sourceFiles(SRC);
 

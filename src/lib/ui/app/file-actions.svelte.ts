@@ -9,6 +9,7 @@ import { writeDiagramJson } from '../../graph/native-json';
 import { firstUnopenableIssue } from '../../graph/validate';
 import type { Editor } from '../../editor/editor.svelte';
 import { downloadText, fileStem, readFileText } from '../files';
+import { openedDiagramText } from '../../wording';
 
 export interface FileNeeds {
 	editor: Editor;
@@ -47,7 +48,7 @@ export class FileActions {
 			const d = await place(read);
 			if (!(await settleData(`Opening ${file.name}`))) return editor.say(`${file.name} was not opened.`, 'info');
 			editor.dispatch({ kind: 'replace-diagram', diagram: d, label: `Open ${file.name}` });
-			editor.say(`Opened ${file.name}: ${d.variables.length} variables, ${d.arrows.length} arrows. Undo brings back the previous diagram.`, 'info');
+			editor.say(`${openedDiagramText(file.name, d.variables.length, d.arrows.length)} Undo brings back the previous diagram.`, 'info');
 			fit();
 		} catch (e) {
 			const message = e instanceof InputError || e instanceof Error ? e.message : String(e);

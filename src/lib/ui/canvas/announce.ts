@@ -5,7 +5,7 @@
 import type { Role } from '../../causal';
 import type { Diagram } from '../../graph/diagram';
 import { singleArrow, singleVariable, type Selection } from '../../editor/selection';
-import { badges } from '../../wording';
+import { badges, countText } from '../../wording';
 
 export const labelIn = (d: Diagram, id: string): string => d.variables.find((v) => v.id === id)?.label ?? id;
 
@@ -31,11 +31,11 @@ export function describeSelection(d: Diagram, roles: ReadonlyMap<string, readonl
 		const note = d.arrows.find((x) => x.from === a.from && x.to === a.to)?.note;
 		return `Arrow ${label(a.from)} → ${label(a.to)}.${note ? ` Note: ${note.slice(0, 300)}` : ''}`;
 	}
-	if (s.variables.length + s.arrows.length > 1) return `${s.variables.length} variables and ${s.arrows.length} arrows selected.`;
+	if (s.variables.length + s.arrows.length > 1) return `${countText(s.variables.length, 'variable')} and ${countText(s.arrows.length, 'arrow')} selected.`;
 	return null;
 }
 
 /** Said when the canvas gets the focus with nothing selected. */
 export function describeCanvas(d: Diagram, addHint: string): string {
-	return d.variables.length === 0 ? `Diagram canvas, empty. ${addHint}` : `Diagram canvas, ${d.variables.length} variables and ${d.arrows.length} arrows. Arrow keys select a variable.`;
+	return d.variables.length === 0 ? `Diagram canvas, empty. ${addHint}` : `Diagram canvas, ${countText(d.variables.length, 'variable')} and ${countText(d.arrows.length, 'arrow')}. Arrow keys select a variable.`;
 }

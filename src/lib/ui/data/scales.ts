@@ -47,10 +47,3 @@ export function extent(values: Iterable<number>, pad = 0.05): [number, number] {
 	const w = (hi - lo) * pad;
 	return [lo - w, hi + w];
 }
-
-/** Short number for axis labels. */
-export function tickLabel(x: number): string {
-	const a = Math.abs(x);
-	if (a >= 1e4 || (a > 0 && a < 1e-3)) return x.toExponential(0);
-	return Number(x.toPrecision(3)).toString();
-}

@@ -7,6 +7,7 @@
  */
 import type { Diagram } from '../../graph/diagram';
 import type { Editor } from '../../editor/editor.svelte';
+import { openedDiagramText } from '../../wording';
 
 export async function openShareLink(editor: Editor, place: (d: Diagram) => Promise<Diagram>): Promise<boolean> {
 	const hash = window.location.hash;
@@ -25,7 +26,7 @@ export async function openShareLink(editor: Editor, place: (d: Diagram) => Promi
 	const d = await place(shared);
 	editor.dispatch({ kind: 'replace-diagram', diagram: d, label: 'Open a shared diagram' });
 	editor.select({ variables: [], arrows: [] });
-	editor.say(`Opened the shared diagram "${d.title || 'Untitled'}": ${d.variables.length} variables, ${d.arrows.length} arrows. Undo brings back your previous diagram.`, 'info');
+	editor.say(`${openedDiagramText(`the shared diagram "${d.title || 'Untitled'}"`, d.variables.length, d.arrows.length)} Undo brings back your previous diagram.`, 'info');
 	return true;
 }
 
