@@ -94,7 +94,7 @@ function watch(page: Page, rowsText: string): Promise<Timeline> {
 /** Clicks the Cancel of the progress matching `which` once it shows; ms from the click to the progress gone, and the section's text then. */
 async function cancelWhile(page: Page, csv: string, which: 'reading' | 'checking'): Promise<{ ms: number; after: string }> {
 	const section = page.locator('section[data-section="data"]');
-	await section.locator('input[type="file"]').setInputFiles(csv);
+	await section.getByRole('group', { name: 'Load data' }).locator('input[type="file"]').setInputFiles(csv);
 	const progress = which === 'reading' ? section.getByTestId('data-progress') : section.locator('.progress', { hasText: 'Checking' });
 	// Wait until the reading has shown some rows (or the checks some progress), so the cancel lands mid-way.
 	await progress.filter({ hasText: which === 'reading' ? /[1-9][\d,]* rows/ : /\d+ ?%/ }).waitFor({ timeout: 120_000 });

@@ -3,7 +3,10 @@
 // plot and E-value; a bad CSV gives one clear message and leaves the earlier results; the
 // whole section works from the keyboard.
 import { expect, test, type Page } from '@playwright/test';
-import { readFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { demoCsv, simulateDemo } from '../../scripts/simulate-demo';
 import { counts, dataSection, loadDemoData, openDemo, openSection } from './helpers';
 
 const data = dataSection;
@@ -165,4 +168,27 @@ test('the protocol report carries the data checks and estimates once they are co
 	expect(html).toContain('Data checks and estimates');
 	expect(html).toContain('cycling-hypertension.csv');
 	expect(html).toMatch(/E-value/);
+});
+
+test('a Cancel during the checks: the section heading says what was not checked, never "checking…"', async ({ page }) => {
+	// 300,000 simulated rows of the demo study (scripts/simulate-demo.ts), so that the checks
+	// are still running when Cancel is pressed on any machine.
+	const dir = mkdtempSync(join(tmpdir(), 'causeway-cancel-'));
+	const csv = join(dir, 'cycling-hypertension-300k.csv');
+	writeFileSync(csv, demoCsv(simulateDemo(300_000, 20261206)));
+	try {
+		await openDemo(page);
+		await openSection(page, 'data');
+		const section = data(page);
+		await section.getByRole('group', { name: 'Load data' }).locator('input[type="file"]').setInputFiles(csv);
+		const checking = section.locator('.progress', { hasText: 'Checking' });
+		await checking.getByRole('button', { name: 'Cancel' }).click({ timeout: 120_000 });
+		await expect(section).toContainText('The data checks were cancelled', { timeout: 30_000 });
+		const heading = page.locator('#data-heading .summary');
+		await expect(heading).not.toContainText('checking…');
+		await expect(heading).toContainText(/not checked|claims not run/);
+		await expect(section).toContainText('300,000 rows');
+	} finally {
+		rmSync(dir, { recursive: true, force: true });
+	}
 });

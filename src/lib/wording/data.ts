@@ -41,8 +41,9 @@ export function shortRowLabels(rows: readonly EstimateRow[]): string[] {
 }
 
 /** The Data section's header summary: "3/12 arrows supported · 1 contradicted" ("claims…" while they run). */
-export function dataSummaryText(supported: number, arrows: number, contradicted: number | null): string {
-	return `${groupThousands(supported)}/${groupThousands(arrows)} ${plural(arrows, 'arrow')} supported · ${contradicted === null ? 'claims…' : `${groupThousands(contradicted)} contradicted`}`;
+export function dataSummaryText(supported: number, arrows: number, contradicted: number | 'pending' | 'not run'): string {
+	const claims = contradicted === 'pending' ? 'claims…' : contradicted === 'not run' ? 'claims not run' : `${groupThousands(contradicted)} contradicted`;
+	return `${groupThousands(supported)}/${groupThousands(arrows)} ${plural(arrows, 'arrow')} supported · ${claims}`;
 }
 
 /** Said to screen readers when the data checks are done: "Data checks done: 1 of 1 arrow supported, 0 of 3 claims contradicted." */

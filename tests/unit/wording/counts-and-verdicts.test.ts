@@ -165,7 +165,8 @@ describe('the E-value sentence', () => {
 describe('the Data section and the opened-diagram message count with their nouns', () => {
 	it('"1 of 1 arrow", "0 of 3 claims", "1,000 variables"', () => {
 		expect(dataChecksDoneText(1, 1, 0, 3, true)).toBe('Data checks done: 1 of 1 arrow supported, 0 of 3 claims contradicted, estimates ready.');
-		expect(dataSummaryText(1, 1, null)).toBe('1/1 arrow supported · claims…');
+		expect(dataSummaryText(1, 1, 'pending')).toBe('1/1 arrow supported · claims…');
+		expect(dataSummaryText(2, 3, 'not run')).toBe('2/3 arrows supported · claims not run');
 		expect(dataSummaryText(3, 12, 1)).toBe('3/12 arrows supported · 1 contradicted');
 		expect(openedDiagramText('chain.json', 1000, 999)).toBe('Opened chain.json: 1,000 variables, 999 arrows.');
 		expect(openedDiagramText('one.json', 1, 0)).toBe('Opened one.json: 1 variable, 0 arrows.');
