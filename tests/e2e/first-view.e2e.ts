@@ -5,6 +5,7 @@
  */
 import { expect, test, type Page } from '@playwright/test';
 import { announcer, canvas, verdict } from './helpers';
+import { palette } from '../../src/lib/palette';
 
 /** Holds the response of the chunk that contains Cytoscape until `release()`. */
 async function holdCytoscape(page: Page) {
@@ -54,7 +55,7 @@ test('keys act on the diagram before the canvas has loaded; its view follows', a
 	const said = (await announcer(page).textContent())!;
 	const label = said.split(':')[0];
 	// The selection is drawn on the first view, the planned set changes with Z, the verdict follows.
-	await expect(firstView(page).locator('rect[stroke="#56B4E9"]')).toHaveCount(1);
+	await expect(firstView(page).locator(`rect[stroke="${palette.selection}" i]`)).toHaveCount(1);
 	const before = await verdict(page).textContent();
 	await page.keyboard.press('z');
 	await expect(verdict(page)).not.toHaveText(before!);

@@ -270,7 +270,7 @@ test('an over-long name is refused when it is typed, and what the app saves alwa
 	const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Save', exact: true }).click()]);
 	const saved = readFileSync((await download.path())!, 'utf8');
 	await diagramInput(page).setInputFiles({ name: 'saved.causeway.json', mimeType: 'application/json', buffer: Buffer.from(saved) });
-	await expect(message(page)).toContainText('Opened saved.causeway.json: 1 variables');
+	await expect(message(page)).toContainText('Opened saved.causeway.json: 1 variable, 0 arrows');
 	await page.reload();
 	await expect.poll(async () => (await page.evaluate(() => window.__causewayCanvas?.counts().variables)) ?? 0, { timeout: 20_000 }).toBe(1);
 	await expect(page.getByTestId('stored-copy')).toHaveCount(0);
