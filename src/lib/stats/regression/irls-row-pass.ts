@@ -12,6 +12,9 @@
  * arithmetic with one read-modify-write per entry per block. Per row the η, μ, w, w·z and
  * deviance terms are the same operations in the same order as before; only the order in
  * which XᵀWX and XᵀWz add up the rows changes (rounding, ~1e-16 relative). O(n·p²/2).
+ * Then (same profile: this pass was 38 % of `causeway test`'s CPU): a complete column is copied
+ * as a slice instead of gathered through the row indices, and the 0/1 deviance takes one
+ * logarithm per ~10 rows; 10⁶ rows × 7 columns, best of 12: 101 → 73 ms per pass.
  */
 import type { DesignVector } from './design';
 import type { IrlsData } from './irls';
@@ -24,6 +27,7 @@ import type { IrlsData } from './irls';
  */
 export interface DesignSource {
 	vectors: readonly DesignVector[];
+	/** Ascending and distinct: the complete cases (design.ts) or a strided subsample of them. */
 	rows: Int32Array;
 }
 
@@ -61,6 +65,12 @@ export function rowPass(
 	const { xb, wx, w, wz } = scratch;
 	let deviance = 0;
 	let atBounds = 0;
+	// A 0/1 outcome's deviance is −2 Σ log q (q = μ or 1 − μ): the q are multiplied and their
+	// product's logarithm taken only when it nears underflow, one Math.log per ~10 rows instead
+	// of one per row (q ≥ ε ≈ 2.2e-16 after the clamp, so a product above 1e-200 times q
+	// stays above 2e-216). Same sum up to rounding (~1e-16 relative).
+	let product = 1;
+	let logSum = 0;
 	for (let start = 0; start < units; start += BLOCK) {
 		const len = Math.min(BLOCK, units - start);
 		if (data.source) fillFromVectors(data.source, cols, start, len, xb);
@@ -86,8 +96,13 @@ export function rowPass(
 				else if (mu > 1 - Number.EPSILON) mu = 1 - Number.EPSILON;
 			}
 			if (mu < BOUND || mu > 1 - BOUND) atBounds++;
-			// For a 0/1 outcome one of the two terms of ylogy is 0: the same sum, one logarithm.
-			deviance += binary ? 2 * (yk === 1 ? Math.log(1 / mu) : Math.log(1 / (1 - mu))) : 2 * (ylogy(yk, mu) + ylogy(1 - yk, 1 - mu));
+			if (binary) {
+				product *= yk === 1 ? mu : 1 - mu;
+				if (product < 1e-200) {
+					logSum += Math.log(product);
+					product = 1;
+				}
+			} else deviance += 2 * (ylogy(yk, mu) + ylogy(1 - yk, 1 - mu));
 			const wk = mu * (1 - mu);
 			w[i] = wk;
 			wz[i] = wk * eta + (yk - mu);
@@ -104,6 +119,7 @@ export function rowPass(
 			lowerRow(xtwx, j * p, j, off, wx, xb, len);
 		}
 	}
+	if (binary) deviance = -2 * (logSum + Math.log(product));
 	return { deviance, atBounds };
 }
 
@@ -116,7 +132,10 @@ function fillFromVectors(source: DesignSource, cols: Int32Array, start: number, 
 		if (v.kind === 'one') xb.fill(1, off, off + len);
 		else if (v.kind === 'values') {
 			const values = v.values;
-			for (let i = 0; i < len; i++) xb[off + i] = values[rows[start + i]];
+			// Every row complete (the rows are ascending and distinct, so all of them when the
+			// last is the last): the block is a slice of the column, copied at memory speed.
+			if (rows.length === values.length && rows[rows.length - 1] === values.length - 1) xb.set(values.subarray(start, start + len), off);
+			else for (let i = 0; i < len; i++) xb[off + i] = values[rows[start + i]];
 		} else {
 			const { codes, level } = v;
 			for (let i = 0; i < len; i++) xb[off + i] = codes[rows[start + i]] === level ? 1 : 0;
