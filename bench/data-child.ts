@@ -10,17 +10,13 @@ import { createReadStream, readFileSync, statSync } from 'node:fs';
 import { parseDiagramJson } from '../src/lib/graph/native-json';
 import { parseTableStream } from '../src/lib/stats';
 import { runDataChecks } from '../src/lib/datacheck';
+import { cpuLap } from './cpu-lap';
 
 async function main(): Promise<void> {
 	const [diagramPath, csvPath] = process.argv.slice(2);
 	const diagram = parseDiagramJson(readFileSync(diagramPath, 'utf8'));
 	const rssBefore = process.memoryUsage().rss;
-	let c = process.cpuUsage();
-	const cpuSince = () => {
-		const d = process.cpuUsage(c);
-		c = process.cpuUsage();
-		return (d.user + d.system) / 1000;
-	};
+	const cpuSince = cpuLap();
 	const t0 = performance.now();
 	const parsed = await parseTableStream(createReadStream(csvPath, { highWaterMark: 1 << 20 }), { totalBytes: statSync(csvPath).size });
 	const parseMs = performance.now() - t0;

@@ -10,16 +10,12 @@ import { createReadStream, readFileSync, statSync } from 'node:fs';
 import { parseDiagramJson } from '../src/lib/graph/native-json';
 import { expandGroupedTable, parseTableStream } from '../src/lib/stats';
 import { runDataChecks } from '../src/lib/datacheck';
+import { cpuLap } from './cpu-lap';
 
 async function main(): Promise<void> {
 	const [diagramPath, csvPath, count] = process.argv.slice(2);
 	const diagram = parseDiagramJson(readFileSync(diagramPath, 'utf8'));
-	let c = process.cpuUsage();
-	const cpuSince = () => {
-		const d = process.cpuUsage(c);
-		c = process.cpuUsage();
-		return (d.user + d.system) / 1000;
-	};
+	const cpuSince = cpuLap();
 	const t0 = performance.now();
 	const parsed = await parseTableStream(createReadStream(csvPath, { highWaterMark: 1 << 20 }), { totalBytes: statSync(csvPath).size });
 	if (!parsed.ok) throw new Error(`could not read ${csvPath}: ${JSON.stringify(parsed.error)}`);
