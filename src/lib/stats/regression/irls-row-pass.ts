@@ -32,7 +32,7 @@ export interface DesignSource {
 }
 
 /** Rows per block: 7 columns × 256 rows × 8 bytes × 2 arrays stays in the L1 cache. */
-const BLOCK = 256;
+export const BLOCK = 256;
 const BOUND = 10 * Number.EPSILON;
 
 /** Buffers of one fit, reused by every pass. */
@@ -73,7 +73,7 @@ export function rowPass(
 	let logSum = 0;
 	for (let start = 0; start < units; start += BLOCK) {
 		const len = Math.min(BLOCK, units - start);
-		if (data.source) fillFromVectors(data.source, cols, start, len, xb);
+		if (data.source) fillBlock(data.source, cols, start, len, xb);
 		else
 			for (let j = 0; j < p; j++) {
 				const c = cols[j];
@@ -123,8 +123,8 @@ export function rowPass(
 	return { deviance, atBounds };
 }
 
-/** The block's columns `cols` of the design, rows start…start + len − 1, column-major into xb. */
-function fillFromVectors(source: DesignSource, cols: Int32Array, start: number, len: number, xb: Float64Array): void {
+/** The block's columns `cols` of the design, rows start…start + len − 1, column-major into xb (column j at j·BLOCK). */
+export function fillBlock(source: DesignSource, cols: Int32Array, start: number, len: number, xb: Float64Array): void {
 	const { vectors, rows } = source;
 	for (let j = 0; j < cols.length; j++) {
 		const v = vectors[cols[j]];

@@ -24,6 +24,7 @@ import { checkCollinearity, selectColumns } from '../regression/collinearity';
 import { buildDesign, type DesignTerm } from '../regression/design';
 import { adjustedLogistic } from '../regression/exposure-effect';
 import { fitLogistic, type LogisticFit } from '../regression/logistic';
+import { BLOCK, fillBlock } from '../regression/irls-row-pass';
 import type { TableStatistics, Units } from '../sufficient/table-statistics';
 import type { Column } from '../table/types';
 
@@ -83,12 +84,8 @@ export function standardize(outcome: Column, exposure: Column, adjustFor: readon
 	const g0 = new Float64Array(p);
 	let r1 = 0;
 	let r0 = 0;
-	const xr = new Float64Array(p);
-	const { x, stride, cols, weights } = units;
-	for (let k = 0; k < units.units; k++) {
-		const base = k * stride;
-		for (let j = 0; j < p; j++) xr[j] = x[base + cols[j]];
-		const m = weights === null ? 1 : weights[k];
+	const { x, stride, cols, weights, source } = units;
+	const addUnit = (xr: Float64Array, m: number): void => {
 		let eta = 0;
 		for (let j = 0; j < p; j++) if (j !== e) eta += xr[j] * beta[j];
 		const p1 = expit(eta + beta[e]);
@@ -102,7 +99,25 @@ export function standardize(outcome: Column, exposure: Column, adjustFor: readon
 			g1[j] += w1 * xj;
 			if (j !== e) g0[j] += w0 * xr[j];
 		}
-	}
+	};
+	const xr = new Float64Array(p);
+	if (source) {
+		// Rows from the plan's vectors, a block at a time (no n × p matrix).
+		const block = new Float64Array(p * BLOCK);
+		for (let start = 0; start < units.units; start += BLOCK) {
+			const len = Math.min(BLOCK, units.units - start);
+			fillBlock(source, cols, start, len, block);
+			for (let i = 0; i < len; i++) {
+				for (let j = 0; j < p; j++) xr[j] = block[j * BLOCK + i];
+				addUnit(xr, 1);
+			}
+		}
+	} else
+		for (let k = 0; k < units.units; k++) {
+			const base = k * stride;
+			for (let j = 0; j < p; j++) xr[j] = x[base + cols[j]];
+			addUnit(xr, weights === null ? 1 : weights[k]);
+		}
 	r1 /= n;
 	r0 /= n;
 	for (let j = 0; j < p; j++) {
