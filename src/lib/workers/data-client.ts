@@ -9,8 +9,7 @@
 import type { Diagram } from '../graph/diagram';
 import type { ParseProgress, TableError } from '../stats';
 import type { DataCheckProgress, DataCheckReport, TableInfo } from '../datacheck';
-import { JobRunner } from './job-runner';
-import { DataSession } from './data-steps';
+import { JobRunner, stepsOnDemand } from './job-runner';
 import type { DataJob, DataPart, DataProgress, DataResult, DataSource } from './data-protocol';
 
 export interface DataRunnerEvents {
@@ -63,7 +62,7 @@ export class DataRunner {
 	load(source: DataSource): void {
 		this.#loading?.terminate();
 		// Progress at most every 80 ms when the session runs on the main thread (the worker sets its own).
-		const runner: DataJobs = new JobRunner({ steps: () => new DataSession().steps, createWorker: this.#createWorker, supersede: 'queue', progressEveryMs: 80 });
+		const runner: DataJobs = new JobRunner({ steps: () => stepsOnDemand(async () => new (await import('./data-steps')).DataSession().steps), createWorker: this.#createWorker, supersede: 'queue', progressEveryMs: 80 });
 		this.#loading = runner;
 		const failed = (error: TableError) => {
 			this.#loading = null;

@@ -209,3 +209,19 @@ export class JobRunner<J, P, R> {
 		}
 	}
 }
+
+/**
+ * Steps whose module is imported on the first job that needs them: the main-thread fallback's
+ * code (the whole data side, dagre) then stays out of the page's first download (bench
+ * section 6). A failed import is tried again on the next job.
+ */
+export function stepsOnDemand<J, P, R>(load: () => Promise<JobSteps<J, P, R>>): JobSteps<J, P, R> {
+	let loading: Promise<JobSteps<J, P, R>> | null = null;
+	return async (job, context) => {
+		loading ??= load().catch((e: unknown) => {
+			loading = null;
+			throw e;
+		});
+		return (await loading)(job, context);
+	};
+}

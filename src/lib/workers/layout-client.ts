@@ -8,8 +8,7 @@
  * no Worker.
  */
 import type { LayoutInput, Positions } from '../layout';
-import { JobRunner } from './job-runner';
-import { layoutSteps } from './layout-steps';
+import { JobRunner, stepsOnDemand } from './job-runner';
 
 /** Up to this many variables the layout takes a few tens of milliseconds: no worker needed. */
 export const MAIN_THREAD_LAYOUT_LIMIT = 60;
@@ -19,7 +18,7 @@ function defaultWorker(): Worker {
 }
 
 export function layoutInWorker(input: LayoutInput, createWorker: () => Worker = defaultWorker): Promise<Positions> {
-	const runner = new JobRunner<LayoutInput, never, Positions>({ steps: () => layoutSteps, createWorker, crashed: (m) => `The layout stopped: ${m}` });
+	const runner = new JobRunner<LayoutInput, never, Positions>({ steps: () => stepsOnDemand(async () => (await import('./layout-steps')).layoutSteps), createWorker, crashed: (m) => `The layout stopped: ${m}` });
 	return new Promise((resolve, reject) => {
 		runner.run(
 			input,
