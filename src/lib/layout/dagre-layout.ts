@@ -7,11 +7,6 @@ import dagre from '@dagrejs/dagre';
 import type { Diagram } from '../graph/diagram';
 import { SPACING, type LayoutInput, type Positions } from './types';
 
-/** True when some variable has no position (as in DOT files and hand-written JSON). O(n). */
-export function needsLayout(d: Diagram): boolean {
-	return d.variables.some((v) => typeof v.x !== 'number' || typeof v.y !== 'number');
-}
-
 /**
  * Centre positions for every node, arranged top to bottom in the direction of the arrows.
  * Nodes are keyed by their index ("n0", "n1", …), never by the user's id, so that ids such as
@@ -39,16 +34,4 @@ export function dagrePositions(input: LayoutInput): Positions {
 		const p = g.node(`n${i}`);
 		return { id: n.id, x: Math.round(p.x ?? 0), y: Math.round(p.y ?? 0) };
 	});
-}
-
-/** The diagram with the given positions (variables not listed keep theirs). O(n). */
-export function withPositions(d: Diagram, positions: Positions): Diagram {
-	const at = new Map(positions.map((p) => [p.id, p]));
-	return {
-		...d,
-		variables: d.variables.map((v) => {
-			const p = at.get(v.id);
-			return p ? { ...v, x: p.x, y: p.y } : v;
-		})
-	};
 }

@@ -3,6 +3,7 @@
  * `tidyPositions` is the entry point (it picks dagre or the layered layout by size).
  */
 export { tidyPositions, layoutMethod, DAGRE_MAX_VARIABLES, DAGRE_MAX_ARROWS } from './tidy';
-export { dagrePositions, needsLayout, withPositions } from './dagre-layout';
+export { dagrePositions } from './dagre-layout';
+export { needsLayout, withPositions } from './positions';
 export { layeredPositions, layeredDrawing } from './layered/layered-layout';
 export type { LayoutInput, Positions } from './types';

@@ -4,7 +4,7 @@
  */
 import type { Editor } from '../../editor/editor.svelte';
 import type { Role } from '../../causal';
-import { withPositions } from '../../layout';
+import { withPositions } from '../../layout/positions';
 import { layoutInWorker } from '../../workers/layout-client';
 import { layoutInput } from '../canvas/layout';
 import type { Measure } from '../canvas/elements';
