@@ -62,30 +62,26 @@ export function descendantsOf(g: CompiledDag, v: number): Set<number> {
 	const cache = lists(g).descendants;
 	const hit = cache[v];
 	if (hit) return hit;
-	const seen = new Set<number>([v]);
-	const stack = [v];
-	while (stack.length > 0) {
-		const u = stack.pop() as number;
-		for (const c of childrenOf(g, u))
-			if (!seen.has(c)) {
-				seen.add(c);
-				stack.push(c);
-			}
-	}
+	const seen = reach(v, (u) => childrenOf(g, u));
 	cache[v] = seen;
 	return seen;
 }
 
 /** Ancestors of v, including v itself. */
 export function ancestorsOf(g: CompiledDag, v: number): Set<number> {
+	return reach(v, (u) => parentsOf(g, u));
+}
+
+/** v and everything reachable from it by `next`, by a depth-first search. */
+function reach(v: number, next: (u: number) => Iterable<number>): Set<number> {
 	const seen = new Set<number>([v]);
 	const stack = [v];
 	while (stack.length > 0) {
 		const u = stack.pop() as number;
-		for (const p of parentsOf(g, u))
-			if (!seen.has(p)) {
-				seen.add(p);
-				stack.push(p);
+		for (const w of next(u))
+			if (!seen.has(w)) {
+				seen.add(w);
+				stack.push(w);
 			}
 	}
 	return seen;
