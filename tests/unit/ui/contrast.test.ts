@@ -4,7 +4,7 @@
  * "contrast ratio" in the glossary, https://www.w3.org/TR/WCAG21/).
  */
 import { describe, expect, it } from 'vitest';
-import { COLOURS } from '../../../src/lib/ui/canvas/style';
+import { palette } from '../../../src/lib/palette';
 import { contrast } from '../wcag-contrast';
 
 describe('canvas label contrast (WCAG 2.1 AA, 4.5:1)', () => {
@@ -15,13 +15,13 @@ describe('canvas label contrast (WCAG 2.1 AA, 4.5:1)', () => {
 	});
 
 	it.each([
-		['name on a plain variable', COLOURS.text, COLOURS.surface],
-		['name on the exposure fill', COLOURS.text, COLOURS.exposure],
-		['name on the outcome fill', COLOURS.text, COLOURS.outcome],
-		['grey name of an unmeasured variable', COLOURS.unmeasured, COLOURS.surface],
-		['unmeasured exposure', COLOURS.unmeasuredOnFill, COLOURS.exposure],
-		['unmeasured outcome', COLOURS.unmeasuredOnFill, COLOURS.outcome],
-		['the canvas background behind an unmeasured name', COLOURS.unmeasured, '#fbfbf8']
+		['name on a plain variable', palette.text, palette.surface],
+		['name on the exposure fill', palette.text, palette.exposure],
+		['name on the outcome fill', palette.text, palette.outcome],
+		['grey name of an unmeasured variable', palette.unmeasured, palette.surface],
+		['unmeasured exposure', palette.unmeasuredOnFill, palette.exposure],
+		['unmeasured outcome', palette.unmeasuredOnFill, palette.outcome],
+		['the canvas background behind an unmeasured name', palette.unmeasured, '#fbfbf8']
 	])('%s', (_what, fg, bg) => {
 		expect(contrast(fg, bg)).toBeGreaterThanOrEqual(4.5);
 	});

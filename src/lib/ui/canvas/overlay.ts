@@ -25,7 +25,6 @@ import type { Selection } from '../../editor/selection';
 import type { Highlight } from '../highlight';
 import { arrowKey, nodeKey } from './elements';
 import { palette } from '../../palette';
-import { COLOURS } from './style';
 
 export interface OverlayState {
 	/** The planned (adjusted) set: drawn inside a square box. */
@@ -124,13 +123,13 @@ export class CanvasOverlay {
 		if (highlight) this.#drawHighlight(ctx, highlight, zoom);
 		const lit = highlight ? new Set(highlight.kind === 'variables' ? highlight.ids : highlight.nodes) : null;
 		for (const id of planned) this.#plannedBox(ctx, id, zoom, lit === null || lit.has(id) ? 1 : 0.28);
-		if (cycle) for (let i = 1; i < cycle.length; i++) this.#strokeArrow(ctx, cycle[i - 1], cycle[i], COLOURS.openPath, 5 * zoom, [10 * zoom, 5 * zoom]);
+		if (cycle) for (let i = 1; i < cycle.length; i++) this.#strokeArrow(ctx, cycle[i - 1], cycle[i], palette.openPath, 5 * zoom, [10 * zoom, 5 * zoom]);
 		for (const a of selection.arrows) {
 			const e = this.#edge(a.from, a.to);
-			if (e) band(ctx, e.renderedSourceEndpoint(), e.renderedTargetEndpoint(), COLOURS.selection, Math.max(8, 14 * zoom));
+			if (e) band(ctx, e.renderedSourceEndpoint(), e.renderedTargetEndpoint(), palette.selection, Math.max(8, 14 * zoom));
 		}
-		for (const id of selection.variables) this.#ring(ctx, id, COLOURS.selection, zoom, 0.85);
-		if (target) this.#ring(ctx, target, COLOURS.causalPath, zoom, 0.85);
+		for (const id of selection.variables) this.#ring(ctx, id, palette.selection, zoom, 0.85);
+		if (target) this.#ring(ctx, target, palette.causalPath, zoom, 0.85);
 	}
 
 	#drawHighlight(ctx: CanvasRenderingContext2D, h: Highlight, zoom: number): void {
@@ -150,13 +149,13 @@ export class CanvasOverlay {
 		}
 		ctx.restore();
 		if (h.kind === 'variables') {
-			for (const id of lit) this.#ring(ctx, id, COLOURS.openPath, zoom, 0.6);
+			for (const id of lit) this.#ring(ctx, id, palette.openPath, zoom, 0.6);
 			return;
 		}
 		const look = {
-			causal: { colour: COLOURS.causalPath, width: 5, dash: [] as number[] },
-			open: { colour: COLOURS.openPath, width: 5, dash: [10, 5] },
-			blocked: { colour: COLOURS.blockedPath, width: 2.5, dash: [2, 4] }
+			causal: { colour: palette.causalPath, width: 5, dash: [] as number[] },
+			open: { colour: palette.openPath, width: 5, dash: [10, 5] },
+			blocked: { colour: palette.blockedPath, width: 2.5, dash: [2, 4] }
 		}[h.style];
 		for (let i = 1; i < h.nodes.length; i++) {
 			const [p, q] = [h.nodes[i - 1], h.nodes[i]];
@@ -185,7 +184,7 @@ export class CanvasOverlay {
 		const h = n.renderedOuterHeight() + 2 * gap;
 		ctx.save();
 		ctx.globalAlpha = alpha;
-		ctx.strokeStyle = COLOURS.text;
+		ctx.strokeStyle = palette.text;
 		ctx.lineWidth = Math.max(1.5, 2.5 * zoom);
 		ctx.strokeRect(p.x - w / 2, p.y - h / 2, w, h);
 		ctx.restore();

@@ -6,23 +6,6 @@
 import type { StylesheetJson } from 'cytoscape';
 import { palette } from '../../palette';
 
-/**
- * The canvas's colours, from the one palette (src/lib/palette.ts): Cytoscape's style and the
- * overlay's 2D context take literal values, not the page's CSS custom properties.
- */
-export const COLOURS = {
-	exposure: palette.exposure,
-	outcome: palette.outcome,
-	causalPath: palette.causalPath,
-	openPath: palette.openPath,
-	blockedPath: palette.blockedPath,
-	text: palette.text,
-	unmeasured: palette.unmeasured,
-	unmeasuredOnFill: palette.unmeasuredOnFill,
-	selection: palette.selection,
-	arrow: palette.arrow,
-	surface: palette.surface
-} as const;
 
 /**
  * Marks an arrow that has a note (the reason it is assumed). Variables are not marked: most
@@ -42,9 +25,9 @@ export const canvasStyle: StylesheetJson = [
 			shape: 'round-rectangle',
 			width: 'data(w)',
 			height: 'data(h)',
-			'background-color': COLOURS.surface,
+			'background-color': palette.surface,
 			'border-width': 1.5,
-			'border-color': COLOURS.text,
+			'border-color': palette.text,
 			label: 'data(text)',
 			'text-wrap': 'wrap',
 			'text-valign': 'center',
@@ -52,24 +35,24 @@ export const canvasStyle: StylesheetJson = [
 			'font-family': FONT_FAMILY,
 			'font-size': LABEL_FONT_PX,
 			'line-height': LINE_HEIGHT,
-			color: COLOURS.text,
+			color: palette.text,
 			'text-events': 'no'
 		}
 	},
-	{ selector: 'node.exposure', style: { 'background-color': COLOURS.exposure } },
-	{ selector: 'node.outcome', style: { 'background-color': COLOURS.outcome } },
+	{ selector: 'node.exposure', style: { 'background-color': palette.exposure } },
+	{ selector: 'node.outcome', style: { 'background-color': palette.outcome } },
 	{
 		selector: 'node.unmeasured',
-		style: { 'border-style': 'dashed', 'border-width': 2, 'border-color': COLOURS.unmeasured, color: COLOURS.unmeasured }
+		style: { 'border-style': 'dashed', 'border-width': 2, 'border-color': palette.unmeasured, color: palette.unmeasured }
 	},
-	{ selector: 'node.unmeasured.exposure, node.unmeasured.outcome', style: { color: COLOURS.unmeasuredOnFill } },
+	{ selector: 'node.unmeasured.exposure, node.unmeasured.outcome', style: { color: palette.unmeasuredOnFill } },
 	{
 		selector: 'edge',
 		style: {
 			width: 2,
 			'curve-style': 'straight', // a DAG has no opposite or parallel arrows, so no curves are needed (and straight lines draw faster)
-			'line-color': COLOURS.arrow,
-			'target-arrow-color': COLOURS.arrow,
+			'line-color': palette.arrow,
+			'target-arrow-color': palette.arrow,
 			'target-arrow-shape': 'triangle',
 			'arrow-scale': 1.3
 		}
@@ -82,8 +65,8 @@ export const canvasStyle: StylesheetJson = [
 			label: 'data(dataTag)',
 			'font-family': FONT_FAMILY,
 			'font-size': 11,
-			color: COLOURS.text,
-			'text-background-color': COLOURS.surface,
+			color: palette.text,
+			'text-background-color': palette.surface,
 			'text-background-opacity': 0.9,
 			'text-background-padding': '2px',
 			'text-events': 'no'
@@ -91,7 +74,7 @@ export const canvasStyle: StylesheetJson = [
 	},
 	{ selector: 'edge.data-supported', style: { color: palette.accentText } },
 	{ selector: 'edge.data-absent', style: { 'line-style': 'dashed', 'line-dash-pattern': [5, 4], color: palette.againstText } },
-	{ selector: 'edge.data-untested', style: { color: COLOURS.unmeasured } },
+	{ selector: 'edge.data-untested', style: { color: palette.unmeasured } },
 	{
 		// An arrow with a note: a pencil near its start (NOTE_MARK).
 		selector: 'edge.has-note',
@@ -100,8 +83,8 @@ export const canvasStyle: StylesheetJson = [
 			'source-text-offset': 22,
 			'font-family': FONT_FAMILY,
 			'font-size': 13,
-			color: COLOURS.text,
-			'text-background-color': COLOURS.surface,
+			color: palette.text,
+			'text-background-color': palette.surface,
 			'text-background-opacity': 0.9,
 			'text-background-padding': '1px',
 			'text-events': 'no'
@@ -110,8 +93,8 @@ export const canvasStyle: StylesheetJson = [
 	// Selection, highlights, a refused cycle and the keyboard's arrow target are not styles:
 	// canvas/overlay.ts draws them over the scene, so changing them never restyles elements.
 	// Edge-drawing gesture (cytoscape-edgehandles classes).
-	{ selector: '.eh-ghost-edge, edge.eh-preview', style: { 'line-color': COLOURS.causalPath, 'target-arrow-color': COLOURS.causalPath, width: 3, 'line-style': 'dashed' } },
-	{ selector: 'edge.eh-preview.refused', style: { 'line-color': COLOURS.openPath, 'target-arrow-color': COLOURS.openPath, 'target-arrow-shape': 'tee' } },
-	{ selector: 'node.eh-target', style: { 'underlay-color': COLOURS.causalPath, 'underlay-opacity': 0.35, 'underlay-padding': 10 } },
+	{ selector: '.eh-ghost-edge, edge.eh-preview', style: { 'line-color': palette.causalPath, 'target-arrow-color': palette.causalPath, width: 3, 'line-style': 'dashed' } },
+	{ selector: 'edge.eh-preview.refused', style: { 'line-color': palette.openPath, 'target-arrow-color': palette.openPath, 'target-arrow-shape': 'tee' } },
+	{ selector: 'node.eh-target', style: { 'underlay-color': palette.causalPath, 'underlay-opacity': 0.35, 'underlay-padding': 10 } },
 	{ selector: '.eh-ghost-edge.eh-preview-active', style: { opacity: 0 } }
 ];
